@@ -1,0 +1,53 @@
+"""ilkit: influence lines for girders in Jupyter notebooks.
+
+Exact (rational, piecewise) influence lines of reactions, shears and moments
+for hinged determinate beams.  Sign conventions are stated in
+:mod:`ilkit.model`.
+"""
+
+from __future__ import annotations
+
+from typing import Any
+
+from ilkit.errors import (
+    BeamInputError,
+    IlkitError,
+    IndeterminateBeamError,
+    MissingDependencyError,
+    SideRequiredError,
+    UnstableBeamError,
+)
+from ilkit.influence import InfluenceLine, Ordinate, Piece
+from ilkit.model import Beam, Support
+from ilkit.quantity import Quantity
+from ilkit.units import SYSTEMS, UnitSystem
+
+__version__ = "0.1.0"
+
+__all__ = [
+    "Beam",
+    "Support",
+    "InfluenceLine",
+    "Piece",
+    "Ordinate",
+    "Quantity",
+    "UnitSystem",
+    "SYSTEMS",
+    "IlkitError",
+    "BeamInputError",
+    "UnstableBeamError",
+    "IndeterminateBeamError",
+    "SideRequiredError",
+    "MissingDependencyError",
+    "x",
+]
+
+
+def __getattr__(name: str) -> Any:
+    # ``ilkit.x`` is the sympy symbol of the load position; sympy is imported
+    # only when it is first asked for, so ``import ilkit`` stays fast.
+    if name == "x":
+        from ilkit._symbols import x
+
+        return x
+    raise AttributeError(f"module 'ilkit' has no attribute {name!r}")

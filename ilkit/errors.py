@@ -1,0 +1,64 @@
+"""Errors raised by ilkit.
+
+Every error is an :class:`IlkitError`, which subclasses :class:`ValueError`, so
+callers may catch either.  Messages name the value at fault, what is allowed and
+what to do next.
+"""
+
+from __future__ import annotations
+
+__all__ = [
+    "IlkitError",
+    "BeamInputError",
+    "UnstableBeamError",
+    "IndeterminateBeamError",
+    "SideRequiredError",
+    "MissingDependencyError",
+]
+
+
+class IlkitError(ValueError):
+    """Base class of every error ilkit raises on purpose."""
+
+
+class BeamInputError(IlkitError):
+    """A beam or a request was described with a value that cannot be used.
+
+    Attributes
+    ----------
+    field:
+        The argument at fault (``"length"``, ``"supports"``, ``"hinges"`` ...).
+    value:
+        The offending value as given.
+    """
+
+    def __init__(self, message: str, *, field: str | None = None, value: object = None) -> None:
+        super().__init__(message)
+        self.field = field
+        self.value = value
+
+
+class UnstableBeamError(IlkitError):
+    """The beam is a mechanism: some part of it can move with no load resisted.
+
+    Attributes
+    ----------
+    motions:
+        One line per rigid part that can move, saying how it moves.
+    """
+
+    def __init__(self, message: str, *, motions: tuple[str, ...] = ()) -> None:
+        super().__init__(message)
+        self.motions = motions
+
+
+class IndeterminateBeamError(IlkitError):
+    """An exact (kinematic) result was asked of a statically indeterminate beam."""
+
+
+class SideRequiredError(IlkitError):
+    """A quantity jumps at the requested point and the caller did not name a side."""
+
+
+class MissingDependencyError(IlkitError, ImportError):
+    """An optional package is needed for this call; the message names the install."""

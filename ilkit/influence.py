@@ -1,0 +1,509 @@
+"""The influence line: one type for exact (piecewise-linear or piecewise-cubic,
+rational) and numeric (piecewise-cubic, float) lines.
+
+A line is stored as polynomial pieces between knots.  Piece ``j`` covers
+``knots[j] <= x < knots[j+1]`` and is written in the local coordinate
+``t = x - knots[j]`` with ascending coefficients ``c0 + c1 t + c2 t^2 + c3 t^3``.
+Pieces may jump at knots; both one-sided values are available.  The load is on
+the beam for ``0 <= x <= L``; anywhere else the ordinate is 0.
+
+Ordinates are the value of the quantity caused by a unit downward load at
+``x`` (sign conventions in :mod:`ilkit.model`).
+"""
+
+from __future__ import annotations
+
+import bisect
+from dataclasses import dataclass
+from fractions import Fraction
+from functools import cached_property
+from typing import TYPE_CHECKING, Any, Literal
+
+import numpy as np
+
+from ilkit._exact import fmt
+from ilkit.quantity import Quantity
+from ilkit.units import UnitSystem
+
+if TYPE_CHECKING:  # pragma: no cover
+    import pandas as pd
+    import sympy
+
+__all__ = ["InfluenceLine", "Piece", "Ordinate"]
+
+Number = Fraction | float
+
+
+@dataclass(frozen=True)
+class Piece:
+    """One polynomial piece of a line, ``start <= x < end``.
+
+    ``coefficients`` are ascending powers of the local coordinate
+    ``t = x - start``; ``exact`` holds the same as :class:`Fraction` for exact
+    lines and is ``None`` otherwise.
+    """
+
+    start: float
+    end: float
+    coefficients: tuple[float, ...]
+    exact: tuple[Fraction, ...] | None = None
+    exact_start: Fraction | None = None
+
+    def polynomial(self) -> sympy.Expr:
+        """The piece as a sympy polynomial in the global coordinate :data:`ilkit.x`."""
+        import sympy
+
+        from ilkit._symbols import x
+
+        if self.exact is not None and self.exact_start is not None:
+            coeffs = [sympy.Rational(c.numerator, c.denominator) for c in self.exact]
+            start: Any = sympy.Rational(self.exact_start.numerator, self.exact_start.denominator)
+        else:
+            coeffs = [sympy.Float(c) for c in self.coefficients]
+            start = sympy.Float(self.start)
+        return sympy.expand(sum(c * (x - start) ** p for p, c in enumerate(coeffs)))
+
+
+@dataclass(frozen=True)
+class Ordinate:
+    """A value of a line at a position; ``side`` tells which one-sided limit."""
+
+    value: float
+    x: float
+    side: Literal["left", "right"] | None = None
+
+    def __repr__(self) -> str:
+        side = f", side={self.side!r}" if self.side else ""
+        return f"Ordinate(value={fmt(self.value)}, x={fmt(self.x)}{side})"
+
+
+class InfluenceLine:
+    """Influence line of one quantity of one beam.
+
+    Call it on a float or a numpy array of load positions to get ordinates
+    (0 off the beam; right-hand value at a jump, left-hand value at the right
+    end).  Use :meth:`left` and :meth:`right` for one-sided values.
+
+    Build lines with the beam's methods (``beam.reaction(x)``, ``beam.shear(x)``
+    ...), not with this constructor.
+    """
+
+    __slots__ = (
+        "__dict__",
+        "_c",
+        "_coef_exact",
+        "_degree",
+        "_knot_list",
+        "_knots",
+        "_knots_exact",
+        "_origin",
+        "length",
+        "quantity",
+        "units",
+    )
+
+    def __init__(
+        self,
+        *,
+        quantity: Quantity,
+        knots: tuple[Number, ...],
+        coefficients: tuple[tuple[Number, ...], ...],
+        units: UnitSystem | None = None,
+        origin: object = None,
+    ) -> None:
+        if len(coefficients) != len(knots) - 1 or len(knots) < 2:
+            raise ValueError("an influence line needs one coefficient tuple per piece")
+        exact = all(isinstance(k, Fraction) for k in knots) and all(
+            isinstance(c, Fraction) for cs in coefficients for c in cs
+        )
+        self.quantity = quantity
+        self._knots_exact = tuple(knots) if exact else None
+        self._coef_exact = tuple(tuple(cs) for cs in coefficients) if exact else None
+        self._knots = np.array([float(k) for k in knots])
+        if np.any(np.diff(self._knots) <= 0):
+            raise ValueError("knots must increase strictly")
+        degree = max((len(cs) for cs in coefficients), default=1) - 1
+        self._degree = max(degree, 0)
+        width = self._degree + 1
+        table = np.zeros((width, len(coefficients)))
+        for j, cs in enumerate(coefficients):
+            for p, c in enumerate(cs):
+                table[p, j] = float(c)
+        self._c = table
+        self._knot_list = self._knots.tolist()
+        self.length = float(self._knots[-1])
+        self.units = units
+        self._origin = origin
+
+    # ------------------------------------------------------------------ basics
+    @property
+    def is_exact(self) -> bool:
+        """True when knots and coefficients are exact rationals."""
+        return self._knots_exact is not None
+
+    @property
+    def degree(self) -> int:
+        """Highest polynomial degree of the pieces (1 for determinate lines, 3 for continuous)."""
+        return self._degree
+
+    @property
+    def origin(self) -> object:
+        """What produced the line (the beam analysis), for derivations; may be ``None``."""
+        return self._origin
+
+    @property
+    def breakpoints(self) -> tuple[float, ...]:
+        """Knots of the line: beam ends, supports, releases and the section, in order."""
+        return tuple(self._knot_list)
+
+    @property
+    def exact_breakpoints(self) -> tuple[Fraction, ...] | None:
+        """The knots as exact fractions (``None`` for numeric lines)."""
+        return self._knots_exact
+
+    @cached_property
+    def pieces(self) -> tuple[Piece, ...]:
+        """The polynomial pieces of the line."""
+        out = []
+        for j in range(len(self._knot_list) - 1):
+            coeffs = tuple(float(v) for v in self._c[:, j])
+            exact = self._coef_exact[j] if self._coef_exact is not None else None
+            start_exact = self._knots_exact[j] if self._knots_exact is not None else None
+            out.append(Piece(self._knot_list[j], self._knot_list[j + 1], coeffs, exact, start_exact))
+        return tuple(out)
+
+    @property
+    def unit(self) -> str:
+        """Unit of the ordinates, e.g. ``"kN·m/kN"``; empty when the beam has no units."""
+        u = self.units
+        if u is None:
+            return ""
+        q = self.quantity
+        if q.is_force:
+            return f"{u.force}/{u.force}"
+        if q.is_moment:
+            return f"{u.moment}/{u.force}"
+        if q.kind == "deflection":
+            return f"{u.length}/{u.force}"
+        return f"rad/{u.force}"
+
+    def __repr__(self) -> str:
+        kind = "exact" if self.is_exact else "numeric"
+        return (
+            f"<InfluenceLine {self.quantity.label}, {kind}, {len(self._knot_list) - 1} pieces "
+            f"on 0..{fmt(self.length)}>"
+        )
+
+    # -------------------------------------------------------------- evaluation
+    def __call__(self, x: float | np.ndarray) -> float | np.ndarray:
+        """Ordinate(s) at load position(s) ``x``; right-hand value at a jump."""
+        return self._evaluate(x, "right")
+
+    def left(self, x: float | np.ndarray) -> float | np.ndarray:
+        """Left-hand limit of the ordinate at ``x`` (0 at and left of the left end)."""
+        return self._evaluate(x, "left")
+
+    def right(self, x: float | np.ndarray) -> float | np.ndarray:
+        """Right-hand limit of the ordinate at ``x`` (0 at and right of the right end)."""
+        return self._evaluate(x, "right_strict")
+
+    def _evaluate(self, x: Any, mode: str) -> Any:
+        if np.ndim(x) == 0:
+            return self._scalar(float(x), mode)
+        xs = np.asarray(x, dtype=float)
+        if np.isnan(xs).any():
+            from ilkit.errors import BeamInputError
+
+            raise BeamInputError("load position: NaN is not a position on the beam.", field="x")
+        knots = self._knots
+        npieces = knots.size - 1
+        if mode == "left":
+            idx = np.searchsorted(knots, xs, side="left") - 1
+            off = (xs <= 0.0) | (xs > self.length)
+        else:
+            idx = np.searchsorted(knots, xs, side="right") - 1
+            off = (xs < 0.0) | (xs > self.length)
+            if mode == "right_strict":
+                off |= xs >= self.length
+        np.clip(idx, 0, npieces - 1, out=idx)
+        t = xs - knots[idx]
+        c = self._c
+        y = c[self._degree][idx]
+        for p in range(self._degree - 1, -1, -1):
+            y = y * t + c[p][idx]
+        return np.where(off, 0.0, y)
+
+    def _scalar(self, x: float, mode: str) -> float:
+        if x != x:
+            from ilkit.errors import BeamInputError
+
+            raise BeamInputError("load position: NaN is not a position on the beam.", field="x")
+        length = self.length
+        if x < 0.0 or x > length:
+            return 0.0
+        knots = self._knot_list
+        if mode == "left":
+            if x <= 0.0:
+                return 0.0
+            j = bisect.bisect_left(knots, x) - 1
+        else:
+            if mode == "right_strict" and x >= length:
+                return 0.0
+            j = bisect.bisect_right(knots, x) - 1
+        j = min(max(j, 0), len(knots) - 2)
+        t = x - knots[j]
+        c = self._c
+        y = float(c[self._degree, j])
+        for p in range(self._degree - 1, -1, -1):
+            y = y * t + float(c[p, j])
+        return y
+
+    # ----------------------------------------------------------- exact forms
+    @cached_property
+    def expr(self) -> sympy.Expr:
+        """The line as a sympy ``Piecewise`` in :data:`ilkit.x` (0 off the beam).
+
+        Exact rationals for exact lines, floats for numeric ones.
+        """
+        import sympy
+
+        from ilkit._symbols import x
+
+        args: list[tuple[Any, Any]] = [(sympy.Integer(0), x < 0)]
+        pieces = self.pieces
+        polys = [piece.polynomial() for piece in pieces]
+        for j, piece in enumerate(pieces):
+            if j < len(pieces) - 1 and polys[j + 1] == polys[j]:
+                continue  # same law on both sides of a knot: one piece
+            end = _sym(self._knots_exact[j + 1]) if self._knots_exact else sympy.Float(piece.end)
+            cond = x < end if j < len(pieces) - 1 else x <= end
+            args.append((polys[j], cond))
+        args.append((sympy.Integer(0), True))
+        return sympy.Piecewise(*args, evaluate=False)
+
+    def ordinate_exact(self, x: Number, side: Literal["left", "right"] | None = None) -> Fraction:
+        """Exact ordinate at ``x`` of an exact line (one-sided if ``side`` is given)."""
+        if self._knots_exact is None or self._coef_exact is None:
+            from ilkit.errors import IlkitError
+
+            raise IlkitError(
+                f"{self.quantity.label}: this line is numeric; use line(x) for a float ordinate."
+            )
+        from ilkit._exact import to_exact
+
+        xe = to_exact(x, field="x")
+        knots = self._knots_exact
+        if xe < 0 or xe > knots[-1] or (side == "left" and xe == 0) or (side == "right" and xe == knots[-1]):
+            return Fraction(0)
+        if side == "left":
+            j = bisect.bisect_left(knots, xe) - 1
+        else:
+            j = bisect.bisect_right(knots, xe) - 1
+        j = min(max(j, 0), len(knots) - 2)
+        t = xe - knots[j]
+        return sum((c * t**p for p, c in enumerate(self._coef_exact[j])), Fraction(0))
+
+    # -------------------------------------------------------------- ordinates
+    def knot_values(self) -> list[tuple[float, float, float]]:
+        """``(x, left, right)`` at every knot; 0 for the side that is off the beam."""
+        out = []
+        n = len(self._knot_list)
+        for j, xk in enumerate(self._knot_list):
+            left = self._piece_value(j - 1, xk - self._knot_list[j - 1]) if j > 0 else 0.0
+            right = self._piece_value(j, 0.0) if j < n - 1 else 0.0
+            out.append((xk, left, right))
+        return out
+
+    def _piece_value(self, j: int, t: float) -> float:
+        c = self._c
+        y = float(c[self._degree, j])
+        for p in range(self._degree - 1, -1, -1):
+            y = y * t + float(c[p, j])
+        return y
+
+    def ordinates(self) -> pd.DataFrame:
+        """Table of the position and the ordinates just left and right of each breakpoint.
+
+        Column names carry the units when the beam declares them.  The side that
+        is off the beam (left of the left end, right of the right end) reads 0.
+        """
+        import pandas as pd
+
+        length_unit = f" [{self.units.length}]" if self.units else ""
+        unit = f" [{self.unit}]" if self.unit else ""
+        rows = self.knot_values()
+        return pd.DataFrame(
+            {
+                f"x{length_unit}": [r[0] for r in rows],
+                f"left{unit}": [r[1] for r in rows],
+                f"right{unit}": [r[2] for r in rows],
+            }
+        )
+
+    def sample(self, points_per_piece: int = 41) -> tuple[np.ndarray, np.ndarray]:
+        """Points for drawing: each piece sampled with both one-sided values at jumps."""
+        xs: list[np.ndarray] = []
+        ys: list[np.ndarray] = []
+        n = 2 if self._degree <= 1 else max(points_per_piece, 2)
+        for j in range(len(self._knot_list) - 1):
+            a, b = self._knot_list[j], self._knot_list[j + 1]
+            t = np.linspace(0.0, b - a, n)
+            y = self._c[self._degree, j] * np.ones_like(t)
+            for p in range(self._degree - 1, -1, -1):
+                y = y * t + self._c[p, j]
+            xs.append(a + t)
+            ys.append(y)
+        return np.concatenate(xs), np.concatenate(ys)
+
+    # ------------------------------------------------------------------ roots
+    def _piece_roots(self, j: int) -> list[float]:
+        """Local coordinates t in (0, h) where piece j crosses zero."""
+        h = self._knot_list[j + 1] - self._knot_list[j]
+        coeffs = self._c[:, j]
+        nz = np.nonzero(np.abs(coeffs) > 0)[0]
+        if nz.size == 0:
+            return []
+        top = int(nz[-1])
+        if top == 0:
+            return []
+        if top == 1:
+            roots = [-coeffs[0] / coeffs[1]]
+        else:
+            r = np.roots(coeffs[: top + 1][::-1])
+            roots = [float(v.real) for v in r if abs(v.imag) <= 1e-12 * max(1.0, abs(v.real))]
+        tol = 1e-12 * max(h, 1.0)
+        return sorted(t for t in roots if tol < t < h - tol)
+
+    def roots(self) -> tuple[float, ...]:
+        """Positions inside pieces where the line crosses zero (jumps through 0 not included)."""
+        out = []
+        for j in range(len(self._knot_list) - 1):
+            a = self._knot_list[j]
+            out.extend(a + t for t in self._piece_roots(j))
+        return tuple(out)
+
+    # ------------------------------------------------------------------ areas
+    def _piece_integral(self, j: int, t0: float, t1: float) -> float:
+        total = 0.0
+        for p in range(self._degree + 1):
+            c = self._c[p, j]
+            if c:
+                total += c * (t1 ** (p + 1) - t0 ** (p + 1)) / (p + 1)
+        return total
+
+    def integral(self, a: float, b: float) -> float:
+        """Integral of the line from ``a`` to ``b`` (a uniform unit load over [a, b])."""
+        if b < a:
+            return -self.integral(b, a)
+        a = max(a, 0.0)
+        b = min(b, self.length)
+        total = 0.0
+        for j in range(len(self._knot_list) - 1):
+            k0, k1 = self._knot_list[j], self._knot_list[j + 1]
+            lo, hi = max(a, k0), min(b, k1)
+            if hi > lo:
+                total += self._piece_integral(j, lo - k0, hi - k0)
+        return total
+
+    @cached_property
+    def _signed_areas(self) -> tuple[float, float]:
+        if self._coef_exact is not None and self._degree <= 1:
+            pos_e, neg_e = self.exact_areas()
+            return float(pos_e), float(neg_e)
+        pos = neg = 0.0
+        for j in range(len(self._knot_list) - 1):
+            h = self._knot_list[j + 1] - self._knot_list[j]
+            cuts = [0.0, *self._piece_roots(j), h]
+            for t0, t1 in zip(cuts[:-1], cuts[1:]):
+                part = self._piece_integral(j, t0, t1)
+                if part > 0:
+                    pos += part
+                else:
+                    neg += part
+        return pos, neg
+
+    @property
+    def positive_area(self) -> float:
+        """Area under the positive parts of the line (uniform unit load on them)."""
+        return self._signed_areas[0]
+
+    @property
+    def negative_area(self) -> float:
+        """Area under the negative parts of the line (a value <= 0)."""
+        return self._signed_areas[1]
+
+    @property
+    def area(self) -> float:
+        """Net area (uniform unit load over the whole beam)."""
+        return self._signed_areas[0] + self._signed_areas[1]
+
+    def exact_areas(self) -> tuple[Fraction, Fraction]:
+        """Exact ``(positive, negative)`` areas of an exact piecewise-linear line."""
+        if self._knots_exact is None or self._coef_exact is None or self._degree > 1:
+            from ilkit.errors import IlkitError
+
+            raise IlkitError(
+                f"{self.quantity.label}: exact areas need an exact piecewise-linear line; "
+                "use positive_area / negative_area for floats."
+            )
+        pos = neg = Fraction(0)
+        knots = self._knots_exact
+        for j, cs in enumerate(self._coef_exact):
+            h = knots[j + 1] - knots[j]
+            c0 = cs[0]
+            c1 = cs[1] if len(cs) > 1 else Fraction(0)
+            cuts = [Fraction(0), h]
+            if c1 and 0 < -c0 / c1 < h:
+                cuts.insert(1, -c0 / c1)
+            for t0, t1 in zip(cuts[:-1], cuts[1:]):
+                part = c0 * (t1 - t0) + c1 * (t1 * t1 - t0 * t0) / 2
+                if part > 0:
+                    pos += part
+                else:
+                    neg += part
+        return pos, neg
+
+    # --------------------------------------------------------------- extremes
+    def _candidates(self) -> list[Ordinate]:
+        out = []
+        n = len(self._knot_list)
+        for j, (xk, left, right) in enumerate(self.knot_values()):
+            if j > 0:
+                out.append(Ordinate(left, xk, "left" if j < n - 1 else None))
+            if j < n - 1:
+                out.append(Ordinate(right, xk, "right" if j > 0 else None))
+        if self._degree >= 2:
+            for j in range(n - 1):
+                a, h = self._knot_list[j], self._knot_list[j + 1] - self._knot_list[j]
+                deriv = [p * self._c[p, j] for p in range(1, self._degree + 1)]
+                if not any(deriv):
+                    continue
+                coeffs = np.trim_zeros(np.array(deriv[::-1]), "f")
+                if coeffs.size < 2:
+                    continue
+                for r in np.roots(coeffs):
+                    if abs(r.imag) < 1e-12 and 0 < r.real < h:
+                        out.append(Ordinate(self._piece_value(j, float(r.real)), a + float(r.real)))
+        # unify jumps: a one-sided value equal to the other side needs no side
+        cleaned = []
+        for o in out:
+            if o.side is not None and abs(self.left(o.x) - self.right(o.x)) <= 1e-14 * max(1.0, abs(o.value)):
+                o = Ordinate(o.value, o.x, None)
+            cleaned.append(o)
+        return cleaned
+
+    @cached_property
+    def maximum(self) -> Ordinate:
+        """Largest ordinate with its position (and side, at a jump)."""
+        return max(self._candidates(), key=lambda o: o.value)
+
+    @cached_property
+    def minimum(self) -> Ordinate:
+        """Smallest ordinate with its position (and side, at a jump)."""
+        return min(self._candidates(), key=lambda o: o.value)
+
+
+def _sym(value: Fraction) -> Any:
+    import sympy
+
+    return sympy.Rational(value.numerator, value.denominator)

@@ -1,0 +1,488 @@
+"""The beam model: geometry, supports, internal releases, stiffness and units.
+
+Sign conventions (used by every result of ilkit):
+
+* ``x`` is the position of the travelling load from the left end of the beam,
+  in the beam's length unit; the unit load acts downward.
+* Vertical reactions are positive upward; the moment reaction of a fixed
+  support is positive counter-clockwise.
+* Shear at a section is positive when the resultant of the forces on the part
+  left of the section acts upward.
+* Bending moment is positive when sagging.
+* Deflection is positive downward; rotation is positive clockwise.
+* Where a quantity jumps (shear at a support, moment at an interior fixed
+  support) the caller names the side of the section: ``side="left"`` or
+  ``side="right"``.
+
+A :class:`Beam` is immutable: every input is checked before anything is
+stored, and :meth:`Beam.replace` returns a new beam.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Iterable, Mapping
+from dataclasses import dataclass
+from fractions import Fraction
+from functools import cached_property
+from typing import TYPE_CHECKING, Any, Literal, get_args
+
+from ilkit._exact import fmt, to_exact
+from ilkit.errors import BeamInputError, SideRequiredError
+from ilkit.quantity import Quantity, QuantityKind, Side
+from ilkit.units import UnitSystem, unit_system
+
+if TYPE_CHECKING:  # pragma: no cover
+    from ilkit.influence import InfluenceLine
+    from ilkit.kinematics import Stability
+
+__all__ = ["Beam", "Support", "SupportKind"]
+
+SupportKind = Literal["fixed", "pin", "roller"]
+SUPPORT_KINDS: tuple[str, ...] = get_args(SupportKind)
+
+
+@dataclass(frozen=True)
+class Support:
+    """A support at position ``at`` (beam length unit).
+
+    ``"pin"`` and ``"roller"`` both restrain vertical movement (for the
+    vertical loads ilkit deals with they act alike: common practice);
+    ``"fixed"`` also restrains rotation.
+    """
+
+    at: Fraction
+    kind: SupportKind
+
+    @property
+    def restrains_rotation(self) -> bool:
+        """True for a fixed support."""
+        return self.kind == "fixed"
+
+
+Number = int | float | str | Fraction
+
+
+class Beam:
+    """A straight girder line under vertical loads.
+
+    Parameters
+    ----------
+    length:
+        Total length ``L`` (> 0), overhangs included, in the beam's length unit.
+    supports:
+        ``{position: kind}`` with kind ``"fixed"``, ``"pin"`` or ``"roller"``;
+        positions within ``0 <= x <= L``.
+    hinges:
+        Positions of internal moment releases (the hinge passes shear, no
+        moment); strictly inside the beam.
+    shear_releases:
+        Positions of internal shear releases (pass moment, no shear; both sides
+        keep equal slopes); strictly inside the beam.
+    EI:
+        Flexural stiffness (force x length²); needed for deflections and for
+        indeterminate beams.
+    units:
+        Name of a consistent unit system (``"kN-m"``, ``"kip-ft"``, see
+        :data:`ilkit.units.SYSTEMS`) or ``None``.
+
+    Numbers given as ints, fractions or decimal strings stay exact; floats are
+    taken by their decimal text (``12.5`` is 25/2).
+    """
+
+    def __init__(
+        self,
+        length: Number,
+        supports: Mapping[Number, str | Support],
+        hinges: Iterable[Number] = (),
+        shear_releases: Iterable[Number] = (),
+        EI: Number | None = None,
+        units: str | UnitSystem | None = None,
+    ) -> None:
+        L = to_exact(length, field="length")
+        if L <= 0:
+            raise BeamInputError(
+                f"length: must be greater than 0, got {length!r}; give the total length of the beam.",
+                field="length",
+                value=length,
+            )
+        support_list = _read_supports(supports, L)
+        hinge_list = _read_releases(hinges, L, "hinges", support_list)
+        shear_list = _read_releases(shear_releases, L, "shear_releases", support_list)
+        _check_release_overlap(hinge_list, shear_list, support_list)
+        ei = _read_ei(EI)
+        system = unit_system(units)
+
+        object.__setattr__(self, "_length", L)
+        object.__setattr__(self, "_supports", tuple(support_list))
+        object.__setattr__(self, "_hinges", tuple(hinge_list))
+        object.__setattr__(self, "_shear_releases", tuple(shear_list))
+        object.__setattr__(self, "_EI", ei)
+        object.__setattr__(self, "_units", system)
+        object.__setattr__(self, "_lines", {})
+        self.stability.raise_if_unstable()
+
+    # ---------------------------------------------------------------- immutability
+    def __setattr__(self, name: str, value: Any) -> None:
+        if name in type(self).__dict__ and isinstance(type(self).__dict__[name], cached_property):
+            object.__setattr__(self, name, value)
+            return
+        raise AttributeError(f"Beam is immutable; use beam.replace({name}=...) to get a changed copy.")
+
+    def replace(self, **changes: Any) -> Beam:
+        """A new beam with some constructor arguments changed."""
+        args: dict[str, Any] = {
+            "length": self._length,
+            "supports": {s.at: s.kind for s in self._supports},
+            "hinges": self._hinges,
+            "shear_releases": self._shear_releases,
+            "EI": self._EI,
+            "units": self._units,
+        }
+        unknown = set(changes) - set(args)
+        if unknown:
+            raise BeamInputError(
+                f"replace: unknown argument(s) {sorted(unknown)}; choose from {sorted(args)}.",
+                field="replace",
+                value=sorted(unknown),
+            )
+        args.update(changes)
+        return Beam(**args)
+
+    # ------------------------------------------------------------------ properties
+    @property
+    def length(self) -> Fraction:
+        """Total length of the beam."""
+        return self._length  # type: ignore[attr-defined, no-any-return]
+
+    @property
+    def supports(self) -> tuple[Support, ...]:
+        """Supports, left to right."""
+        return self._supports  # type: ignore[attr-defined, no-any-return]
+
+    @property
+    def hinges(self) -> tuple[Fraction, ...]:
+        """Positions of internal hinges (moment releases), left to right."""
+        return self._hinges  # type: ignore[attr-defined, no-any-return]
+
+    @property
+    def shear_releases(self) -> tuple[Fraction, ...]:
+        """Positions of internal shear releases, left to right."""
+        return self._shear_releases  # type: ignore[attr-defined, no-any-return]
+
+    @property
+    def EI(self) -> Fraction | None:
+        """Flexural stiffness, or ``None`` when not given."""
+        return self._EI  # type: ignore[attr-defined, no-any-return]
+
+    @property
+    def units(self) -> UnitSystem | None:
+        """The declared unit system, or ``None``."""
+        return self._units  # type: ignore[attr-defined, no-any-return]
+
+    @property
+    def releases(self) -> tuple[tuple[Fraction, str], ...]:
+        """All internal releases as ``(position, "hinge" | "shear release")``, left to right."""
+        out = [(h, "hinge") for h in self.hinges] + [(s, "shear release") for s in self.shear_releases]
+        return tuple(sorted(out))
+
+    @property
+    def parts(self) -> tuple[tuple[Fraction, Fraction], ...]:
+        """The rigid-body parts between internal releases, as ``(start, end)``."""
+        cuts = [p for p, _ in self.releases]
+        bounds = [Fraction(0), *cuts, self.length]
+        return tuple(zip(bounds[:-1], bounds[1:]))
+
+    @property
+    def spans(self) -> tuple[tuple[Fraction, Fraction], ...]:
+        """Spans between consecutive supports, as ``(start, end)`` (overhangs excluded)."""
+        xs = [s.at for s in self.supports]
+        return tuple(zip(xs[:-1], xs[1:]))
+
+    @cached_property
+    def stability(self) -> Stability:
+        """Stability and determinacy of the beam (see :class:`ilkit.kinematics.Stability`)."""
+        from ilkit.kinematics import analyse_stability
+
+        return analyse_stability(self)
+
+    @property
+    def degree(self) -> int:
+        """Degree of static indeterminacy (0 for a determinate beam)."""
+        return self.stability.degree
+
+    @property
+    def is_determinate(self) -> bool:
+        """True when the beam is statically determinate."""
+        return self.stability.degree == 0
+
+    def __repr__(self) -> str:
+        sup = ", ".join(f"{fmt(s.at)}: {s.kind!r}" for s in self.supports)
+        parts = [f"length={fmt(self.length)}", f"supports={{{sup}}}"]
+        if self.hinges:
+            parts.append(f"hinges=[{', '.join(fmt(h) for h in self.hinges)}]")
+        if self.shear_releases:
+            parts.append(f"shear_releases=[{', '.join(fmt(h) for h in self.shear_releases)}]")
+        if self.EI is not None:
+            parts.append(f"EI={fmt(self.EI)}")
+        if self.units is not None:
+            parts.append(f"units={self.units.name!r}")
+        return f"Beam({', '.join(parts)})"
+
+    def __eq__(self, other: object) -> bool:
+        if not isinstance(other, Beam):
+            return NotImplemented
+        return self._key() == other._key()
+
+    def __hash__(self) -> int:
+        return hash(self._key())
+
+    def _key(self) -> tuple[Any, ...]:
+        return (self.length, self.supports, self.hinges, self.shear_releases, self.EI, self.units)
+
+    # ------------------------------------------------------------- influence lines
+    def reaction(self, at: Number) -> InfluenceLine:
+        """Influence line of the vertical reaction (positive upward) of the support at ``at``."""
+        pos = self._support_at(at, "reaction")
+        return self._line("reaction", pos, None)
+
+    def moment_reaction(self, at: Number) -> InfluenceLine:
+        """Influence line of the moment reaction (positive counter-clockwise) of the fixed support at ``at``."""
+        pos = self._support_at(at, "moment_reaction")
+        if not any(s.at == pos and s.restrains_rotation for s in self.supports):
+            fixed = [fmt(s.at) for s in self.supports if s.restrains_rotation]
+            hint = f"fixed supports are at x={', '.join(fixed)}" if fixed else "this beam has no fixed support"
+            raise BeamInputError(
+                f"moment_reaction: the support at x={fmt(pos)} is not fixed ({hint}); "
+                "only a fixed support has a moment reaction.",
+                field="at",
+                value=at,
+            )
+        return self._line("moment_reaction", pos, None)
+
+    def shear(self, at: Number, side: Side | None = None) -> InfluenceLine:
+        """Influence line of the shear at the section ``at``.
+
+        Positive when the forces on the part left of the section add up to an
+        upward resultant.  At an interior support the shear jumps: name the
+        face with ``side="left"`` or ``side="right"``.  At the beam ends the
+        inner face is taken.
+        """
+        pos = self._position(at, "shear")
+        side = self._side(pos, side, "shear", jumps=self._has_support(pos))
+        return self._line("shear", pos, side)
+
+    def moment(self, at: Number, side: Side | None = None) -> InfluenceLine:
+        """Influence line of the bending moment (sagging positive) at the section ``at``.
+
+        Identically zero at a hinge.  At an interior fixed support the moment
+        jumps: name the face with ``side``.
+        """
+        pos = self._position(at, "moment")
+        jumps = any(s.at == pos and s.restrains_rotation for s in self.supports)
+        side = self._side(pos, side, "moment", jumps=jumps)
+        return self._line("moment", pos, side)
+
+    def hinge_shear(self, at: Number, side: Side | None = None) -> InfluenceLine:
+        """Influence line of the shear force passed through the hinge at ``at``.
+
+        Same sign convention as :meth:`shear`.  Where a support stands under
+        the hinge, name the face with ``side``.
+        """
+        pos = self._position(at, "hinge_shear")
+        if pos not in self.hinges:
+            listed = ", ".join(fmt(h) for h in self.hinges) or "none"
+            raise BeamInputError(
+                f"hinge_shear: there is no hinge at x={fmt(pos)} (hinges: {listed}); "
+                "use beam.shear(x) for a section that is not a hinge.",
+                field="at",
+                value=at,
+            )
+        side = self._side(pos, side, "hinge_shear", jumps=self._has_support(pos))
+        return self._line("hinge_shear", pos, side)
+
+    # --------------------------------------------------------------------- helpers
+    def _line(self, kind: QuantityKind, pos: Fraction, side: Side | None) -> InfluenceLine:
+        key = (kind, pos, side)
+        cache: dict[Any, InfluenceLine] = self._lines  # type: ignore[attr-defined]
+        line = cache.get(key)
+        if line is None:
+            from ilkit.analysis import influence_line
+
+            line = influence_line(self, Quantity(kind, pos, side))
+            cache[key] = line
+        return line
+
+    def _position(self, at: Number, what: str) -> Fraction:
+        pos = to_exact(at, field=f"{what} position")
+        if pos < 0 or pos > self.length:
+            raise BeamInputError(
+                f"{what}: x={fmt(pos)} is off the beam; give a position from 0 to {fmt(self.length)}.",
+                field="at",
+                value=at,
+            )
+        return pos
+
+    def _support_at(self, at: Number, what: str) -> Fraction:
+        pos = self._position(at, what)
+        if not self._has_support(pos):
+            listed = ", ".join(fmt(s.at) for s in self.supports)
+            raise BeamInputError(
+                f"{what}: there is no support at x={fmt(pos)}; supports are at x={listed}.",
+                field="at",
+                value=at,
+            )
+        return pos
+
+    def _has_support(self, pos: Fraction) -> bool:
+        return any(s.at == pos for s in self.supports)
+
+    def _side(self, pos: Fraction, side: Side | None, what: str, *, jumps: bool) -> Side | None:
+        if side is not None and side not in ("left", "right"):
+            raise BeamInputError(
+                f"{what}: side must be 'left' or 'right', got {side!r}.", field="side", value=side
+            )
+        if pos == 0 or pos == self.length:
+            inner: Side = "right" if pos == 0 else "left"
+            if side is not None and side != inner:
+                raise BeamInputError(
+                    f"{what}: x={fmt(pos)} is an end of the beam; there is no beam on its {side} "
+                    f"side. Leave side out or give side={inner!r}.",
+                    field="side",
+                    value=side,
+                )
+            return inner if jumps else None
+        if jumps and side is None:
+            raise SideRequiredError(
+                f"{what}: the {what.replace('_', ' ')} jumps at the support at x={fmt(pos)}; "
+                "say which face you mean with side='left' or side='right'."
+            )
+        return side if jumps else None
+
+
+def _read_supports(supports: Mapping[Number, str | Support], L: Fraction) -> list[Support]:
+    if not isinstance(supports, Mapping):
+        raise BeamInputError(
+            "supports: give a mapping {position: kind}, e.g. {0: 'pin', 20: 'roller'}.",
+            field="supports",
+            value=supports,
+        )
+    out: dict[Fraction, Support] = {}
+    for raw_pos, raw_kind in supports.items():
+        pos = to_exact(raw_pos, field="supports position")
+        if pos < 0 or pos > L:
+            raise BeamInputError(
+                f"supports: the support at x={raw_pos!r} is off the beam; positions must lie "
+                f"from 0 to {fmt(L)}.",
+                field="supports",
+                value=raw_pos,
+            )
+        if isinstance(raw_kind, Support):
+            kind = raw_kind.kind
+        elif isinstance(raw_kind, str) and raw_kind.strip().lower() in SUPPORT_KINDS:
+            kind = raw_kind.strip().lower()  # type: ignore[assignment]
+        else:
+            raise BeamInputError(
+                f"supports: unknown support kind {raw_kind!r} at x={fmt(pos)}; "
+                f"choose one of {', '.join(repr(k) for k in SUPPORT_KINDS)}.",
+                field="supports",
+                value=raw_kind,
+            )
+        if pos in out:
+            raise BeamInputError(
+                f"supports: two supports at x={fmt(pos)}; keep one (use 'fixed' for a support "
+                "that also restrains rotation).",
+                field="supports",
+                value=raw_pos,
+            )
+        out[pos] = Support(pos, kind)
+    if not out:
+        raise BeamInputError(
+            "supports: the beam has no support; add some, e.g. {0: 'pin', 20: 'roller'}.",
+            field="supports",
+            value=supports,
+        )
+    return sorted(out.values(), key=lambda s: s.at)
+
+
+def _read_releases(
+    values: Iterable[Number], L: Fraction, field: str, supports: list[Support]
+) -> list[Fraction]:
+    if isinstance(values, (str, bytes)) or not isinstance(values, Iterable):
+        raise BeamInputError(
+            f"{field}: give a list of positions, e.g. [12.5].", field=field, value=values
+        )
+    name = "hinge" if field == "hinges" else "shear release"
+    out: list[Fraction] = []
+    for raw in values:
+        pos = to_exact(raw, field=f"{field} position")
+        if pos <= 0 or pos >= L:
+            fixed_end = any(s.at == pos and s.restrains_rotation for s in supports)
+            if fixed_end:
+                raise BeamInputError(
+                    f"{field}: a {name} at the fixed end x={fmt(pos)} would leave the fixity "
+                    "undefined; use a 'pin' support there instead of a fixed support and a "
+                    f"{name}.",
+                    field=field,
+                    value=raw,
+                )
+            if 0 <= pos <= L:
+                raise BeamInputError(
+                    f"{field}: a {name} at the end x={fmt(pos)} of the beam releases nothing; "
+                    f"remove it (releases must lie strictly between 0 and {fmt(L)}).",
+                    field=field,
+                    value=raw,
+                )
+            raise BeamInputError(
+                f"{field}: the {name} at x={raw!r} is off the beam; releases must lie strictly "
+                f"between 0 and {fmt(L)}.",
+                field=field,
+                value=raw,
+            )
+        if pos in out:
+            raise BeamInputError(
+                f"{field}: two {name}s at x={fmt(pos)}; keep one.", field=field, value=raw
+            )
+        out.append(pos)
+    return sorted(out)
+
+
+def _check_release_overlap(
+    hinges: list[Fraction], shear_releases: list[Fraction], supports: list[Support]
+) -> None:
+    both = sorted(set(hinges) & set(shear_releases))
+    if both:
+        raise BeamInputError(
+            f"hinges/shear_releases: a hinge and a shear release at the same point x={fmt(both[0])} "
+            "would cut the beam in two; move one of them or remove one.",
+            field="shear_releases",
+            value=both[0],
+        )
+    for s in supports:
+        if s.restrains_rotation and s.at in hinges:
+            raise BeamInputError(
+                f"hinges: a hinge at the fixed support x={fmt(s.at)} leaves the fixity undefined; "
+                "use a 'pin' support there instead, or move the hinge off the support.",
+                field="hinges",
+                value=s.at,
+            )
+        if s.at in shear_releases:
+            raise BeamInputError(
+                f"shear_releases: a shear release at the support x={fmt(s.at)} leaves it unclear which "
+                "side the support carries; move the release off the support.",
+                field="shear_releases",
+                value=s.at,
+            )
+
+
+def _read_ei(EI: Number | None) -> Fraction | None:
+    if EI is None:
+        return None
+    value = to_exact(EI, field="EI")
+    if value <= 0:
+        raise BeamInputError(
+            f"EI: flexural stiffness must be greater than 0, got {EI!r}; give E times I in "
+            "force x length² of the beam's units.",
+            field="EI",
+            value=EI,
+        )
+    return value
