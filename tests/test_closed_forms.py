@@ -137,3 +137,18 @@ def test_ordinates_table_and_jumps():
     assert line.maximum.value == pytest.approx(0.6) and line.maximum.side == "right"
     assert line.exact_areas() == (Fraction(18, 10), Fraction(-8, 10))
     assert beam.moment(4).ordinates().columns[1] == "left [kN·m/kN]"
+
+
+def test_sections_at_the_beam_ends():
+    """At an end support the end shear equals the reaction (left end) or minus it
+    (right end), and the moment at a pinned end is zero (statics, common practice)."""
+    beam = ilkit.Beam(24, {0: "pin", 16: "roller", 24: "roller"}, hinges=[20])
+    xs = np.linspace(0, 24, 97)
+    np.testing.assert_allclose(beam.shear(0)(xs), beam.reaction(0)(xs), atol=1e-12)
+    np.testing.assert_allclose(beam.shear(24)(xs[:-1]), -beam.reaction(24)(xs[:-1]), atol=1e-12)
+    np.testing.assert_array_equal(beam.moment(0)(xs), 0.0)
+    np.testing.assert_array_equal(beam.moment(24)(xs), 0.0)
+    # free end of an overhang: no shear, no moment
+    overhang = ilkit.Beam(14, {0: "pin", 10: "roller"})
+    np.testing.assert_array_equal(overhang.moment(14)(xs), 0.0)
+    np.testing.assert_array_equal(overhang.shear(14)(np.linspace(0, 13.9, 50)), 0.0)
