@@ -28,17 +28,19 @@ from typing import TYPE_CHECKING, Any, Literal, get_args
 
 from ilkit._exact import fmt, to_exact
 from ilkit.errors import BeamInputError, SideRequiredError
-from ilkit.quantity import Quantity, QuantityKind, Side
+from ilkit.quantity import KINDS, Quantity, QuantityKind, Side
 from ilkit.units import UnitSystem, unit_system
 
 if TYPE_CHECKING:  # pragma: no cover
     from ilkit.influence import InfluenceLine
     from ilkit.kinematics import Stability
+    from ilkit.views.explorer import Explorer
 
 __all__ = ["Beam", "Support", "SupportKind"]
 
 SupportKind = Literal["fixed", "pin", "roller"]
 SUPPORT_KINDS: tuple[str, ...] = get_args(SupportKind)
+_AT_SUPPORTS = ("reaction", "moment_reaction")
 
 
 @dataclass(frozen=True)
@@ -299,6 +301,63 @@ class Beam:
             )
         side = self._side(pos, side, "hinge_shear", jumps=self._has_support(pos))
         return self._line("hinge_shear", pos, side)
+
+    # ------------------------------------------------------- quantities by name
+    def line(self, kind: str, at: Number, side: Side | None = None) -> InfluenceLine:
+        """Influence line of the quantity named ``kind`` at ``at``: the same as calling
+        the method of that name (``beam.line("moment", 12)`` is ``beam.moment(12)``).
+
+        ``kind`` is one of :data:`ilkit.quantity.KINDS`.  Quantities that need no
+        side (reactions) accept only ``side=None``.
+        """
+        method = self._method(kind)
+        if kind in _AT_SUPPORTS:
+            if side is not None:
+                raise BeamInputError(
+                    f"{kind}: a support reaction has no side; leave side out (got side={side!r}).",
+                    field="side",
+                    value=side,
+                )
+            return method(at)  # type: ignore[no-any-return]
+        return method(at, side=side)  # type: ignore[no-any-return]
+
+    def locations(self, kind: str) -> tuple[Fraction, ...] | None:
+        """Where the quantity named ``kind`` can be taken.
+
+        The positions of the supports for ``"reaction"``, of the supports that
+        restrain rotation for ``"moment_reaction"``, of the hinges for
+        ``"hinge_shear"`` (empty when there are none); ``None`` for quantities
+        that exist at any section from 0 to ``L`` (shear, moment, deflection,
+        rotation).
+        """
+        self._method(kind)
+        if kind == "reaction":
+            return tuple(s.at for s in self.supports)
+        if kind == "moment_reaction":
+            return tuple(s.at for s in self.supports if s.restrains_rotation)
+        if kind == "hinge_shear":
+            return self.hinges
+        return None
+
+    def explore(self, loads: Any = None, **options: Any) -> Explorer:
+        """Open the interactive influence-line explorer of this beam in a notebook.
+
+        ``loads`` are the load models offered besides the unit load (one model,
+        a list, or a ``{name: model}`` mapping); ``options`` go to
+        :class:`ilkit.views.explorer.Explorer`.  Needs the ``notebook`` extra
+        (``pip install 'ilkit[notebook]'``).
+        """
+        from ilkit.views.explorer import Explorer
+
+        return Explorer(self, loads, **options)
+
+    def _method(self, kind: str) -> Any:
+        if kind not in KINDS or not hasattr(self, kind):
+            choices = ", ".join(repr(k) for k in KINDS if hasattr(self, k))
+            raise BeamInputError(
+                f"quantity: unknown kind {kind!r}; choose one of {choices}.", field="kind", value=kind
+            )
+        return getattr(self, kind)
 
     # --------------------------------------------------------------------- helpers
     def _line(self, kind: QuantityKind, pos: Fraction, side: Side | None) -> InfluenceLine:

@@ -1,0 +1,1 @@
+"""Views: drawings, derivations, notebook displays, tables and calculation sheets."""

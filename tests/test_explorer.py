@@ -1,0 +1,269 @@
+"""The explorer driven headless: set the controls in Python and compare every read-out
+with the core result for the same beam and load (the explorer must only relay them)."""
+
+from __future__ import annotations
+
+import asyncio
+import html
+import re
+
+import numpy as np
+import pytest
+from hypothesis import given, settings
+from hypothesis import strategies as st
+
+pytest.importorskip("ipywidgets")
+pytest.importorskip("matplotlib")
+
+import ilkit
+from ilkit.views.explorer import Explorer
+from ilkit.views.livefigure import Coalescer
+
+SUPPORTS = {0: "pin", 32: "roller", 76: "roller", 108: "roller"}
+
+
+@pytest.fixture(scope="module")
+def girder():
+    # our own scenario: three spans with a suspended span on hinges at 41 and 67 (kN, m)
+    return ilkit.Beam(108, SUPPORTS, hinges=[41, 67], units="kN-m")
+
+
+@pytest.fixture
+def ex(girder):
+    explorer = Explorer(girder, backend="inline")
+    yield explorer
+    explorer.close()
+
+
+def shown(explorer) -> float:
+    """The number in the read-out's value field."""
+    return float(re.search(r"class='ilkit-value'>([^<]+)<", explorer.readout.value).group(1))
+
+
+def shown_unit(explorer) -> str:
+    return re.search(r"class='ilkit-unit'>([^<]*)<", explorer.readout.value).group(1)
+
+
+def message(explorer) -> str:
+    return html.unescape(re.sub("<[^>]+>", "", explorer.message.value))
+
+
+# ------------------------------------------------------------------ read-outs
+def test_starts_on_the_moment_at_mid_first_span(ex, girder):
+    assert ex.line is girder.moment(16)
+    assert ex.location.value == "16"
+    assert ex.value == girder.moment(16)(ex.position.value)
+
+
+@pytest.fixture(scope="module")
+def shared(girder):
+    explorer = Explorer(girder, backend="inline")
+    yield explorer
+    explorer.close()
+
+
+@settings(max_examples=60, deadline=None)
+@given(st.floats(0, 108))
+def test_slider_read_out_is_the_core_ordinate(shared, girder, x):
+    shared.position.value = x
+    want = girder.moment(16)(shared.position.value)
+    assert shared.value == want
+    assert shown(shared) == pytest.approx(want, abs=1e-4 * max(1.0, abs(want)))
+    assert shown_unit(shared) == "kN·m/kN"
+
+
+def test_typed_location_changes_the_line_and_the_read_out(ex, girder):
+    ex.position.value = 54.0
+    ex.location.value = "54"
+    assert ex.line is girder.moment(54)
+    assert ex.value == girder.moment(54)(54.0)  # 26 x 26 / 4 / 26 ... the core's number
+    ex.location.value = "25/2"  # exact fractions are read too
+    assert ex.line is girder.moment(12.5)
+    assert ex.value == girder.moment(12.5)(54.0)
+
+
+def test_quantity_chooser_keeps_the_location(ex, girder):
+    ex.location.value = "20"
+    ex.quantity.value = "shear"
+    assert ex.line is girder.shear(20)
+    ex.position.value = 10.0
+    assert ex.value == girder.shear(20)(10.0)
+
+
+def test_reaction_snaps_to_the_nearest_support(ex, girder):
+    ex.location.value = "50"
+    ex.quantity.value = "reaction"
+    assert ex.line is girder.reaction(32)
+    assert ex.location.value == "32"
+    assert "exists only at the supports: taken at x = 32" in message(ex)
+    ex.location.value = "100"
+    assert ex.line is girder.reaction(108)
+    ex.position.value = 90.0
+    assert ex.value == girder.reaction(108)(90.0)
+
+
+def test_hinge_shear_snaps_to_a_hinge(ex, girder):
+    ex.quantity.value = "hinge_shear"
+    assert ex.line is girder.hinge_shear(41)
+    ex.location.value = "60"
+    assert ex.line is girder.hinge_shear(67)
+
+
+def test_asks_for_the_face_where_the_quantity_jumps(ex, girder):
+    ex.quantity.value = "shear"
+    ex.location.value = "32"
+    assert ex.side.layout.display != "none"
+    assert ex.line is girder.shear(32, side="left")
+    assert "jumps at x = 32" in message(ex)
+    ex.side.value = "right"
+    assert ex.line is girder.shear(32, side="right")
+    ex.position.value = 20.0
+    assert ex.value == girder.shear(32, side="right")(20.0)
+    ex.location.value = "20"  # no jump here: the face control goes away
+    assert ex.side.layout.display == "none"
+    assert ex.line is girder.shear(20)
+
+
+def test_quantities_offered_follow_the_beam(girder):
+    explorer = Explorer(girder, backend="inline")
+    kinds = [v for _, v in explorer.quantity.options]
+    assert kinds == ["reaction", "shear", "moment", "hinge_shear"]  # no fixed support, no EI
+    explorer.close()
+    cantilever = ilkit.Beam(10, {0: "fixed"})
+    explorer = Explorer(cantilever, quantity="moment_reaction", backend="inline")
+    assert explorer.line is cantilever.moment_reaction(0)
+    explorer.close()
+
+
+# -------------------------------------------------------------- worst placement
+@pytest.mark.parametrize(("kind", "at"), [("moment", "16"), ("moment", "32"), ("shear", "54"), ("reaction", "76")])
+def test_worst_placement_of_the_unit_load_is_the_lines_extreme(ex, girder, kind, at):
+    ex.quantity.value = kind
+    ex.location.value = at
+    line = ex.line
+    ex.largest.click()
+    assert ex.value == line.maximum.value
+    assert ex.position.value == line.maximum.x
+    ex.smallest.click()
+    assert ex.value == line.minimum.value
+    assert ex.position.value == line.minimum.x
+    assert shown(ex) == pytest.approx(line.minimum.value, abs=1e-4 * max(1, abs(line.minimum.value)))
+
+
+def test_worst_placement_at_a_jump_reads_the_one_sided_value(ex, girder):
+    ex.quantity.value = "shear"
+    ex.location.value = "32"
+    line = girder.shear(32, side="left")
+    ex.smallest.click()
+    # the smallest shear on the left face of pier B: the load just left of the section (a jump)
+    assert line.minimum.side == "left" and line.left(32) != line(32)
+    assert ex.value == line.minimum.value == line.left(32)
+    assert "just left of it" in ex.readout.value
+    ex.position.value = 33.0  # moving on leaves the one-sided value
+    assert ex.value == line(33.0)
+    assert "just left" not in ex.readout.value
+
+
+# ------------------------------------------------------------------ bad entries
+@pytest.mark.parametrize(
+    ("text", "expected"),
+    [
+        ("abc", "cannot read 'abc' as a number"),
+        ("200", "x=200 is off the beam; give a position from 0 to 108"),
+        ("-3", "off the beam"),
+        ("nan", "not a finite number"),
+        ("", "cannot read '' as a number"),
+    ],
+)
+def test_bad_location_is_a_message_not_a_traceback(ex, girder, text, expected):
+    ex.location.value = "20"
+    ex.location.value = text
+    assert expected in message(ex)
+    assert "ilkit-error" in ex.message.value
+    assert ex.line is girder.moment(20)  # the previous line stays
+    assert ex.location.value == "20"  # and the box shows it again
+    ex.location.value = "30"
+    assert message(ex) == ""
+
+
+def test_unknown_quantity_or_backend_is_a_typed_error(girder):
+    with pytest.raises(ilkit.IlkitError, match="quantity: 'torque' is not offered; choose one of 'reaction'"):
+        Explorer(girder, quantity="torque", backend="inline")
+    with pytest.raises(ilkit.IlkitError, match="backend: unknown figure backend 'qt'"):
+        Explorer(girder, backend="qt")
+
+
+def test_beam_without_units(ex):
+    beam = ilkit.Beam(10, {0: "pin", 10: "roller"})
+    explorer = Explorer(beam, at=4, backend="inline")
+    explorer.position.value = 6.0
+    # simple span, section a=4: M = a (L - x) / L = 4 x 4 / 10 for x = 6 right of the section (closed form)
+    assert explorer.value == pytest.approx(1.6, abs=1e-15)
+    assert shown_unit(explorer) == ""
+    explorer.close()
+
+
+# ------------------------------------------------------------------- rendering
+def test_inline_figure_is_one_output_replaced_in_place(ex):
+    for x in np.linspace(0, 108, 25):
+        ex.position.value = float(x)
+    ex.quantity.value = "shear"
+    ex.redraw()
+    outputs = ex._figure.live.widget.outputs
+    assert len(outputs) == 1
+    assert set(outputs[0]["data"]) == {"image/png", "text/plain"}
+
+
+def test_display_bundle_carries_a_still_for_pages_without_a_kernel(ex):
+    bundle = ex._repr_mimebundle_()
+    assert "application/vnd.jupyter.widget-view+json" in bundle
+    assert bundle["image/png"].startswith("iVBORw0KGgo")  # base64 of the PNG signature
+    assert bundle["text/plain"] == "<ilkit explorer: M at x=16, unit load at x=0>"
+
+
+def test_slider_steps_redraw_only_the_moving_load(girder):
+    """In place: a step restores the cached background and redraws the load's artists; no full draw."""
+    pytest.importorskip("ipympl")
+    explorer = Explorer(girder, backend="ipympl")
+    canvas = explorer._figure.live.figure.canvas
+    full_draws = []
+    canvas.mpl_connect("draw_event", lambda event: full_draws.append(1))
+    stems = explorer._figure._stems
+    explorer.position.value = 20.0
+    explorer.position.value = 21.0
+    assert full_draws == []
+    assert explorer._figure._stems is stems
+    assert stems.get_xdata()[0] == 21.0
+    explorer.quantity.value = "shear"  # a new line is a new background: one full draw
+    assert full_draws == [1]
+    explorer.close()
+
+
+def test_slider_events_in_a_burst_are_coalesced_into_one_redraw(girder):
+    """In a running event loop (a kernel), read-outs follow every event at once; the redraw runs once."""
+
+    async def drive() -> tuple[int, list[float]]:
+        explorer = Explorer(girder, backend="inline")
+        before = explorer._redraw.runs
+        values = []
+        for x in np.linspace(1, 100, 40):
+            explorer.position.value = float(x)
+            values.append(explorer.value)  # synchronous read-out
+        assert explorer._redraw.pending
+        await asyncio.sleep(0.1)
+        runs = explorer._redraw.runs - before
+        explorer.close()
+        return runs, values
+
+    runs, values = asyncio.run(drive())
+    assert runs == 1
+    line = girder.moment(16)
+    assert values == [line(float(x)) for x in np.linspace(1, 100, 40)]
+
+
+def test_coalescer_runs_at_once_without_an_event_loop():
+    calls = []
+    c = Coalescer(lambda: calls.append(1))
+    c.request()
+    c.request()
+    assert calls == [1, 1] and not c.pending
