@@ -6,6 +6,7 @@ from __future__ import annotations
 import asyncio
 import html
 import re
+import threading
 
 import numpy as np
 import pytest
@@ -33,6 +34,25 @@ def ex(girder):
     explorer = Explorer(girder, backend="inline")
     yield explorer
     explorer.close()
+
+
+def run_loop(make_coroutine):
+    """Run a coroutine in a new event loop in its own thread (the main thread may hold
+    another running loop, e.g. Playwright's)."""
+    result = {}
+
+    def target():
+        try:
+            result["value"] = asyncio.run(make_coroutine())
+        except BaseException as err:  # re-raised in the test's thread
+            result["error"] = err
+
+    thread = threading.Thread(target=target)
+    thread.start()
+    thread.join()
+    if "error" in result:
+        raise result["error"]
+    return result["value"]
 
 
 def shown(explorer) -> float:
@@ -239,8 +259,11 @@ def test_slider_steps_redraw_only_the_moving_load(girder):
     explorer.close()
 
 
-def test_slider_events_in_a_burst_are_coalesced_into_one_redraw(girder):
-    """In a running event loop (a kernel), read-outs follow every event at once; the redraw runs once."""
+def test_slider_events_in_a_burst_are_coalesced_into_one_redraw(girder, monkeypatch):
+    """In a kernel's event loop, read-outs follow every event at once; the redraw runs once."""
+    from ilkit.views import livefigure
+
+    monkeypatch.setattr(livefigure, "_kernel_loop", asyncio.get_running_loop)
 
     async def drive() -> tuple[int, list[float]]:
         explorer = Explorer(girder, backend="inline")
@@ -255,15 +278,38 @@ def test_slider_events_in_a_burst_are_coalesced_into_one_redraw(girder):
         explorer.close()
         return runs, values
 
-    runs, values = asyncio.run(drive())
+    runs, values = run_loop(drive)
     assert runs == 1
     line = girder.moment(16)
     assert values == [line(float(x)) for x in np.linspace(1, 100, 40)]
 
 
-def test_coalescer_runs_at_once_without_an_event_loop():
+def test_coalescer_runs_at_once_outside_a_kernel():
     calls = []
     c = Coalescer(lambda: calls.append(1))
     c.request()
     c.request()
     assert calls == [1, 1] and not c.pending
+
+    async def in_some_other_loop() -> None:  # e.g. a test's loop: not a kernel, so no waiting
+        c.request()
+
+    run_loop(in_some_other_loop)
+    assert calls == [1, 1, 1]
+
+
+def test_coalescer_flush_runs_a_pending_request_now(monkeypatch):
+    from ilkit.views import livefigure
+
+    monkeypatch.setattr(livefigure, "_kernel_loop", asyncio.get_running_loop)
+    calls = []
+
+    async def drive() -> None:
+        c = Coalescer(lambda: calls.append(1), delay=10.0)
+        c.request()
+        c.request()
+        assert c.pending and calls == []
+        c.flush()
+        assert not c.pending and calls == [1]
+
+    run_loop(drive)

@@ -123,7 +123,7 @@ class Explorer:
             raise _choice_error("quantity", quantity, kinds)
         self.quantity = w.Dropdown(
             options=[(_WORDS[k], k) for k in kinds], value=quantity, description="quantity",
-            layout=w.Layout(width="15.5em"), style={"description_width": "4.2em"},
+            layout=w.Layout(width="15.5em"), style={"description_width": "4.8em"},
         )  # fmt: skip
         self.location = w.Text(
             value="", description="at x =", continuous_update=False,
@@ -135,7 +135,7 @@ class Explorer:
         )  # fmt: skip
         self.load = w.Dropdown(
             options=list(self._loads), value=UNIT_LOAD, description="load",
-            layout=w.Layout(width="15.5em"), style={"description_width": "4.2em"},
+            layout=w.Layout(width="15.5em"), style={"description_width": "4.8em"},
         )  # fmt: skip
         self.direction = w.ToggleButtons(
             options=[("→", "left to right"), ("←", "right to left")], value="left to right",
@@ -143,11 +143,18 @@ class Explorer:
         )  # fmt: skip
         self.position = w.FloatSlider(
             description="load at x", continuous_update=True, readout_format=".2f",
-            layout=w.Layout(width="30em"), style={"description_width": "4.2em"},
+            layout=w.Layout(width="36em"), style={"description_width": "4.8em"},
         )  # fmt: skip
-        self.largest = w.Button(description="largest", tooltip="jump to the placement of the largest value")
-        self.smallest = w.Button(description="smallest", tooltip="jump to the placement of the smallest value")
-        self.envelope = w.ToggleButton(value=False, description="envelope", tooltip="envelope of the chosen load")
+        narrow = w.Layout(width="6.5em")
+        self.largest = w.Button(
+            description="largest", tooltip="jump to the placement of the largest value", layout=narrow
+        )
+        self.smallest = w.Button(
+            description="smallest", tooltip="jump to the placement of the smallest value", layout=narrow
+        )
+        self.envelope = w.ToggleButton(
+            value=False, description="envelope", tooltip="envelope of the chosen load", layout=narrow
+        )
         self.readout = w.HTML()
         self.message = w.HTML()
         for name in ("quantity", "location", "side", "load", "direction", "position", "readout", "message"):

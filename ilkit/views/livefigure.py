@@ -112,6 +112,7 @@ class LiveFigure:
             canvas.toolbar_visible = False
             canvas.resizable = False
             canvas.capture_scroll = False
+            canvas._size = tuple(self.figure.bbox.size)  # as ipympl's own display would set it
             self.widget: Any = canvas
         else:
             from matplotlib.backends.backend_agg import FigureCanvasAgg
@@ -156,6 +157,8 @@ class LiveFigure:
         self.figure.canvas.draw()  # ipympl: also sends the image to the browser
         if self.backend == "inline":
             self._publish()
+        else:
+            self._fix_still()
 
     def refresh(self) -> None:
         """Redraw only the animated artists on the cached background, then show it."""
@@ -167,8 +170,19 @@ class LiveFigure:
         self._draw_animated()
         if self.backend == "ipympl":
             canvas.blit(self.figure.bbox)  # ipympl sends the changed pixels only
+            self._fix_still()
         else:
             self._publish()
+
+    def _fix_still(self) -> None:
+        # Until a browser shows the canvas, ipympl keeps a still of each frame in the
+        # widget's ``_data_url`` for pages without a kernel, but stores it without the
+        # ``data:`` prefix (its own display adds it); a browser that reads it then fails
+        # to draw the canvas at all.
+        canvas = self.widget
+        url = canvas._data_url
+        if getattr(canvas, "syncing_data_url", False) and isinstance(url, str) and not url.startswith("data:"):
+            canvas._data_url = "data:image/png;base64," + url
 
     def png(self) -> bytes:
         """The figure as it is drawn now, as PNG bytes."""
@@ -211,10 +225,10 @@ def _encode_png(canvas: Any) -> bytes:
 class Coalescer:
     """Runs ``callback`` once for a burst of :meth:`request` calls.
 
-    Inside a running event loop (a Jupyter kernel) the callback is scheduled
+    In a Jupyter kernel the callback is scheduled on the kernel's event loop
     ``delay`` seconds after the first request of a burst; requests that arrive
-    before it runs (slider events queued behind a draw) add nothing.  Without a
-    running loop (scripts, headless tests, benchmarks) it runs at once.
+    before it runs (slider events queued behind a draw) add nothing.  Outside
+    a kernel (scripts, headless tests, benchmarks) it runs at once.
     :meth:`flush` runs a pending callback now.
     """
 
@@ -234,9 +248,8 @@ class Coalescer:
         """Ask for a run; coalesced with the requests before it that have not run yet."""
         if self._handle is not None:
             return
-        try:
-            loop = asyncio.get_running_loop()
-        except RuntimeError:
+        loop = _kernel_loop()
+        if loop is None:
             self._run()
             return
         self._handle = loop.call_later(self._delay, self._run)
@@ -251,3 +264,21 @@ class Coalescer:
         self._handle = None
         self.runs += 1
         self._callback()
+
+
+def _kernel_loop() -> asyncio.AbstractEventLoop | None:
+    """The running event loop when this runs in a Jupyter kernel, else ``None``.
+
+    Other running loops (a test's, or the one Playwright's synchronous API keeps)
+    do not count: nothing guarantees that they will get to run a scheduled draw.
+    """
+    import sys
+
+    ipython = sys.modules.get("IPython")
+    shell = ipython.get_ipython() if ipython is not None else None
+    if getattr(shell, "kernel", None) is None:
+        return None
+    try:
+        return asyncio.get_running_loop()
+    except RuntimeError:
+        return None

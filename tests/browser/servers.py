@@ -48,6 +48,12 @@ def _env(tmp: Path) -> dict[str, str]:
         folder.mkdir(exist_ok=True)
         env[name] = str(folder)
     env["PYTHONPATH"] = str(ROOT) + os.pathsep + env.get("PYTHONPATH", "")
+    # no "get notified about Jupyter news?" pop-up over the page (and no calls out for news)
+    labconfig = tmp / "jupyter_config_dir" / "labconfig"
+    labconfig.mkdir(exist_ok=True)
+    (labconfig / "page_config.json").write_text(
+        '{"disabledExtensions": {"@jupyterlab/apputils-extension:announcements": true}}'
+    )
     return env
 
 

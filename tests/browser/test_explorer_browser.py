@@ -1,0 +1,160 @@
+"""The explorer notebook in a real browser: JupyterLab and Voilà, driven by Playwright.
+
+Each test moves the load slider with the keyboard and types a section into
+the location box, and checks that the read-out changes to the value the core
+computes for the same beam, section and load position.  A screenshot of each
+is saved under ``tests/artifacts/``.
+"""
+
+from __future__ import annotations
+
+import time
+
+import pytest
+
+import ilkit
+
+from .servers import copy_notebooks, jupyter_lab, run_all_cells, voila
+
+NOTEBOOK = "explorer.ipynb"
+# the girder of notebooks/explorer.ipynb (checked against the notebook's source below)
+GIRDER = ilkit.Beam(length=62, supports={0: "pin", 24: "roller", 50: "roller"}, hinges=[30], units="kN-m")
+
+
+def _number(text: str) -> float:
+    return float(text.replace("\u2212", "-").strip())
+
+
+def _wait_for(read, want: float, timeout: float = 20.0) -> float:
+    """Poll ``read()`` until it shows ``want`` to the read-out's precision (five significant figures)."""
+    deadline = time.monotonic() + timeout
+    got = None
+    while time.monotonic() < deadline:
+        try:
+            got = _number(read())
+        except ValueError:
+            got = None
+        if got is not None and got == pytest.approx(want, rel=1e-4, abs=1e-4):
+            return got
+        time.sleep(0.1)
+    raise AssertionError(f"the page shows {got}, the core gives {want}")
+
+
+def _settle_figure(page, explorer) -> None:
+    """Wait until the figure's image stops changing (the redraw is coalesced and sent after the read-out)."""
+    image = explorer.locator("img").first
+    last, stable_since = None, time.monotonic()
+    deadline = time.monotonic() + 10
+    while time.monotonic() < deadline:
+        src = image.get_attribute("src")
+        if src != last:
+            last, stable_since = src, time.monotonic()
+        elif time.monotonic() - stable_since > 0.6:
+            return
+        time.sleep(0.1)
+
+
+def drive_explorer(page, screenshot) -> None:
+    explorer = page.locator(".ilkit-explorer").first
+    explorer.wait_for(timeout=60_000)
+    explorer.scroll_into_view_if_needed()
+    value = explorer.locator(".ilkit-readout .ilkit-value")
+    position = explorer.locator(".ilkit-position .widget-readout")
+    location = explorer.locator(".ilkit-location input")
+
+    # the notebook leaves the explorer on the moment over pier B (x=24), load at its smallest placement
+    start = _number(position.inner_text())
+    line = GIRDER.moment(24)
+    assert start == line.minimum.x
+    _wait_for(value.inner_text, line.minimum.value)
+
+    # move the load with the keyboard: three steps to the right
+    handle = explorer.locator(".ilkit-position .noUi-handle")
+    handle.focus()
+    for _ in range(3):
+        handle.press("ArrowRight")
+    x = _wait_for(position.inner_text, start + 0.3)
+    _wait_for(value.inner_text, float(line(x)))
+
+    # type another section into the location box
+    location.fill("12")
+    location.press("Enter")
+    _wait_for(value.inner_text, float(GIRDER.moment(12)(x)))
+    assert location.input_value() == "12"
+
+    # a bad entry is a message in the widget, and the read-out stays
+    location.fill("70")
+    location.press("Enter")
+    explorer.locator(".ilkit-message .ilkit-error").wait_for(timeout=20_000)
+    assert "off the beam" in explorer.locator(".ilkit-message").inner_text()
+    assert page.locator(".jp-RenderedText[data-mime-type='application/vnd.jupyter.stderr']").count() == 0
+
+    _settle_figure(page, explorer)
+    explorer.screenshot(path=str(screenshot))
+
+
+def test_notebook_defines_the_girder_of_this_test():
+    import nbformat
+
+    from .servers import ROOT
+
+    source = nbformat.read(ROOT / "notebooks" / NOTEBOOK, as_version=4).cells[1].source
+    assert 'supports={0: "pin", 24: "roller", 50: "roller"}' in source and "length=62" in source
+
+
+def test_explorer_in_jupyterlab(page, tmp_path, artifacts):
+    folder = copy_notebooks(tmp_path, [NOTEBOOK])
+    with jupyter_lab(tmp_path, folder) as (base, token):
+        run_all_cells(page, base, token, NOTEBOOK)
+        drive_explorer(page, artifacts / "lab-explorer.png")
+
+
+def test_explorer_with_ipympl_updates_the_canvas_in_place(page, tmp_path, artifacts):
+    """With ``%matplotlib widget`` the figure is an ipympl canvas; a slider step repaints it in place."""
+    import nbformat
+
+    folder = tmp_path / "work"
+    folder.mkdir()
+    nb = nbformat.v4.new_notebook()
+    nb.metadata["kernelspec"] = {"name": "python3", "display_name": "Python 3", "language": "python"}
+    nb.cells = [
+        nbformat.v4.new_code_cell(
+            "%matplotlib widget\nimport ilkit\n"
+            "girder = ilkit.Beam(length=62, supports={0: 'pin', 24: 'roller', 50: 'roller'}, hinges=[30], "
+            "units='kN-m')\nexplorer = girder.explore(quantity='shear', at=10)\nexplorer"
+        )
+    ]
+    nbformat.write(nb, folder / "widget.ipynb")
+    with jupyter_lab(tmp_path, folder) as (base, token):
+        run_all_cells(page, base, token, "widget.ipynb")
+        explorer = page.locator(".ilkit-explorer").first
+        canvas = explorer.locator(".jupyter-matplotlib canvas").first
+        canvas.wait_for(timeout=60_000)
+
+        def picture() -> str:
+            last, since = None, time.monotonic()
+            while time.monotonic() - since < 0.8:
+                now = canvas.evaluate("c => c.toDataURL()")
+                if now != last:
+                    last, since = now, time.monotonic()
+                time.sleep(0.1)
+            return last
+
+        before = picture()
+        handle = explorer.locator(".ilkit-position .noUi-handle")
+        handle.focus()
+        for _ in range(40):
+            handle.press("ArrowRight")
+        x = _wait_for(explorer.locator(".ilkit-position .widget-readout").inner_text, 4.0)
+        _wait_for(explorer.locator(".ilkit-readout .ilkit-value").inner_text, float(GIRDER.shear(10)(x)))
+        after = picture()
+        assert after != before
+        assert explorer.locator(".jupyter-matplotlib").count() == 1  # one canvas, updated in place
+        explorer.screenshot(path=str(artifacts / "lab-explorer-ipympl.png"))
+
+
+def test_explorer_as_a_voila_page(page, tmp_path, artifacts):
+    folder = copy_notebooks(tmp_path, [NOTEBOOK])
+    with voila(tmp_path, folder) as base:
+        page.goto(f"{base}/voila/render/{NOTEBOOK}", timeout=120_000)
+        drive_explorer(page, artifacts / "voila-explorer.png")
