@@ -14,6 +14,7 @@ __all__ = [
     "IndeterminateBeamError",
     "SideRequiredError",
     "MissingDependencyError",
+    "IllConditionedError",
 ]
 
 
@@ -62,3 +63,24 @@ class SideRequiredError(IlkitError):
 
 class MissingDependencyError(IlkitError, ImportError):
     """An optional package is needed for this call; the message names the install."""
+
+
+class IllConditionedError(IlkitError):
+    """The stiffness system of the beam is too ill-conditioned for float arithmetic.
+
+    Stiffness ratios, span ratios or spring stiffnesses so far apart that
+    double precision cannot resolve them would give ordinates that are mostly
+    rounding noise; ilkit refuses them.
+
+    Attributes
+    ----------
+    condition:
+        Estimated condition number of the (diagonally scaled) stiffness matrix.
+    limit:
+        The largest condition number accepted.
+    """
+
+    def __init__(self, message: str, *, condition: float, limit: float) -> None:
+        super().__init__(message)
+        self.condition = condition
+        self.limit = limit

@@ -5,7 +5,10 @@ The beam is cut at its internal releases into rigid parts.  Part ``i`` from
 rotation, so that its upward displacement is ``u(x) = w_i + r_i (x - a_i)``.
 Supports and releases are linear constraints on ``(w_i, r_i)``:
 
-* a support: ``u(s) = 0``; a fixed support also ``u'(s) = 0``;
+* a support: ``u(s) = 0``; a fixed support also ``u'(s) = 0``; a spring
+  support counts as the restraint it makes elastic (for stability, the degree
+  of indeterminacy and the statics of a determinate beam a spring carries load
+  like a support);
 * a hinge at ``h``: ``u`` continuous (slopes free);
 * a shear release at ``h``: slopes equal (``u`` may jump).
 
@@ -215,12 +218,12 @@ def _constraints(beam: Beam, quantity: Quantity | None) -> tuple[list[Fraction],
                 Constraint(
                     _slope(part),
                     Fraction(1 if target_r else 0),
-                    f"u'(x={fmt(s.at)}) = {1 if target_r else 0} at the fixed support",
+                    f"u'(x={fmt(s.at)}) = {1 if target_r else 0} at the {s.kind} support",
                 )
             )
             if target_r:
-                release = f"the rotational restraint of the fixed support at x={fmt(s.at)} removed"
-                imposed = f"the fixed support x={fmt(s.at)} is rotated counter-clockwise by 1 rad"
+                release = f"the rotational restraint of the {s.kind} support at x={fmt(s.at)} removed"
+                imposed = f"the {s.kind} support x={fmt(s.at)} is rotated counter-clockwise by 1 rad"
     return bounds, rows, imposed, release
 
 
