@@ -22,7 +22,7 @@ lint: $(STAMP)
 	$(PY) -m ruff check ilkit tests benchmarks
 
 test: $(STAMP) lint
-	$(PY) -m pytest --nbval-current-env -p no:cacheprovider
+	$(PY) -m pytest --nbval --nbval-current-env -p no:cacheprovider
 
 bench: $(STAMP)
 	@for f in benchmarks/*.py; do echo "== $$f"; $(PY) $$f || exit 1; done
