@@ -102,9 +102,9 @@ def _fmt_stiffness(value: Fraction | str) -> str:
 
 
 def _read_spring_stiffness(value: object, field: str, words: tuple[str, ...]) -> Fraction | Any:
-    if isinstance(value, str) and value.strip().lower() in (*words, "rigid", "free"):
+    if isinstance(value, str) and value.strip().lower() in ("rigid", "free"):
         word = value.strip().lower()
-        if word not in words:
+        if word not in words:  # vertical="free"
             raise BeamInputError(
                 f"Spring: {field}={value!r}: a support free to move vertically carries no load; remove "
                 "the support, or give the vertical spring stiffness (force per unit settlement).",

@@ -80,6 +80,14 @@ class UnitShape:
     rotations: tuple[Fraction | float, ...]
 
 
+@dataclass(frozen=True)
+class _Spring:
+    node: int
+    dof: int
+    stiffness: Any
+    rotational: bool
+
+
 class ElasticModel:
     """Assembled (and, for floats, inverted) stiffness model of one beam.
 
@@ -89,8 +97,19 @@ class ElasticModel:
     def __init__(self, beam: Beam, *, exact: bool) -> None:
         self.beam = beam
         self.exact = exact
-        num: Any = Fraction if exact else float
-        self.num = num
+        self.num: Any = Fraction if exact else float
+        self._mesh(beam)
+        entries = self._assemble(beam)
+        fixed_set = set(self.fixed)
+        self.free = [i for i in range(self.ndof) if i not in fixed_set]
+        self._position = {dof: k for k, dof in enumerate(self.free)}
+        if exact:
+            self._prepare_exact(entries)
+        else:
+            self._prepare_float(entries)
+
+    def _mesh(self, beam: Beam) -> None:
+        """Nodes, degrees of freedom and elements."""
         ranges = beam.EI_ranges
         points = {Fraction(0), beam.length}
         points.update(s.at for s in beam.supports)
@@ -100,7 +119,6 @@ class ElasticModel:
         self.nodes: list[Fraction] = nodes
         self.node_floats = [float(p) for p in nodes]
         hinges, slides = set(beam.hinges), set(beam.shear_releases)
-
         # degrees of freedom per node: (v left face, θ left face, v right face, θ right face)
         faces: list[tuple[int, int, int, int]] = []
         n = 0
@@ -116,67 +134,69 @@ class ElasticModel:
                 n += 2
         self.faces = faces
         self.ndof = n
-
         ne = len(nodes) - 1
-        self.h = [num(nodes[j + 1] - nodes[j]) for j in range(ne)]
-        self.EI = [num(_ei_at(ranges, (nodes[j] + nodes[j + 1]) / 2)) for j in range(ne)]
+        self.h = [self.num(nodes[j + 1] - nodes[j]) for j in range(ne)]
+        self.EI = [self.num(_ei_at(ranges, (nodes[j] + nodes[j + 1]) / 2)) for j in range(ne)]
         self.element_dofs = np.array(
             [(faces[j][2], faces[j][3], faces[j + 1][0], faces[j + 1][1]) for j in range(ne)], dtype=np.intp
         )
 
+    def _assemble(self, beam: Beam) -> dict[tuple[int, int], Any]:
+        """Stiffness entries of elements and springs; records the restrained degrees of freedom."""
         entries: dict[tuple[int, int], Any] = {}
-        for j in range(ne):
+
+        def add(r: int, c: int, value: Any) -> None:
+            entries[(r, c)] = entries.get((r, c), 0) + value
+
+        for j, dofs in enumerate(self.element_dofs):
             k = stiffness_matrix(self.h[j], self.EI[j])
-            dofs = self.element_dofs[j]
             for r in range(4):
                 for c in range(4):
-                    key = (int(dofs[r]), int(dofs[c]))
-                    entries[key] = entries.get(key, 0) + k[r][c]
+                    add(int(dofs[r]), int(dofs[c]), k[r][c])
         fixed: list[int] = []
-        self.springs: list[tuple[int, Any]] = []
+        self.springs: list[_Spring] = []
         for s in beam.supports:
-            i = bisect.bisect_left(nodes, s.at)
-            v, r = faces[i][0], faces[i][1]
+            node = bisect.bisect_left(self.nodes, s.at)
+            v, r = self.faces[node][0], self.faces[node][1]
+            for dof, stiffness, rotational in ((v, s.vertical_stiffness, False), (r, s.rotational_stiffness, True)):
+                if stiffness is not None:
+                    add(dof, dof, self.num(stiffness))
+                    self.springs.append(_Spring(node, dof, self.num(stiffness), rotational))
             if s.vertical_stiffness is None:
                 fixed.append(v)
-            else:
-                entries[(v, v)] = entries.get((v, v), 0) + num(s.vertical_stiffness)
-                self.springs.append((v, num(s.vertical_stiffness)))
-            if s.rotational_stiffness is not None:
-                entries[(r, r)] = entries.get((r, r), 0) + num(s.rotational_stiffness)
-                self.springs.append((r, num(s.rotational_stiffness)))
-            elif s.restrains_rotation:
+            if s.restrains_rotation and s.rotational_stiffness is None:
                 fixed.append(r)
         self.fixed = sorted(fixed)
-        fixed_set = set(fixed)
-        self.free = [i for i in range(n) if i not in fixed_set]
-        position = {dof: k for k, dof in enumerate(self.free)}
-        self._position = position
+        return entries
 
-        if exact:
-            self._rows: list[dict[int, Fraction]] = [{} for _ in self.free]
-            self._coupling: dict[int, dict[int, Fraction]] = {c: {} for c in self.fixed}
-            for (r, c), value in entries.items():
-                if not value or r not in position:
-                    continue
-                if c in position:
-                    self._rows[position[r]][position[c]] = value
-                else:
-                    self._coupling[c][position[r]] = value
-        else:
-            K = np.zeros((n, n))
-            for (r, c), value in entries.items():
-                K[r, c] = value
-            free = np.array(self.free, dtype=np.intp)
-            Kff = K[np.ix_(free, free)]
-            # symmetric diagonal scaling: the inverse of the scaled matrix keeps its accuracy
-            # when stiffnesses differ by orders of magnitude (stiff springs, short elements)
-            scale = 1.0 / np.sqrt(np.diag(Kff))
-            scaled = Kff * scale[:, None] * scale[None, :]
-            self.condition = self._check_condition(scaled)
-            self._flexibility = np.linalg.inv(scaled) * scale[:, None] * scale[None, :]
-            self._coupling_matrix = K[np.ix_(free, np.array(self.fixed, dtype=np.intp))]
-            self._fixed_index = {c: k for k, c in enumerate(self.fixed)}
+    def _prepare_exact(self, entries: dict[tuple[int, int], Any]) -> None:
+        """Sparse rational rows of the free system and the coupling to each restrained degree of freedom."""
+        position = self._position
+        self._rows: list[dict[int, Fraction]] = [{} for _ in self.free]
+        self._coupling: dict[int, dict[int, Fraction]] = {c: {} for c in self.fixed}
+        for (r, c), value in entries.items():
+            if not value or r not in position:
+                continue
+            if c in position:
+                self._rows[position[r]][position[c]] = value
+            else:
+                self._coupling[c][position[r]] = value
+
+    def _prepare_float(self, entries: dict[tuple[int, int], Any]) -> None:
+        """Check the conditioning and invert the free system once."""
+        K = np.zeros((self.ndof, self.ndof))
+        for (r, c), value in entries.items():
+            K[r, c] = value
+        free = np.array(self.free, dtype=np.intp)
+        Kff = K[np.ix_(free, free)]
+        # symmetric diagonal scaling: the inverse of the scaled matrix keeps its accuracy
+        # when stiffnesses differ by orders of magnitude (stiff springs, short elements)
+        scale = 1.0 / np.sqrt(np.diag(Kff))
+        scaled = Kff * scale[:, None] * scale[None, :]
+        self.condition = self._check_condition(scaled)
+        self._flexibility = np.linalg.inv(scaled) * scale[:, None] * scale[None, :]
+        self._coupling_matrix = K[np.ix_(free, np.array(self.fixed, dtype=np.intp))]
+        self._fixed_index = {c: k for k, c in enumerate(self.fixed)}
 
     # ------------------------------------------------------------------ solving
     def displacements(self, loads: dict[int, Any], settled: int | None = None) -> np.ndarray:
@@ -312,35 +332,16 @@ class ElasticModel:
                 "element; merge points that close",
             )
         )
-        for dof, k in self.springs:
-            node = next(i for i, f in enumerate(self.faces) if dof in f)
-            near = [j for j in (node - 1, node) if 0 <= j < len(self.h)]
-            rotational = dof in (self.faces[node][1], self.faces[node][3]) and dof not in (
-                self.faces[node][0],
-                self.faces[node][2],
-            )
-            beam_k = max(
-                (self.EI[j] / self.h[j] if rotational else self.EI[j] / self.h[j] ** 3) for j in near
-            )
-            ratio = float(k) / float(beam_k)
-            what = "rotational" if rotational else "vertical"
-            at = fmt(self.nodes[node])
+        for spring in self.springs:
+            near = [j for j in (spring.node - 1, spring.node) if 0 <= j < len(self.h)]
+            power = 1 if spring.rotational else 3
+            beam_k = max(float(self.EI[j]) / float(self.h[j]) ** power for j in near)
+            ratio = float(spring.stiffness) / beam_k
+            what = f"the {'rotational' if spring.rotational else 'vertical'} spring at x={fmt(self.nodes[spring.node])}"
             if ratio >= 1:
-                causes.append(
-                    (
-                        ratio,
-                        f"the {what} spring at x={at} is {ratio:.1e} times stiffer than the beam next to it; "
-                        "model it as a rigid support",
-                    )
-                )
+                causes.append((ratio, f"{what} is {ratio:.1e} times stiffer than the beam beside it; make it rigid"))
             else:
-                causes.append(
-                    (
-                        1 / ratio,
-                        f"the {what} spring at x={at} is {1 / ratio:.1e} times softer than the beam next to "
-                        "it; check its stiffness and units",
-                    )
-                )
+                causes.append((1 / ratio, f"{what} is {1 / ratio:.1e} times softer than the beam beside it; check it"))
         return max(causes)[1]
 
 

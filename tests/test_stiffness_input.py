@@ -62,7 +62,7 @@ def test_varying_ei_changes_the_lines_and_replace_keeps_it():
     ],
 )
 def test_bad_ei_is_refused_with_the_fix(EI, words):
-    with pytest.raises(ilkit.BeamInputError, match=None) as info:
+    with pytest.raises(ilkit.BeamInputError) as info:
         ilkit.Beam(20, SPANS, EI=EI)
     assert words in str(info.value)
     assert info.value.field == "EI"
