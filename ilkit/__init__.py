@@ -17,6 +17,7 @@ from ilkit.errors import (
     IndeterminateBeamError,
     MissingDependencyError,
     SideRequiredError,
+    StiffnessRequiredError,
     UnstableBeamError,
 )
 from ilkit.influence import InfluenceLine, Ordinate, Piece
@@ -43,6 +44,7 @@ __all__ = [
     "SideRequiredError",
     "MissingDependencyError",
     "IllConditionedError",
+    "StiffnessRequiredError",
     "x",
 ]
 

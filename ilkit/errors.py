@@ -15,6 +15,7 @@ __all__ = [
     "SideRequiredError",
     "MissingDependencyError",
     "IllConditionedError",
+    "StiffnessRequiredError",
 ]
 
 
@@ -39,6 +40,14 @@ class BeamInputError(IlkitError):
         self.value = value
 
 
+class StiffnessRequiredError(BeamInputError):
+    """The result needs the flexural stiffness ``EI`` and the beam has none.
+
+    Raised for every line of a statically indeterminate beam and for
+    deflection and rotation lines of any beam; ``field`` is ``"EI"``.
+    """
+
+
 class UnstableBeamError(IlkitError):
     """The beam is a mechanism: some part of it can move with no load resisted.
 
@@ -54,7 +63,12 @@ class UnstableBeamError(IlkitError):
 
 
 class IndeterminateBeamError(IlkitError):
-    """An exact (kinematic) result was asked of a statically indeterminate beam."""
+    """A kinematic (rigid-part) result was asked of a statically indeterminate beam.
+
+    The beam's own methods never raise it: they route indeterminate beams to
+    the stiffness method (and raise :class:`StiffnessRequiredError` when
+    ``EI`` is missing).
+    """
 
 
 class SideRequiredError(IlkitError):

@@ -36,7 +36,7 @@ from typing import TYPE_CHECKING
 
 from ilkit import _exact
 from ilkit._exact import Row, fmt
-from ilkit.errors import IlkitError, UnstableBeamError
+from ilkit.errors import IlkitError, IndeterminateBeamError, UnstableBeamError
 from ilkit.influence import InfluenceLine
 from ilkit.quantity import Quantity
 
@@ -312,8 +312,16 @@ def _point_names(beam: Beam) -> dict[Fraction, str]:
 def solve_mechanism(beam: Beam, quantity: Quantity) -> Mechanism:
     """Released beam, imposed unit displacement and the resulting movement of every part.
 
-    Only for determinate beams (``beam.degree == 0``).
+    Only for determinate beams (``beam.degree == 0``); an indeterminate beam
+    raises :class:`IndeterminateBeamError` (its lines come from
+    :mod:`ilkit.stiffness`, which the beam's own methods use).
     """
+    if beam.degree > 0:
+        raise IndeterminateBeamError(
+            f"{quantity.label}: the beam is statically indeterminate (degree {beam.degree}), so it has no "
+            "rigid-part mechanism; ask the beam itself (beam.moment(...), beam.reaction(...)), which uses "
+            "the stiffness method."
+        )
     bounds, constraints, imposed, release = _constraints(beam, quantity)
     nparts = len(bounds) - 1
     n = 2 * nparts

@@ -44,7 +44,7 @@ import numpy as np
 from ilkit import _exact
 from ilkit._exact import fmt
 from ilkit.elements import ACTIONS, Action, clamped_response, hermite, shift, stiffness_matrix
-from ilkit.errors import BeamInputError, IllConditionedError
+from ilkit.errors import IllConditionedError, StiffnessRequiredError
 from ilkit.influence import InfluenceLine
 from ilkit.quantity import Quantity
 
@@ -376,7 +376,7 @@ def elastic_line(beam: Beam, quantity: Quantity, *, exact: bool = False) -> Infl
                 f"the beam is statically indeterminate (degree {beam.degree}), so its influence lines depend "
                 "on the stiffness"
             )
-        raise BeamInputError(
+        raise StiffnessRequiredError(
             f"{quantity.label}: {why}; give the beam EI=... (one number, or ranges "
             "[(start, end, EI), ...] where it varies), e.g. beam.replace(EI=2.1e6).",
             field="EI",

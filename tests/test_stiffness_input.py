@@ -71,9 +71,9 @@ def test_bad_ei_is_refused_with_the_fix(EI, words):
 def test_indeterminate_beam_without_ei_says_to_give_it():
     beam = ilkit.Beam(20, SPANS)
     assert beam.degree == 1  # building the beam and asking its degree need no EI
-    with pytest.raises(ilkit.BeamInputError, match=r"indeterminate \(degree 1\).*give the beam EI"):
+    with pytest.raises(ilkit.StiffnessRequiredError, match=r"indeterminate \(degree 1\).*give the beam EI"):
         beam.moment(5)
-    with pytest.raises(ilkit.BeamInputError, match="deflection lines need the flexural stiffness"):
+    with pytest.raises(ilkit.StiffnessRequiredError, match="deflection lines need the flexural stiffness"):
         ilkit.Beam(10, {0: "pin", 10: "roller"}).deflection(5)
 
 
@@ -159,6 +159,13 @@ def test_lines_are_cached_per_beam_and_kind():
     assert beam.moment(5) is beam.moment(5)
     assert beam.moment(5, exact=True) is not beam.moment(5)
     assert beam.moment(5, exact=True).is_exact and not beam.moment(5).is_exact
+
+
+def test_kinematic_solver_refuses_an_indeterminate_beam():
+    from ilkit.kinematics import exact_line
+
+    with pytest.raises(ilkit.IndeterminateBeamError, match=r"degree 1.*stiffness method"):
+        exact_line(ilkit.Beam(20, SPANS, EI=1), Quantity("moment", F(5)))
 
 
 def test_which_method_answers():
