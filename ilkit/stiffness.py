@@ -67,9 +67,9 @@ class UnitShape:
 
     ``action`` says in words which unit action the beam was given;
     ``factor`` multiplies the deflected shape (a spring stiffness for a
-    spring's force, 1 otherwise); ``nodes`` and ``deflections`` and
-    ``rotations`` are the nodal results (per face at releases: the left face's
-    value where the faces differ).
+    spring's force, 1 otherwise); ``deflections`` and ``rotations`` are the
+    nodal values of that shape before the factor, at ``nodes`` (the left face
+    where a release separates the faces).
     """
 
     quantity: Quantity

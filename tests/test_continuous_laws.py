@@ -89,6 +89,23 @@ def test_shear_line_jumps_by_one_and_moment_line_kinks_by_one(data):
     assert slope_before - after.coefficients[1] == pytest.approx(1.0, abs=1e-9)
 
 
+@SETTINGS
+@given(st.data())
+def test_hinge_force_line_jumps_by_one_and_moment_at_a_hinge_is_zero(data):
+    """At a hinge (no support under it) the hinge-force line is the shear line: a jump of +1;
+    the hinge carries no moment, so the moment line there is zero everywhere."""
+    beam = data.draw(elastic_beams())
+    free_hinges = [h for h in beam.hinges if not any(s.at == h for s in beam.supports)]
+    if not free_hinges:
+        return
+    h = data.draw(st.sampled_from(free_hinges))
+    line = beam.hinge_shear(h)
+    assert line.right(float(h)) - line.left(float(h)) == pytest.approx(1.0, abs=1e-12 * _scale(line.sample()[1]))
+    xs = np.linspace(0.0, float(beam.length), 41)
+    np.testing.assert_allclose(line(xs), beam.shear(h)(xs), rtol=0, atol=1e-12)
+    assert np.all(beam.moment(h)(xs) == 0.0)
+
+
 @settings(max_examples=25, deadline=None, suppress_health_check=[HealthCheck.too_slow])
 @given(st.data())
 def test_exact_shear_line_jumps_by_exactly_one(data):
