@@ -83,7 +83,7 @@ def test_two_span_formulas_follow_from_the_three_moment_equation():
 # Source: I. A. Karnovsky and O. Lebed, Advanced Methods of Structural
 # Analysis (Springer), Appendix, Table A.13 "Influence lines for bending
 # moments and shear forces", two-span beam with equal spans l, sections 0..12
-# at l/6 (page 567; seen at https://issuhub.com/view/index?id=4936&pageIndex=593).
+# at l/6 (page 567; read in a text copy of the page).
 # Rows: position of the load P = 1 (section number); columns: moment at
 # sections 1..6 (factor l) and the shear at section 0 (= the end reaction).
 # The text copy of the page loses the minus signs; they are restored from the
