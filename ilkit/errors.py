@@ -14,6 +14,8 @@ __all__ = [
     "IndeterminateBeamError",
     "SideRequiredError",
     "MissingDependencyError",
+    "LoadInputError",
+    "UnitsRequiredError",
 ]
 
 
@@ -62,3 +64,24 @@ class SideRequiredError(IlkitError):
 
 class MissingDependencyError(IlkitError, ImportError):
     """An optional package is needed for this call; the message names the install."""
+
+
+class LoadInputError(IlkitError):
+    """A load (axle train, uniform load, combination, load model) was described with a value that cannot be used.
+
+    Attributes
+    ----------
+    field:
+        The argument or table column at fault (``"loads"``, ``"spacings"`` ...).
+    value:
+        The offending value as given.
+    """
+
+    def __init__(self, message: str, *, field: str | None = None, value: object = None) -> None:
+        super().__init__(message)
+        self.field = field
+        self.value = value
+
+
+class UnitsRequiredError(IlkitError):
+    """A load with units was applied to a beam (or line) that declares none."""

@@ -258,6 +258,117 @@ class InfluenceLine:
             y = y * t + float(c[p, j])
         return y
 
+    def slope(self, x: float | np.ndarray, side: Literal["left", "right"] = "right") -> float | np.ndarray:
+        """Slope ``d(ordinate)/dx`` at ``x``, one-sided at knots (0 off the beam).
+
+        Units: the ordinate's unit per length unit of the beam.
+        """
+        xs = np.atleast_1d(np.asarray(x, dtype=float))
+        knots = self._knots
+        if side == "left":
+            idx = np.searchsorted(knots, xs, side="left") - 1
+            off = (xs <= 0.0) | (xs > self.length)
+        else:
+            idx = np.searchsorted(knots, xs, side="right") - 1
+            off = (xs < 0.0) | (xs >= self.length)
+        np.clip(idx, 0, knots.size - 2, out=idx)
+        t = xs - knots[idx]
+        c = self._c
+        y = np.zeros_like(t)
+        for p in range(self._degree, 0, -1):
+            y = y * t + p * c[p][idx]
+        y = np.where(off, 0.0, y)
+        return float(y[0]) if np.ndim(x) == 0 else y
+
+    @cached_property
+    def _cumulative_at_knots(self) -> np.ndarray:
+        k = self._knot_list
+        steps = [self._piece_integral(j, 0.0, k[j + 1] - k[j]) for j in range(len(k) - 1)]
+        return np.concatenate(([0.0], np.cumsum(steps)))
+
+    def cumulative(self, x: float | np.ndarray) -> float | np.ndarray:
+        """Integral of the line from the left end to ``x`` (vectorised).
+
+        Equals the effect of a uniform unit load over ``[0, x]``; constant
+        beyond the right end (the whole net area), 0 left of the left end.
+        ``x`` may be ``±inf``.
+        """
+        xs = np.clip(np.atleast_1d(np.asarray(x, dtype=float)), 0.0, self.length)
+        knots = self._knots
+        idx = np.clip(np.searchsorted(knots, xs, side="right") - 1, 0, knots.size - 2)
+        t = xs - knots[idx]
+        c = self._c
+        y = np.zeros_like(t)
+        for p in range(self._degree, -1, -1):
+            y = (y + c[p][idx] / (p + 1)) * t
+        y = y + self._cumulative_at_knots[idx]
+        return float(y[0]) if np.ndim(x) == 0 else y
+
+    def part(self, sign: Literal["positive", "negative"]) -> InfluenceLine:
+        """The line with its parts of the other sign set to zero.
+
+        ``part("positive")`` is ``max(line, 0)``, ``part("negative")`` is
+        ``min(line, 0)``: the line as seen by a load that is placed only where
+        it adds to the wanted extreme.  Zero crossings inside pieces become
+        knots; exact piecewise-linear lines stay exact.
+        """
+        if sign not in ("positive", "negative"):
+            from ilkit.errors import IlkitError
+
+            raise IlkitError(f"part: sign must be 'positive' or 'negative', got {sign!r}.")
+        want = 1 if sign == "positive" else -1
+        exact = self._coef_exact is not None and self._knots_exact is not None and self._degree <= 1
+        knots: list[Number] = []
+        coefficients: list[tuple[Number, ...]] = []
+        for j in range(len(self._knot_list) - 1):
+            if exact:
+                assert self._coef_exact is not None and self._knots_exact is not None
+                start: Number = self._knots_exact[j]
+                cs: tuple[Number, ...] = self._coef_exact[j]
+                c1 = cs[1] if len(cs) > 1 else Fraction(0)
+                h_e = self._knots_exact[j + 1] - self._knots_exact[j]
+                root = -cs[0] / c1 if c1 else None
+                cuts: list[Number] = [Fraction(0)]
+                if root is not None and 0 < root < h_e:
+                    cuts.append(root)
+            else:
+                start = self._knot_list[j]
+                cs = tuple(float(v) for v in self._c[:, j])
+                cuts = [0.0, *self._piece_roots(j)]
+            h = self._knot_list[j + 1] - self._knot_list[j]
+            ends = [*cuts[1:], h]
+            for t0, t1 in zip(cuts, ends):
+                shifted = _taylor_shift(cs, t0)
+                mid = 0.5 * (float(t0) + float(t1)) - float(t0)
+                value = sum(float(c) * mid**p for p, c in enumerate(shifted))
+                keep = value * want > 0
+                zero = Fraction(0) if exact else 0.0
+                knots.append(start + t0)
+                coefficients.append(shifted if keep else tuple(zero for _ in shifted))
+        knots.append(self._knots_exact[-1] if exact and self._knots_exact else self.length)
+        return InfluenceLine(
+            quantity=self.quantity, knots=tuple(knots), coefficients=tuple(coefficients),
+            units=self.units, origin=self._origin,
+        )
+
+    def intervals(self, sign: Literal["positive", "negative"]) -> tuple[tuple[float, float], ...]:
+        """The stretches ``(start, end)`` of the beam where the line has the given sign.
+
+        These are the patches a breakable uniform load covers for the largest
+        (``"positive"``) or smallest (``"negative"``) effect.  Adjacent
+        stretches are merged; a stretch where the line is 0 is not included.
+        """
+        clipped = self.part(sign)
+        out: list[list[float]] = []
+        for j, piece in enumerate(clipped.pieces):
+            if not np.any(clipped._c[:, j]):
+                continue
+            if out and out[-1][1] == piece.start:
+                out[-1][1] = piece.end
+            else:
+                out.append([piece.start, piece.end])
+        return tuple((a, b) for a, b in out)
+
     # ----------------------------------------------------------- exact forms
     @cached_property
     def expr(self) -> sympy.Expr:
@@ -501,6 +612,17 @@ class InfluenceLine:
     def minimum(self) -> Ordinate:
         """Smallest ordinate with its position (and side, at a jump)."""
         return min(self._candidates(), key=lambda o: o.value)
+
+
+def _taylor_shift(coefficients: tuple[Number, ...], shift: Number) -> tuple[Number, ...]:
+    """Coefficients of ``p(shift + u)`` in ``u`` for ``p(t) = sum c_k t^k`` (exact for fractions)."""
+    from math import comb
+
+    n = len(coefficients)
+    out = []
+    for m in range(n):
+        out.append(sum((comb(k, m) * coefficients[k] * shift ** (k - m) for k in range(m, n)), 0 * coefficients[0]))
+    return tuple(out)
 
 
 def _sym(value: Fraction) -> Any:
