@@ -1,8 +1,9 @@
 """ilkit: influence lines for girders in Jupyter notebooks.
 
 Exact (rational, piecewise) influence lines of reactions, shears and moments
-for hinged determinate beams.  Sign conventions are stated in
-:mod:`ilkit.model`.
+for hinged determinate beams; moving loads, published load models, critical
+placement and envelopes (:mod:`ilkit.loads`).  Sign conventions are stated
+in :mod:`ilkit.model`.
 """
 
 from __future__ import annotations
@@ -13,11 +14,28 @@ from ilkit.errors import (
     BeamInputError,
     IlkitError,
     IndeterminateBeamError,
+    LoadInputError,
     MissingDependencyError,
     SideRequiredError,
+    UnitsRequiredError,
     UnstableBeamError,
 )
 from ilkit.influence import InfluenceLine, Ordinate, Piece
+from ilkit.loads import (
+    AxleTrain,
+    Combination,
+    Envelope,
+    Extreme,
+    Extremes,
+    KnifeEdge,
+    LoadModel,
+    TrainUniform,
+    UniformBlocks,
+    UniformLoad,
+    envelope,
+    extremes,
+    place,
+)
 from ilkit.model import Beam, Support
 from ilkit.quantity import Quantity
 from ilkit.units import SYSTEMS, UnitSystem
@@ -39,6 +57,22 @@ __all__ = [
     "IndeterminateBeamError",
     "SideRequiredError",
     "MissingDependencyError",
+    "LoadInputError",
+    "UnitsRequiredError",
+    # moving loads (published models: ilkit.loads)
+    "AxleTrain",
+    "TrainUniform",
+    "UniformLoad",
+    "UniformBlocks",
+    "KnifeEdge",
+    "Combination",
+    "LoadModel",
+    "place",
+    "extremes",
+    "envelope",
+    "Extreme",
+    "Extremes",
+    "Envelope",
     "x",
 ]
 

@@ -8,10 +8,10 @@ varies), evaluates the sum of load x ordinate, and keeps the extremes.
 Tolerance from the step: the exact extreme is a value (or a one-sided limit)
 of the effect at some position; the nearest grid point on the right side of
 it lies within ``h``, and the effect is Lipschitz with constant
-``S = sum |P| x max |slope of the line|`` between jumps.  Random beams and
-trains live on a 0.5 lattice, so jumps (at the lattice) are at least 0.5
-apart in the train position and the grid point is reached without crossing
-one: ``exact - brute <= S h``.  The brute force can never beat the exact
+``S = sum |P| x max |slope of the line|`` between jumps.  Random beams
+(tests/strategies.py), sections and train spacings live on a 0.25 lattice,
+so jumps are at least 0.25 apart in the train position and the grid point is
+reached without crossing one: ``exact - brute <= S h``.  The brute force can never beat the exact
 value: ``brute <= exact`` (to rounding).
 """
 
@@ -27,6 +27,7 @@ from closed_forms import reaction as creaction
 from closed_forms import shear as cshear
 from hypothesis import HealthCheck, assume, given, settings
 from hypothesis import strategies as st
+from strategies import determinate_beams
 
 import ilkit
 from ilkit.loads import AxleTrain, TrainUniform, UniformBlocks, extremes
@@ -40,25 +41,8 @@ half = st.integers(min_value=1, max_value=24).map(lambda k: k / 2)  # 0.5 .. 12 
 
 
 @st.composite
-def determinate_beams(draw):
-    """A random stable, determinate beam: n supports, n - 2 hinges (one support fixed if n == 1)."""
-    L = draw(st.integers(min_value=8, max_value=40))
-    n = draw(st.integers(min_value=2, max_value=4))
-    points = draw(st.lists(st.integers(min_value=0, max_value=2 * L), min_size=n, max_size=n, unique=True))
-    supports = {p / 2: "roller" for p in points}
-    inner = [k / 2 for k in range(1, 2 * L) if k / 2 not in supports]
-    hinges = draw(st.lists(st.sampled_from(inner), min_size=n - 2, max_size=n - 2, unique=True))
-    try:
-        beam = ilkit.Beam(L, supports, hinges=hinges, units="kN-m")
-    except ilkit.IlkitError:
-        assume(False)
-    assume(beam.degree == 0)
-    return beam
-
-
-@st.composite
 def beam_lines(draw):
-    beam = draw(determinate_beams())
+    beam = draw(determinate_beams()).replace(units="kN-m")
     kind = draw(st.sampled_from(["moment", "shear", "reaction"]))
     if kind == "reaction":
         return beam.reaction(draw(st.sampled_from([s.at for s in beam.supports])))
