@@ -316,40 +316,53 @@ class InfluenceLine:
             from ilkit.errors import IlkitError
 
             raise IlkitError(f"part: sign must be 'positive' or 'negative', got {sign!r}.")
-        want = 1 if sign == "positive" else -1
-        exact = self._coef_exact is not None and self._knots_exact is not None and self._degree <= 1
+        cache: dict[str, InfluenceLine] = self.__dict__.setdefault("_signed_parts", {})
+        if sign not in cache:
+            want = 1 if sign == "positive" else -1
+            exact = self._coef_exact is not None and self._knots_exact is not None and self._degree <= 1
+            knots, coefficients = self._exact_part(want) if exact else self._numeric_part(want)
+            cache[sign] = InfluenceLine(
+                quantity=self.quantity,
+                knots=tuple(knots),
+                coefficients=tuple(coefficients),
+                units=self.units,
+                origin=self._origin,
+            )
+        return cache[sign]
+
+    def _exact_part(self, want: int) -> tuple[list[Number], list[tuple[Number, ...]]]:
+        assert self._coef_exact is not None and self._knots_exact is not None
+        zero = (Fraction(0), Fraction(0))
+        knots: list[Number] = []
+        coefficients: list[tuple[Number, ...]] = []
+        for j, cs in enumerate(self._coef_exact):
+            a, h = self._knots_exact[j], self._knots_exact[j + 1] - self._knots_exact[j]
+            c0, c1 = cs[0], (cs[1] if len(cs) > 1 else Fraction(0))
+            cuts = [Fraction(0), h]
+            if c1 and 0 < -c0 / c1 < h:
+                cuts.insert(1, -c0 / c1)
+            for t0, t1 in zip(cuts[:-1], cuts[1:]):
+                v0 = c0 + c1 * t0
+                keep = (v0 + c1 * (t1 - t0) / 2) * want > 0
+                _append_piece(knots, coefficients, a + t0, (v0, c1) if keep else zero)
+        knots.append(self._knots_exact[-1])
+        return knots, coefficients
+
+    def _numeric_part(self, want: int) -> tuple[list[Number], list[tuple[Number, ...]]]:
+        zero = tuple(0.0 for _ in range(self._degree + 1))
         knots: list[Number] = []
         coefficients: list[tuple[Number, ...]] = []
         for j in range(len(self._knot_list) - 1):
-            if exact:
-                assert self._coef_exact is not None and self._knots_exact is not None
-                start: Number = self._knots_exact[j]
-                cs: tuple[Number, ...] = self._coef_exact[j]
-                c1 = cs[1] if len(cs) > 1 else Fraction(0)
-                h_e = self._knots_exact[j + 1] - self._knots_exact[j]
-                root = -cs[0] / c1 if c1 else None
-                cuts: list[Number] = [Fraction(0)]
-                if root is not None and 0 < root < h_e:
-                    cuts.append(root)
-            else:
-                start = self._knot_list[j]
-                cs = tuple(float(v) for v in self._c[:, j])
-                cuts = [0.0, *self._piece_roots(j)]
-            h = self._knot_list[j + 1] - self._knot_list[j]
-            ends = [*cuts[1:], h]
-            for t0, t1 in zip(cuts, ends):
+            a, h = self._knot_list[j], self._knot_list[j + 1] - self._knot_list[j]
+            cs = tuple(float(v) for v in self._c[:, j])
+            cuts = [0.0, *self._piece_roots(j), h]
+            for t0, t1 in zip(cuts[:-1], cuts[1:]):
                 shifted = _taylor_shift(cs, t0)
-                mid = 0.5 * (float(t0) + float(t1)) - float(t0)
-                value = sum(float(c) * mid**p for p, c in enumerate(shifted))
-                keep = value * want > 0
-                zero = Fraction(0) if exact else 0.0
-                knots.append(start + t0)
-                coefficients.append(shifted if keep else tuple(zero for _ in shifted))
-        knots.append(self._knots_exact[-1] if exact and self._knots_exact else self.length)
-        return InfluenceLine(
-            quantity=self.quantity, knots=tuple(knots), coefficients=tuple(coefficients),
-            units=self.units, origin=self._origin,
-        )
+                mid = 0.5 * (t1 - t0)
+                keep = sum(c * mid**p for p, c in enumerate(shifted)) * want > 0
+                _append_piece(knots, coefficients, a + t0, shifted if keep else zero)
+        knots.append(self.length)
+        return knots, coefficients
 
     def intervals(self, sign: Literal["positive", "negative"]) -> tuple[tuple[float, float], ...]:
         """The stretches ``(start, end)`` of the beam where the line has the given sign.
@@ -614,15 +627,22 @@ class InfluenceLine:
         return min(self._candidates(), key=lambda o: o.value)
 
 
-def _taylor_shift(coefficients: tuple[Number, ...], shift: Number) -> tuple[Number, ...]:
-    """Coefficients of ``p(shift + u)`` in ``u`` for ``p(t) = sum c_k t^k`` (exact for fractions)."""
-    from math import comb
-
-    n = len(coefficients)
-    out = []
-    for m in range(n):
-        out.append(sum((comb(k, m) * coefficients[k] * shift ** (k - m) for k in range(m, n)), 0 * coefficients[0]))
+def _taylor_shift(coefficients: tuple[float, ...], shift: float) -> tuple[float, ...]:
+    """Coefficients of ``p(shift + u)`` in ``u`` for ``p(t) = sum c_k t^k`` (repeated synthetic division)."""
+    out = list(coefficients)
+    n = len(out)
+    for i in range(n - 1):
+        for k in range(n - 2, i - 1, -1):
+            out[k] += shift * out[k + 1]
     return tuple(out)
+
+
+def _append_piece(knots: list[Number], coefficients: list[tuple[Number, ...]], start: Number, cs: tuple) -> None:
+    """Add a piece, merging it into the previous one when both are zero."""
+    if coefficients and not any(cs) and not any(coefficients[-1]):
+        return
+    knots.append(start)
+    coefficients.append(cs)
 
 
 def _sym(value: Fraction) -> Any:

@@ -26,7 +26,9 @@ candidates.
 
 from __future__ import annotations
 
+import functools
 import itertools
+from collections.abc import Callable
 from dataclasses import dataclass
 from typing import TYPE_CHECKING
 
@@ -35,7 +37,17 @@ import numpy as np
 if TYPE_CHECKING:  # pragma: no cover
     from ilkit.influence import InfluenceLine
 
-__all__ = ["Segment", "Group", "Chain", "Candidates", "ChainOptimum", "candidates", "best_in_chain"]
+__all__ = [
+    "Segment",
+    "Group",
+    "Chain",
+    "Candidates",
+    "ChainOptimum",
+    "Pattern",
+    "candidates",
+    "patterns",
+    "best_in_chain",
+]
 
 LEFT, EXACT, RIGHT = -1, 0, 1
 
@@ -99,11 +111,15 @@ class Chain:
 
 @dataclass(frozen=True)
 class Candidates:
-    """Positions ``y`` of a group worth checking, the side of the limit taken and the effect there."""
+    """Positions ``y`` of a group worth checking, the side of the limit taken and the effect there.
+
+    ``jumps`` is True when some candidate is a one-sided limit.
+    """
 
     y: np.ndarray
     side: np.ndarray
     value: np.ndarray
+    jumps: bool = False
 
 
 @dataclass(frozen=True)
@@ -116,34 +132,68 @@ class ChainOptimum:
     gaps: tuple[float, ...]
 
 
-# ------------------------------------------------------------------ one group
-def _effect(group: Group, axle_line: InfluenceLine, seg_lines: tuple[InfluenceLine, ...], y: np.ndarray, side: int):
-    total = np.zeros_like(y)
-    if group.offsets:
-        xs = y[:, None] + np.asarray(group.offsets)[None, :]
-        if side == LEFT:
-            vals = axle_line.left(xs)
-        elif side == RIGHT:
-            vals = axle_line.right(xs)
-        else:
-            vals = axle_line(xs)
-        total = total + vals @ np.asarray(group.loads)
-    for seg, h in zip(group.segments, seg_lines):
-        total = total + seg.intensity * (h.cumulative(y + seg.end) - h.cumulative(y + seg.start))
-    return total
+# ----------------------------------------------------------------- groups
+@dataclass(frozen=True)
+class _Batch:
+    """Groups searched together on the same lines: their point loads padded to one width."""
 
+    groups: tuple[Group, ...]
+    axle_line: InfluenceLine
+    seg_lines: tuple[tuple[InfluenceLine, ...], ...]
+    offsets: np.ndarray  # (groups, widest) offsets, 0 where padded
+    loads: np.ndarray  # (groups, widest) loads, 0 where padded
 
-def _rate(group: Group, axle_line: InfluenceLine, seg_lines: tuple[InfluenceLine, ...], y: np.ndarray):
-    """Derivative of the effect with respect to the group position (inside intervals)."""
-    total = np.zeros_like(y)
-    if group.offsets:
-        xs = y[..., None] + np.asarray(group.offsets)
-        total = total + axle_line.slope(xs) @ np.asarray(group.loads)
-    for seg, h in zip(group.segments, seg_lines):
-        for end, sign in ((seg.end, 1.0), (seg.start, -1.0)):
-            if np.isfinite(end):  # an end at infinity is off the beam: ordinate 0
-                total = total + sign * seg.intensity * h(y + end)
-    return total
+    @classmethod
+    def of(cls, groups, axle_line, seg_lines) -> _Batch:
+        width = max(len(g.offsets) for g in groups)
+        offsets = np.zeros((len(groups), width))
+        loads = np.zeros((len(groups), width))
+        for k, g in enumerate(groups):
+            offsets[k, : len(g.offsets)] = g.offsets
+            loads[k, : len(g.loads)] = g.loads
+        return cls(tuple(groups), axle_line, tuple(seg_lines), offsets, loads)
+
+    def _spread(self, table: np.ndarray, gi: np.ndarray, y: np.ndarray) -> np.ndarray:
+        return table[gi].reshape(gi.shape + (1,) * (y.ndim - 1) + (table.shape[1],))
+
+    def effect(self, y: np.ndarray, gi: np.ndarray, side: int) -> np.ndarray:
+        """Effect of group ``gi[i]`` at position ``y[i]`` (``y`` may have a further axis)."""
+        total = np.zeros_like(y)
+        if self.offsets.shape[1]:
+            xs = y[..., None] + self._spread(self.offsets, gi, y)
+            line = self.axle_line
+            vals = line.left(xs) if side == LEFT else (line.right(xs) if side == RIGHT else line(xs))
+            total = total + (vals * self._spread(self.loads, gi, y)).sum(axis=-1)
+        for k, (group, lines) in enumerate(zip(self.groups, self.seg_lines)):
+            if group.segments:
+                mask = gi == k
+                for seg, h in zip(group.segments, lines):
+                    yk = y[mask]
+                    total[mask] += seg.intensity * (h.cumulative(yk + seg.end) - h.cumulative(yk + seg.start))
+        return total
+
+    def rate(self, y: np.ndarray, gi: np.ndarray) -> np.ndarray:
+        """Derivative of the effect with respect to the group position (inside intervals)."""
+        total = np.zeros_like(y)
+        if self.offsets.shape[1]:
+            xs = y[..., None] + self._spread(self.offsets, gi, y)
+            total = total + (self.axle_line.slope(xs) * self._spread(self.loads, gi, y)).sum(axis=-1)
+        for k, (group, lines) in enumerate(zip(self.groups, self.seg_lines)):
+            if group.segments:
+                mask = gi == k
+                for seg, h in zip(group.segments, lines):
+                    for end, sign in ((seg.end, 1.0), (seg.start, -1.0)):
+                        if np.isfinite(end):  # an end at infinity is off the beam: ordinate 0
+                            total[mask] += sign * seg.intensity * h(y[mask] + end)
+        return total
+
+    def degree(self) -> int:
+        """Degree of the derivative of the effect between events."""
+        degree = self.axle_line.degree - 1 if self.offsets.shape[1] else -1
+        for lines in self.seg_lines:
+            for h in lines:
+                degree = max(degree, h.degree)
+        return degree
 
 
 _NODES: dict[int, tuple[np.ndarray, np.ndarray]] = {}
@@ -162,47 +212,68 @@ def candidates(group: Group, axle_line: InfluenceLine, seg_lines: tuple[Influenc
 
     ``axle_line`` acts on the point loads, ``seg_lines[k]`` on segment ``k``.
     """
-    events = []
-    if group.offsets:
-        events.append((np.asarray(axle_line.breakpoints)[:, None] - np.asarray(group.offsets)[None, :]).ravel())
-    for seg, h in zip(group.segments, seg_lines):
-        knots = np.asarray(h.breakpoints)
-        for end in (seg.start, seg.end):
-            if np.isfinite(end):
-                events.append(knots - end)
-    y = np.unique(np.concatenate(events))
-    left = _effect(group, axle_line, seg_lines, y, LEFT)
-    right = _effect(group, axle_line, seg_lines, y, RIGHT)
+    return candidates_of_groups((group,), axle_line, (seg_lines,))[0]
+
+
+def candidates_of_groups(
+    groups: tuple[Group, ...],
+    axle_line: InfluenceLine,
+    seg_lines: tuple[tuple[InfluenceLine, ...], ...],
+) -> list[Candidates]:
+    """:func:`candidates` of several groups at once (one vectorised pass over all of them)."""
+    batch = _Batch.of(groups, axle_line, seg_lines)
+    knots = np.asarray(axle_line.breakpoints)
+    events, owners = [], []
+    for k, (group, lines) in enumerate(zip(groups, seg_lines)):
+        if group.offsets:
+            events.append((knots[:, None] - np.asarray(group.offsets)[None, :]).ravel())
+            owners.append(np.full(events[-1].size, k))
+        for seg, h in zip(group.segments, lines):
+            for end in (seg.start, seg.end):
+                if np.isfinite(end):
+                    events.append(np.asarray(h.breakpoints) - end)
+                    owners.append(np.full(events[-1].size, k))
+    y, gi = np.concatenate(events), np.concatenate(owners)
+    order = np.lexsort((y, gi))  # by group, then position
+    y, gi = y[order], gi[order]
+    distinct = np.ones(y.size, dtype=bool)
+    distinct[1:] = (y[1:] != y[:-1]) | (gi[1:] != gi[:-1])
+    y, gi = y[distinct], gi[distinct]
+    left = batch.effect(y, gi, LEFT)
+    right = batch.effect(y, gi, RIGHT)
     scale = max(1.0, float(np.abs(left).max(initial=0.0)), float(np.abs(right).max(initial=0.0)))
     jump = np.abs(left - right) > 1e-12 * scale
-    ys = [y, y[jump]]
+    ys, gis, values = [y, y[jump]], [gi, gi[jump]], [right, left[jump]]
     sides = [np.where(jump, RIGHT, EXACT), np.full(int(jump.sum()), LEFT)]
-    values = [right, left[jump]]
-
-    degree = -1
-    if group.offsets:
-        degree = axle_line.degree - 1
-    if group.segments:
-        degree = max(degree, *(h.degree for h in seg_lines))
-    if degree >= 1 and y.size > 1:
-        roots = _stationary(group, axle_line, seg_lines, y, degree)
+    degree = batch.degree()
+    if degree >= 1:
+        roots, rgi = _stationary(batch, y, gi, degree)
         if roots.size:
             ys.append(roots)
+            gis.append(rgi)
             sides.append(np.full(roots.size, EXACT))
-            values.append(_effect(group, axle_line, seg_lines, roots, EXACT))
-    return Candidates(np.concatenate(ys), np.concatenate(sides), np.concatenate(values))
+            values.append(batch.effect(roots, rgi, EXACT))
+    y_all, gi_all, side_all, value_all = (np.concatenate(a) for a in (ys, gis, sides, values))
+    out = []
+    for k in range(len(groups)):
+        mask = gi_all == k
+        side = side_all[mask]
+        out.append(Candidates(y_all[mask], side, value_all[mask], bool(side.any())))
+    return out
 
 
-def _stationary(group, axle_line, seg_lines, events: np.ndarray, degree: int) -> np.ndarray:
+def _stationary(batch: _Batch, events: np.ndarray, gi: np.ndarray, degree: int) -> tuple[np.ndarray, np.ndarray]:
+    """Positions strictly between consecutive events of a group where the effect is stationary."""
     lo, hi = events[:-1], events[1:]
-    keep = hi - lo > 1e-12 * max(1.0, float(np.abs(events).max()))
-    lo, hi = lo[keep], hi[keep]
+    same = gi[:-1] == gi[1:]
+    keep = same & (hi - lo > 1e-12 * max(1.0, float(np.abs(events).max())))
+    lo, hi, g = lo[keep], hi[keep], gi[:-1][keep]
     mid, half = 0.5 * (lo + hi), 0.5 * (hi - lo)
     u, inverse = _chebyshev(degree + 1)
-    rates = _rate(group, axle_line, seg_lines, mid[:, None] + half[:, None] * u[None, :])
+    rates = batch.rate(mid[:, None] + half[:, None] * u[None, :], g)
     coefficients = rates @ inverse.T  # ascending powers of u, one row per interval
     rows, roots = unit_roots(coefficients)
-    return mid[rows] + half[rows] * roots
+    return mid[rows] + half[rows] * roots, g[rows]
 
 
 # -------------------------------------------------------------- polynomials
@@ -213,12 +284,32 @@ def _polyval(coefficients: np.ndarray, u: np.ndarray) -> np.ndarray:
     return out
 
 
+def _quadratic_roots(coefficients: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+    """Real roots in (-1, 1) of ``c0 + c1 u + c2 u^2``, by the cancellation-free formula."""
+    c0, c1, c2 = coefficients[:, 0], coefficients[:, 1], coefficients[:, 2]
+    scale = np.maximum(np.abs(coefficients).max(axis=1), 1e-300)
+    flat = np.abs(c2) <= 1e-14 * scale
+    disc = c1 * c1 - 4 * c2 * c0
+    with np.errstate(divide="ignore", invalid="ignore"):
+        q = -0.5 * (c1 + np.copysign(np.sqrt(np.maximum(disc, 0.0)), c1))
+        r1 = np.where(flat, -c0 / c1, q / c2)
+        r2 = np.where(flat, np.nan, c0 / q)
+    real = flat | (disc >= 0)
+    rows, roots = [], []
+    for r in (r1, r2):
+        ok = real & (r > -1) & (r < 1)
+        rows.append(np.nonzero(ok)[0])
+        roots.append(r[ok])
+    return np.concatenate(rows), np.concatenate(roots)
+
+
 def unit_roots(coefficients: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
     """Real roots inside (-1, 1) of polynomials of degree <= 3 (one row of ascending coefficients each).
 
-    Returns the row index and the root of each.  The polynomial is split at
-    the roots of its derivative into monotone stretches; a stretch whose ends
-    differ in sign holds one root, found by bisection to rounding.
+    Returns the row index and the root of each.  Quadratics are solved in
+    closed form; a cubic is split at the roots of its derivative into
+    monotone stretches, and a stretch whose ends differ in sign holds one
+    root, found by bisection to rounding.
     """
     n, width = coefficients.shape
     if width <= 1 or n == 0:
@@ -229,6 +320,8 @@ def unit_roots(coefficients: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
             r = np.where(c1 != 0, -c0 / np.where(c1 != 0, c1, 1.0), np.nan)
         ok = (r > -1) & (r < 1)
         return np.nonzero(ok)[0], r[ok]
+    if width == 3:
+        return _quadratic_roots(coefficients)
     derivative = coefficients[:, 1:] * np.arange(1, width)[None, :]
     rows_d, crit = unit_roots(derivative)
     cuts = np.full((n, width), np.nan)  # at most width-2 critical points, plus the ends
@@ -268,23 +361,60 @@ def unit_roots(coefficients: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
 
 
 
-def best_in_chain(chain: Chain, find, sense: int) -> ChainOptimum:
+@dataclass(frozen=True)
+class Pattern:
+    """A chain with each variable gap held at a bound or left free.
+
+    ``blocks`` are the groups joined by held gaps; ``members[b]`` lists the
+    chain's groups in block ``b`` with their offset in it; ``free_gaps`` are
+    the ranges between consecutive blocks.
+    """
+
+    blocks: tuple[Group, ...]
+    members: tuple[tuple[tuple[int, float], ...], ...]
+    free_gaps: tuple[tuple[float, float], ...]
+
+
+@functools.lru_cache(maxsize=512)
+def patterns(chain: Chain) -> tuple[Pattern, ...]:
+    """Every pattern of gaps held at a bound or left free (a gap at ``inf`` is never held there)."""
+    choices = []
+    for lo, hi in chain.gaps:
+        options = ["lo"]
+        if np.isfinite(hi) and hi > lo:
+            options.append("hi")
+        if hi > lo:
+            options.append("free")
+        choices.append(options)
+    out = []
+    for pattern in itertools.product(*choices):
+        blocks: list[Group] = [chain.groups[0]]
+        members: list[list[tuple[int, float]]] = [[(0, 0.0)]]
+        free: list[tuple[float, float]] = []
+        for k, option in enumerate(pattern):
+            lo, hi = chain.gaps[k]
+            nxt = chain.groups[k + 1]
+            if option == "free":
+                blocks.append(nxt)
+                members.append([(k + 1, 0.0)])
+                free.append((lo, hi))
+            else:
+                gap = lo if option == "lo" else hi
+                members[-1].append((k + 1, blocks[-1].extent + gap))
+                blocks[-1] = blocks[-1].joined(nxt, gap)
+        out.append(Pattern(tuple(blocks), tuple(tuple(m) for m in members), tuple(free)))
+    return tuple(out)
+
+
+def best_in_chain(chain: Chain, find: Callable[[Group], Candidates], sense: int) -> ChainOptimum:
     """Largest (``sense=1``) or smallest (``sense=-1``) effect of a chain.
 
     ``find(group)`` returns the :class:`Candidates` of a group (the caller
     caches them).  Every pattern of gaps held at a bound or left free is
     searched.
     """
-    choices = []
-    for lo, hi in chain.gaps:
-        options: list[str] = ["lo"]
-        if np.isfinite(hi) and hi > lo:
-            options.append("hi")
-        if hi > lo:
-            options.append("free")
-        choices.append(options)
     best: ChainOptimum | None = None
-    for pattern in itertools.product(*choices):
+    for pattern in patterns(chain):
         result = _best_for_pattern(chain, pattern, find, sense)
         if result is not None and (best is None or sense * result.value > sense * best.value):
             best = result
@@ -292,55 +422,50 @@ def best_in_chain(chain: Chain, find, sense: int) -> ChainOptimum:
     return best
 
 
-def _best_for_pattern(chain: Chain, pattern: tuple[str, ...], find, sense: int) -> ChainOptimum | None:
-    # merge groups joined by gaps held at a bound
-    blocks: list[Group] = [chain.groups[0]]
-    members: list[list[tuple[int, float]]] = [[(0, 0.0)]]  # (group index, offset within block)
-    free_gaps: list[tuple[float, float]] = []
-    for k, option in enumerate(pattern):
-        lo, hi = chain.gaps[k]
-        nxt = chain.groups[k + 1]
-        if option == "free":
-            blocks.append(nxt)
-            members.append([(k + 1, 0.0)])
-            free_gaps.append((lo, hi))
-        else:
-            gap = lo if option == "lo" else hi
-            shift = blocks[-1].extent + gap
-            blocks[-1] = blocks[-1].joined(nxt, gap)
-            members[-1].append((k + 1, shift))
+def _best_for_pattern(chain: Chain, pattern: Pattern, find, sense: int) -> ChainOptimum | None:
+    blocks = pattern.blocks
     cands = [find(b) for b in blocks]
-    # dynamic programming along the blocks
-    score = sense * cands[0].value
-    back: list[np.ndarray] = []
-    for b in range(1, len(blocks)):
-        prev, cur = cands[b - 1], cands[b]
-        lo, hi = free_gaps[b - 1]
-        gap = cur.y[None, :] - (prev.y[:, None] + blocks[b - 1].extent)
-        tol = 1e-9 * max(1.0, abs(lo), abs(hi) if np.isfinite(hi) else 0.0)
-        ok = (gap >= lo - tol) & (gap <= hi + tol)
-        # a limit from the left of one block and the right of the other moves the gap:
-        # it must not leave the allowed range
-        sp, sc = prev.side[:, None], cur.side[None, :]
-        ok &= ~((np.abs(gap - lo) <= tol) & (sp == RIGHT) & (sc == LEFT))
-        if np.isfinite(hi):
-            ok &= ~((np.abs(gap - hi) <= tol) & (sp == LEFT) & (sc == RIGHT))
-        total = np.where(ok, score[:, None], -np.inf)
-        arg = np.argmax(total, axis=0)
-        score = total[arg, np.arange(cur.y.size)] + sense * cur.value
-        back.append(arg)
-    last = int(np.argmax(score))
-    if not np.isfinite(score[last]):
-        return None
-    picks = [last]
-    for arg in reversed(back):
-        picks.append(int(arg[picks[-1]]))
-    picks.reverse()
+    if len(blocks) == 1:
+        v = cands[0].value
+        picks = [int(v.argmax() if sense > 0 else v.argmin())]
+        value = float(v[picks[0]])
+    else:
+        # dynamic programming along the blocks
+        score = sense * cands[0].value
+        back: list[np.ndarray] = []
+        for b in range(1, len(blocks)):
+            prev, cur = cands[b - 1], cands[b]
+            lo, hi = pattern.free_gaps[b - 1]
+            gap = cur.y - (prev.y + blocks[b - 1].extent)[:, None]
+            tol = 1e-9 * max(1.0, abs(lo), abs(hi) if hi < np.inf else 0.0)
+            ok = gap >= lo - tol
+            if hi < np.inf:
+                ok &= gap <= hi + tol
+            if prev.jumps and cur.jumps:
+                # a limit from the left of one block and the right of the other moves the gap:
+                # it must not leave the allowed range
+                sp, sc = prev.side[:, None], cur.side[None, :]
+                ok &= ~((np.abs(gap - lo) <= tol) & (sp == RIGHT) & (sc == LEFT))
+                if hi < np.inf:
+                    ok &= ~((np.abs(gap - hi) <= tol) & (sp == LEFT) & (sc == RIGHT))
+            total = np.where(ok, score[:, None], -np.inf)
+            arg = total.argmax(axis=0)
+            score = total[arg, np.arange(cur.y.size)] + sense * cur.value
+            back.append(arg)
+        last = int(score.argmax())
+        if score[last] == -np.inf:
+            return None
+        picks = [last]
+        for arg in reversed(back):
+            picks.append(int(arg[picks[-1]]))
+        picks.reverse()
+        value = float(sense * score[last])
     positions = [0.0] * len(chain.groups)
     sides = [EXACT] * len(chain.groups)
     for b, pick in enumerate(picks):
-        for g, shift in members[b]:
-            positions[g] = float(cands[b].y[pick]) + shift
-            sides[g] = int(cands[b].side[pick])
+        y, side = float(cands[b].y[pick]), int(cands[b].side[pick])
+        for g, shift in pattern.members[b]:
+            positions[g] = y + shift
+            sides[g] = side
     gaps = tuple(positions[k + 1] - positions[k] - chain.groups[k].extent for k in range(len(chain.gaps)))
-    return ChainOptimum(float(sense * score[last]), tuple(positions), tuple(sides), gaps)
+    return ChainOptimum(value, tuple(positions), tuple(sides), gaps)

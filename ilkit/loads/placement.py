@@ -15,6 +15,8 @@ downward); values are in the line's unit system.
 
 from __future__ import annotations
 
+import functools
+from collections.abc import Callable
 from dataclasses import dataclass, field
 from typing import TYPE_CHECKING, Literal
 
@@ -98,27 +100,53 @@ class _Study:
             self._parts[sense] = self.line.part("positive" if sense > 0 else "negative")
         return self._parts[sense]
 
-    def finder(self, drop: bool, sense: int):
-        """Candidates of a group: axles on the signed line if they may be dropped, breakable segments too."""
+    def _key(self, group: _search.Group, drop: bool, sense: int) -> tuple[_search.Group, int, int]:
+        # the axles see the signed line when adverse axles are dropped; breakable segments always do
+        axle_key = sense if drop and group.offsets else 0
+        seg_key = sense if any(s.breakable for s in group.segments) else 0
+        return (group, axle_key, seg_key)
+
+    def prefetch(self, wanted: list[tuple[_search.Group, bool]], sense: int) -> None:
+        """Search many groups at once: one vectorised pass per set of lines they see."""
+        batches: dict[tuple[int, int], dict[_search.Group, None]] = {}
+        for group, drop in wanted:
+            key = self._key(group, drop, sense)
+            if key not in self._cands:
+                batches.setdefault(key[1:], {})[group] = None
+        for (axle_key, seg_key), groups in batches.items():
+            axle_line = self.signed(sense) if axle_key else self.line
+            seg_lines = tuple(
+                tuple(self.signed(sense) if seg_key and s.breakable else self.line for s in g.segments) for g in groups
+            )
+            for group, found in zip(groups, _search.candidates_of_groups(tuple(groups), axle_line, seg_lines)):
+                self._cands[(group, axle_key, seg_key)] = found
+
+    def finder(self, drop: bool, sense: int) -> Callable[[_search.Group], _search.Candidates]:
+        """Candidates of a group, searched on the lines it sees."""
 
         def find(group: _search.Group) -> _search.Candidates:
-            axle_key = sense if drop and group.offsets else 0
-            seg_key = sense if any(s.breakable for s in group.segments) else 0
-            key = (group, axle_key, seg_key)
+            key = self._key(group, drop, sense)
             if key not in self._cands:
-                axle_line = self.signed(sense) if axle_key else self.line
-                seg_lines = tuple(self.signed(sense) if s.breakable else self.line for s in group.segments)
-                self._cands[key] = _search.candidates(group, axle_line, seg_lines)
+                self.prefetch([(group, drop)], sense)
             return self._cands[key]
 
         return find
 
     # ------------------------------------------------------------- extremes
     def extreme(self, sense: int) -> Extreme:
+        cases = [case for case in self.model.cases if self.applies(case, sense)]
+        wanted = [
+            (block, isinstance(part, AxleTrain) and part.drop_adverse_axles)
+            for case in cases
+            for part in case.parts
+            if not isinstance(part, UniformLoad)
+            for _, chain in _layouts(part)
+            for pattern in _search.patterns(chain)
+            for block in pattern.blocks
+        ]
+        self.prefetch(wanted, sense)
         best: tuple[float, Combination, tuple[LoadPlacement, ...]] | None = None
-        for case in self.model.cases:
-            if not self.applies(case, sense):
-                continue
+        for case in cases:
             placements = tuple(self.place_part(part, sense, case.part_factor(part)) for part in case.parts)
             total = sum(p.factored for p in placements)
             if best is None or sense * total > sense * best[0] + 1e-12 * max(1.0, abs(best[0])):
@@ -171,13 +199,9 @@ class _Study:
 
     def place_chain(self, load: AxleTrain | UniformBlocks | KnifeEdge, sense: int) -> LoadPlacement:
         drop = isinstance(load, AxleTrain) and load.drop_adverse_axles
-        natural = load.chain()
-        layouts: list[tuple[Direction | None, _search.Chain]] = [("left to right", natural.mirrored())]
-        if not isinstance(load, KnifeEdge):
-            layouts.append(("right to left", natural))
         find = self.finder(drop, sense)
         best: tuple[Direction | None, _search.Chain, _search.ChainOptimum] | None = None
-        for direction, chain in layouts:
+        for direction, chain in _layouts(load):
             opt = _search.best_in_chain(chain, find, sense)
             if best is None or sense * opt.value > sense * best[2].value + 1e-12 * max(1.0, abs(best[2].value)):
                 best = (direction, chain, opt)
@@ -239,3 +263,12 @@ class _Study:
                 if e > s:
                     out.append(Patch(s, e, intensity, intensity * self.line.integral(s, e)))
         return tuple(out)
+
+
+@functools.lru_cache(maxsize=256)
+def _layouts(load: AxleTrain | UniformBlocks | KnifeEdge) -> tuple[tuple[Direction, _search.Chain], ...]:
+    """The load's chain in each travel direction (the lead axle on the right when travelling right)."""
+    natural = load.chain()
+    if isinstance(load, KnifeEdge):
+        return (("left to right", natural),)
+    return (("left to right", natural.mirrored()), ("right to left", natural))
