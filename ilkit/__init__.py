@@ -1,7 +1,9 @@
 """ilkit: influence lines for girders in Jupyter notebooks.
 
 Exact (rational, piecewise) influence lines of reactions, shears and moments
-for hinged determinate beams; moving loads, published load models, critical
+for hinged determinate beams; piecewise-cubic lines (float, or exact on
+request) for continuous beams, elastic supports, varying stiffness,
+deflections and rotations; moving loads, published load models, critical
 placement and envelopes (:mod:`ilkit.loads`).  Sign conventions are stated
 in :mod:`ilkit.model`.
 """
@@ -13,10 +15,12 @@ from typing import Any
 from ilkit.errors import (
     BeamInputError,
     IlkitError,
+    IllConditionedError,
     IndeterminateBeamError,
     LoadInputError,
     MissingDependencyError,
     SideRequiredError,
+    StiffnessRequiredError,
     UnitsRequiredError,
     UnstableBeamError,
 )
@@ -36,7 +40,7 @@ from ilkit.loads import (
     extremes,
     place,
 )
-from ilkit.model import Beam, Support
+from ilkit.model import Beam, Spring, Support
 from ilkit.quantity import Quantity
 from ilkit.units import SYSTEMS, UnitSystem
 
@@ -45,6 +49,7 @@ __version__ = "0.1.0"
 __all__ = [
     "Beam",
     "Support",
+    "Spring",
     "InfluenceLine",
     "Piece",
     "Ordinate",
@@ -57,6 +62,8 @@ __all__ = [
     "IndeterminateBeamError",
     "SideRequiredError",
     "MissingDependencyError",
+    "IllConditionedError",
+    "StiffnessRequiredError",
     "LoadInputError",
     "UnitsRequiredError",
     # moving loads (published models: ilkit.loads)
