@@ -482,21 +482,20 @@ class InfluenceLine:
     # ------------------------------------------------------------------ roots
     def _piece_roots(self, j: int) -> list[float]:
         """Local coordinates t in (0, h) where piece j crosses zero."""
-        h = self._knot_list[j + 1] - self._knot_list[j]
-        coeffs = self._c[:, j]
-        nz = np.nonzero(np.abs(coeffs) > 0)[0]
-        if nz.size == 0:
-            return []
-        top = int(nz[-1])
-        if top == 0:
-            return []
-        if top == 1:
-            roots = [-coeffs[0] / coeffs[1]]
-        else:
-            r = np.roots(coeffs[: top + 1][::-1])
-            roots = [float(v.real) for v in r if abs(v.imag) <= 1e-12 * max(1.0, abs(v.real))]
-        tol = 1e-12 * max(h, 1.0)
-        return sorted(t for t in roots if tol < t < h - tol)
+        return self._roots_by_piece[j]
+
+    @cached_property
+    def _roots_by_piece(self) -> list[list[float]]:
+        from ilkit._poly import roots_in_pieces
+
+        widths = np.diff(self._knots)
+        rows, ts = roots_in_pieces(self._c.T.copy(), widths)
+        out: list[list[float]] = [[] for _ in widths]
+        for j, t in zip(rows.tolist(), ts.tolist()):
+            tol = 1e-12 * max(widths[j], 1.0)
+            if tol < t < widths[j] - tol:
+                out[j].append(t)
+        return out
 
     def roots(self) -> tuple[float, ...]:
         """Positions inside pieces where the line crosses zero (jumps through 0 not included)."""

@@ -34,6 +34,8 @@ from typing import TYPE_CHECKING
 
 import numpy as np
 
+from ilkit._poly import unit_roots
+
 if TYPE_CHECKING:  # pragma: no cover
     from ilkit.influence import InfluenceLine
 
@@ -274,87 +276,6 @@ def _stationary(batch: _Batch, events: np.ndarray, gi: np.ndarray, degree: int) 
     coefficients = rates @ inverse.T  # ascending powers of u, one row per interval
     rows, roots = unit_roots(coefficients)
     return mid[rows] + half[rows] * roots, g[rows]
-
-
-# -------------------------------------------------------------- polynomials
-def _polyval(coefficients: np.ndarray, u: np.ndarray) -> np.ndarray:
-    out = np.zeros_like(u)
-    for k in range(coefficients.shape[1] - 1, -1, -1):
-        out = out * u + coefficients[:, k]
-    return out
-
-
-def _quadratic_roots(coefficients: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
-    """Real roots in (-1, 1) of ``c0 + c1 u + c2 u^2``, by the cancellation-free formula."""
-    c0, c1, c2 = coefficients[:, 0], coefficients[:, 1], coefficients[:, 2]
-    scale = np.maximum(np.abs(coefficients).max(axis=1), 1e-300)
-    flat = np.abs(c2) <= 1e-14 * scale
-    disc = c1 * c1 - 4 * c2 * c0
-    with np.errstate(divide="ignore", invalid="ignore"):
-        q = -0.5 * (c1 + np.copysign(np.sqrt(np.maximum(disc, 0.0)), c1))
-        r1 = np.where(flat, -c0 / c1, q / c2)
-        r2 = np.where(flat, np.nan, c0 / q)
-    real = flat | (disc >= 0)
-    rows, roots = [], []
-    for r in (r1, r2):
-        ok = real & (r > -1) & (r < 1)
-        rows.append(np.nonzero(ok)[0])
-        roots.append(r[ok])
-    return np.concatenate(rows), np.concatenate(roots)
-
-
-def unit_roots(coefficients: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
-    """Real roots inside (-1, 1) of polynomials of degree <= 3 (one row of ascending coefficients each).
-
-    Returns the row index and the root of each.  Quadratics are solved in
-    closed form; a cubic is split at the roots of its derivative into
-    monotone stretches, and a stretch whose ends differ in sign holds one
-    root, found by bisection to rounding.
-    """
-    n, width = coefficients.shape
-    if width <= 1 or n == 0:
-        return np.zeros(0, dtype=int), np.zeros(0)
-    if width == 2:
-        c0, c1 = coefficients[:, 0], coefficients[:, 1]
-        with np.errstate(divide="ignore", invalid="ignore"):
-            r = np.where(c1 != 0, -c0 / np.where(c1 != 0, c1, 1.0), np.nan)
-        ok = (r > -1) & (r < 1)
-        return np.nonzero(ok)[0], r[ok]
-    if width == 3:
-        return _quadratic_roots(coefficients)
-    derivative = coefficients[:, 1:] * np.arange(1, width)[None, :]
-    rows_d, crit = unit_roots(derivative)
-    cuts = np.full((n, width), np.nan)  # at most width-2 critical points, plus the ends
-    cuts[:, 0] = -1.0
-    count = np.ones(n, dtype=int)
-    for r, c in sorted(zip(rows_d.tolist(), crit.tolist())):
-        cuts[r, count[r]] = c
-        count[r] += 1
-    cuts[np.arange(n), count] = 1.0
-    rows_out, roots_out = [], []
-    for k in range(width - 1):
-        a, b = cuts[:, k], cuts[:, k + 1]
-        valid = ~np.isnan(a) & ~np.isnan(b) & (b > a)
-        fa = _polyval(coefficients, np.where(valid, a, 0.0))
-        fb = _polyval(coefficients, np.where(valid, b, 0.0))
-        change = valid & (np.sign(fa) * np.sign(fb) < 0)
-        idx = np.nonzero(change)[0]
-        if idx.size == 0:
-            continue
-        lo, hi, flo = a[idx], b[idx], fa[idx]
-        sub = coefficients[idx]
-        for _ in range(60):
-            m = 0.5 * (lo + hi)
-            fm = _polyval(sub, m)
-            same = np.sign(fm) == np.sign(flo)
-            lo = np.where(same, m, lo)
-            flo = np.where(same, fm, flo)
-            hi = np.where(same, hi, m)
-        rows_out.append(idx)
-        roots_out.append(0.5 * (lo + hi))
-    if not rows_out:
-        return np.zeros(0, dtype=int), np.zeros(0)
-    return np.concatenate(rows_out), np.concatenate(roots_out)
 
 
 # --------------------------------------------------------------------- chains
