@@ -3,7 +3,9 @@
 Exact (rational, piecewise) influence lines of reactions, shears and moments
 for hinged determinate beams; piecewise-cubic lines (float, or exact on
 request) for continuous beams, elastic supports, varying stiffness,
-deflections and rotations.  Sign conventions are stated in :mod:`ilkit.model`.
+deflections and rotations; moving loads, published load models, critical
+placement and envelopes (:mod:`ilkit.loads`).  Sign conventions are stated
+in :mod:`ilkit.model`.
 """
 
 from __future__ import annotations
@@ -15,12 +17,29 @@ from ilkit.errors import (
     IlkitError,
     IllConditionedError,
     IndeterminateBeamError,
+    LoadInputError,
     MissingDependencyError,
     SideRequiredError,
     StiffnessRequiredError,
+    UnitsRequiredError,
     UnstableBeamError,
 )
 from ilkit.influence import InfluenceLine, Ordinate, Piece
+from ilkit.loads import (
+    AxleTrain,
+    Combination,
+    Envelope,
+    Extreme,
+    Extremes,
+    KnifeEdge,
+    LoadModel,
+    TrainUniform,
+    UniformBlocks,
+    UniformLoad,
+    envelope,
+    extremes,
+    place,
+)
 from ilkit.model import Beam, Spring, Support
 from ilkit.quantity import Quantity
 from ilkit.units import SYSTEMS, UnitSystem
@@ -45,6 +64,22 @@ __all__ = [
     "MissingDependencyError",
     "IllConditionedError",
     "StiffnessRequiredError",
+    "LoadInputError",
+    "UnitsRequiredError",
+    # moving loads (published models: ilkit.loads)
+    "AxleTrain",
+    "TrainUniform",
+    "UniformLoad",
+    "UniformBlocks",
+    "KnifeEdge",
+    "Combination",
+    "LoadModel",
+    "place",
+    "extremes",
+    "envelope",
+    "Extreme",
+    "Extremes",
+    "Envelope",
     "x",
 ]
 

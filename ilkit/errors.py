@@ -16,6 +16,8 @@ __all__ = [
     "MissingDependencyError",
     "IllConditionedError",
     "StiffnessRequiredError",
+    "LoadInputError",
+    "UnitsRequiredError",
 ]
 
 
@@ -98,3 +100,24 @@ class IllConditionedError(IlkitError):
         super().__init__(message)
         self.condition = condition
         self.limit = limit
+
+
+class LoadInputError(IlkitError):
+    """A load (axle train, uniform load, combination, load model) was described with a value that cannot be used.
+
+    Attributes
+    ----------
+    field:
+        The argument or table column at fault (``"loads"``, ``"spacings"`` ...).
+    value:
+        The offending value as given.
+    """
+
+    def __init__(self, message: str, *, field: str | None = None, value: object = None) -> None:
+        super().__init__(message)
+        self.field = field
+        self.value = value
+
+
+class UnitsRequiredError(IlkitError):
+    """A load with units was applied to a beam (or line) that declares none."""

@@ -258,6 +258,130 @@ class InfluenceLine:
             y = y * t + float(c[p, j])
         return y
 
+    def slope(self, x: float | np.ndarray, side: Literal["left", "right"] = "right") -> float | np.ndarray:
+        """Slope ``d(ordinate)/dx`` at ``x``, one-sided at knots (0 off the beam).
+
+        Units: the ordinate's unit per length unit of the beam.
+        """
+        xs = np.atleast_1d(np.asarray(x, dtype=float))
+        knots = self._knots
+        if side == "left":
+            idx = np.searchsorted(knots, xs, side="left") - 1
+            off = (xs <= 0.0) | (xs > self.length)
+        else:
+            idx = np.searchsorted(knots, xs, side="right") - 1
+            off = (xs < 0.0) | (xs >= self.length)
+        np.clip(idx, 0, knots.size - 2, out=idx)
+        t = xs - knots[idx]
+        c = self._c
+        y = np.zeros_like(t)
+        for p in range(self._degree, 0, -1):
+            y = y * t + p * c[p][idx]
+        y = np.where(off, 0.0, y)
+        return float(y[0]) if np.ndim(x) == 0 else y
+
+    @cached_property
+    def _cumulative_at_knots(self) -> np.ndarray:
+        k = self._knot_list
+        steps = [self._piece_integral(j, 0.0, k[j + 1] - k[j]) for j in range(len(k) - 1)]
+        return np.concatenate(([0.0], np.cumsum(steps)))
+
+    def cumulative(self, x: float | np.ndarray) -> float | np.ndarray:
+        """Integral of the line from the left end to ``x`` (vectorised).
+
+        Equals the effect of a uniform unit load over ``[0, x]``; constant
+        beyond the right end (the whole net area), 0 left of the left end.
+        ``x`` may be ``±inf``.
+        """
+        xs = np.clip(np.atleast_1d(np.asarray(x, dtype=float)), 0.0, self.length)
+        knots = self._knots
+        idx = np.clip(np.searchsorted(knots, xs, side="right") - 1, 0, knots.size - 2)
+        t = xs - knots[idx]
+        c = self._c
+        y = np.zeros_like(t)
+        for p in range(self._degree, -1, -1):
+            y = (y + c[p][idx] / (p + 1)) * t
+        y = y + self._cumulative_at_knots[idx]
+        return float(y[0]) if np.ndim(x) == 0 else y
+
+    def part(self, sign: Literal["positive", "negative"]) -> InfluenceLine:
+        """The line with its parts of the other sign set to zero.
+
+        ``part("positive")`` is ``max(line, 0)``, ``part("negative")`` is
+        ``min(line, 0)``: the line as seen by a load that is placed only where
+        it adds to the wanted extreme.  Zero crossings inside pieces become
+        knots; exact piecewise-linear lines stay exact.
+        """
+        if sign not in ("positive", "negative"):
+            from ilkit.errors import IlkitError
+
+            raise IlkitError(f"part: sign must be 'positive' or 'negative', got {sign!r}.")
+        cache: dict[str, InfluenceLine] = self.__dict__.setdefault("_signed_parts", {})
+        if sign not in cache:
+            want = 1 if sign == "positive" else -1
+            exact = self._coef_exact is not None and self._knots_exact is not None and self._degree <= 1
+            knots, coefficients = self._exact_part(want) if exact else self._numeric_part(want)
+            cache[sign] = InfluenceLine(
+                quantity=self.quantity,
+                knots=tuple(knots),
+                coefficients=tuple(coefficients),
+                units=self.units,
+                origin=self._origin,
+            )
+        return cache[sign]
+
+    def _exact_part(self, want: int) -> tuple[list[Number], list[tuple[Number, ...]]]:
+        assert self._coef_exact is not None and self._knots_exact is not None
+        zero = (Fraction(0), Fraction(0))
+        knots: list[Number] = []
+        coefficients: list[tuple[Number, ...]] = []
+        for j, cs in enumerate(self._coef_exact):
+            a, h = self._knots_exact[j], self._knots_exact[j + 1] - self._knots_exact[j]
+            c0, c1 = cs[0], (cs[1] if len(cs) > 1 else Fraction(0))
+            cuts = [Fraction(0), h]
+            if c1 and 0 < -c0 / c1 < h:
+                cuts.insert(1, -c0 / c1)
+            for t0, t1 in zip(cuts[:-1], cuts[1:]):
+                v0 = c0 + c1 * t0
+                keep = (v0 + c1 * (t1 - t0) / 2) * want > 0
+                _append_piece(knots, coefficients, a + t0, (v0, c1) if keep else zero)
+        knots.append(self._knots_exact[-1])
+        return knots, coefficients
+
+    def _numeric_part(self, want: int) -> tuple[list[Number], list[tuple[Number, ...]]]:
+        zero = tuple(0.0 for _ in range(self._degree + 1))
+        knots: list[Number] = []
+        coefficients: list[tuple[Number, ...]] = []
+        for j in range(len(self._knot_list) - 1):
+            a, h = self._knot_list[j], self._knot_list[j + 1] - self._knot_list[j]
+            cs = tuple(float(v) for v in self._c[:, j])
+            cuts = [0.0, *self._piece_roots(j), h]
+            for t0, t1 in zip(cuts[:-1], cuts[1:]):
+                shifted = _taylor_shift(cs, t0)
+                mid = 0.5 * (t1 - t0)
+                keep = sum(c * mid**p for p, c in enumerate(shifted)) * want > 0
+                _append_piece(knots, coefficients, a + t0, shifted if keep else zero)
+        knots.append(self.length)
+        return knots, coefficients
+
+    def intervals(self, sign: Literal["positive", "negative"]) -> tuple[tuple[float, float], ...]:
+        """The stretches ``(start, end)`` of the beam where the line has the given sign.
+
+        These are the patches a breakable uniform load covers for the largest
+        (``"positive"``) or smallest (``"negative"``) effect.  Adjacent
+        stretches are merged; a stretch where the line is 0 is not included.
+        """
+        clipped = self.part(sign)
+        out: list[list[float]] = []
+        for j, piece in enumerate(clipped.pieces):
+            if not np.any(clipped._c[:, j]):
+                continue
+            if out and out[-1][1] == piece.start:
+                out[-1][1] = piece.end
+            else:
+                out.append([piece.start, piece.end])
+        return tuple((a, b) for a, b in out)
+
     # ----------------------------------------------------------- exact forms
     @cached_property
     def expr(self) -> sympy.Expr:
@@ -358,21 +482,20 @@ class InfluenceLine:
     # ------------------------------------------------------------------ roots
     def _piece_roots(self, j: int) -> list[float]:
         """Local coordinates t in (0, h) where piece j crosses zero."""
-        h = self._knot_list[j + 1] - self._knot_list[j]
-        coeffs = self._c[:, j]
-        nz = np.nonzero(np.abs(coeffs) > 0)[0]
-        if nz.size == 0:
-            return []
-        top = int(nz[-1])
-        if top == 0:
-            return []
-        if top == 1:
-            roots = [-coeffs[0] / coeffs[1]]
-        else:
-            r = np.roots(coeffs[: top + 1][::-1])
-            roots = [float(v.real) for v in r if abs(v.imag) <= 1e-12 * max(1.0, abs(v.real))]
-        tol = 1e-12 * max(h, 1.0)
-        return sorted(t for t in roots if tol < t < h - tol)
+        return self._roots_by_piece[j]
+
+    @cached_property
+    def _roots_by_piece(self) -> list[list[float]]:
+        from ilkit._poly import roots_in_pieces
+
+        widths = np.diff(self._knots)
+        rows, ts = roots_in_pieces(self._c.T.copy(), widths)
+        out: list[list[float]] = [[] for _ in widths]
+        for j, t in zip(rows.tolist(), ts.tolist()):
+            tol = 1e-12 * max(widths[j], 1.0)
+            if tol < t < widths[j] - tol:
+                out[j].append(t)
+        return out
 
     def roots(self) -> tuple[float, ...]:
         """Positions inside pieces where the line crosses zero (jumps through 0 not included)."""
@@ -501,6 +624,24 @@ class InfluenceLine:
     def minimum(self) -> Ordinate:
         """Smallest ordinate with its position (and side, at a jump)."""
         return min(self._candidates(), key=lambda o: o.value)
+
+
+def _taylor_shift(coefficients: tuple[float, ...], shift: float) -> tuple[float, ...]:
+    """Coefficients of ``p(shift + u)`` in ``u`` for ``p(t) = sum c_k t^k`` (repeated synthetic division)."""
+    out = list(coefficients)
+    n = len(out)
+    for i in range(n - 1):
+        for k in range(n - 2, i - 1, -1):
+            out[k] += shift * out[k + 1]
+    return tuple(out)
+
+
+def _append_piece(knots: list[Number], coefficients: list[tuple[Number, ...]], start: Number, cs: tuple) -> None:
+    """Add a piece, merging it into the previous one when both are zero."""
+    if coefficients and not any(cs) and not any(coefficients[-1]):
+        return
+    knots.append(start)
+    coefficients.append(cs)
 
 
 def _sym(value: Fraction) -> Any:

@@ -1,0 +1,111 @@
+"""Real roots of many small polynomials at once (vectorised), for influence lines and placement.
+
+Polynomials have degree at most 3 and are given one per row of a 2-D array
+of ascending coefficients.  Roots are wanted inside an interval, so each row
+is first mapped to ``(-1, 1)``.
+"""
+
+from __future__ import annotations
+
+import numpy as np
+
+__all__ = ["unit_roots", "roots_in_pieces"]
+
+
+def _polyval(coefficients: np.ndarray, u: np.ndarray) -> np.ndarray:
+    out = np.zeros_like(u)
+    for k in range(coefficients.shape[1] - 1, -1, -1):
+        out = out * u + coefficients[:, k]
+    return out
+
+
+def _quadratic_roots(coefficients: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+    """Real roots in (-1, 1) of ``c0 + c1 u + c2 u^2``, by the cancellation-free formula."""
+    c0, c1, c2 = coefficients[:, 0], coefficients[:, 1], coefficients[:, 2]
+    scale = np.maximum(np.abs(coefficients).max(axis=1), 1e-300)
+    flat = np.abs(c2) <= 1e-14 * scale
+    disc = c1 * c1 - 4 * c2 * c0
+    with np.errstate(divide="ignore", invalid="ignore"):
+        q = -0.5 * (c1 + np.copysign(np.sqrt(np.maximum(disc, 0.0)), c1))
+        r1 = np.where(flat, -c0 / c1, q / c2)
+        r2 = np.where(flat, np.nan, c0 / q)
+    real = flat | (disc >= 0)
+    rows, roots = [], []
+    for r in (r1, r2):
+        ok = real & (r > -1) & (r < 1)
+        rows.append(np.nonzero(ok)[0])
+        roots.append(r[ok])
+    return np.concatenate(rows), np.concatenate(roots)
+
+
+def unit_roots(coefficients: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+    """Real roots inside (-1, 1) of polynomials of degree <= 3 (one row of ascending coefficients each).
+
+    Returns the row index and the root of each.  Quadratics are solved in
+    closed form; a cubic is split at the roots of its derivative into
+    monotone stretches, and a stretch whose ends differ in sign holds one
+    root, bracketed by bisection and polished by Newton steps kept inside
+    the bracket (to rounding).
+    """
+    n, width = coefficients.shape
+    if width <= 1 or n == 0:
+        return np.zeros(0, dtype=int), np.zeros(0)
+    if width == 2:
+        c0, c1 = coefficients[:, 0], coefficients[:, 1]
+        with np.errstate(divide="ignore", invalid="ignore"):
+            r = np.where(c1 != 0, -c0 / np.where(c1 != 0, c1, 1.0), np.nan)
+        ok = (r > -1) & (r < 1)
+        return np.nonzero(ok)[0], r[ok]
+    if width == 3:
+        return _quadratic_roots(coefficients)
+    derivative = coefficients[:, 1:] * np.arange(1, width)[None, :]
+    rows_d, crit = unit_roots(derivative)
+    # monotone stretches: from -1 through the critical points to 1
+    order = np.lexsort((crit, rows_d))
+    rows_d, crit = rows_d[order], crit[order]
+    starts = np.concatenate((np.arange(n), rows_d))
+    lo = np.concatenate((np.full(n, -1.0), crit))
+    order = np.lexsort((lo, starts))
+    rows, lo = starts[order], lo[order]
+    hi = np.append(lo[1:], 1.0)
+    hi[np.append(rows[1:] != rows[:-1], True)] = 1.0
+    sub = coefficients[rows]
+    flo, fhi = _polyval(sub, lo), _polyval(sub, hi)
+    scale = np.abs(sub).max(axis=1)
+    # a critical point that is itself a root (an inflection on the axis) is a root
+    on_axis = (lo > -1) & (np.abs(flo) <= 1e-15 * scale)
+    axis_rows, axis_roots = rows[on_axis], lo[on_axis]
+    change = np.sign(flo) * np.sign(fhi) < 0
+    rows_c, lo, hi, flo, sub = rows[change], lo[change], hi[change], flo[change], sub[change]
+    # bisection to a small bracket, then Newton steps kept inside it
+    for _ in range(10):
+        m = 0.5 * (lo + hi)
+        fm = _polyval(sub, m)
+        same = np.sign(fm) == np.sign(flo)
+        lo, flo, hi = np.where(same, m, lo), np.where(same, fm, flo), np.where(same, hi, m)
+    slope = sub[:, 1:] * np.arange(1, width)[None, :]
+    u = 0.5 * (lo + hi)
+    for _ in range(6):
+        d = _polyval(slope, u)
+        with np.errstate(divide="ignore", invalid="ignore"):
+            step = np.where(d != 0, _polyval(sub, u) / np.where(d != 0, d, 1.0), 0.0)
+        u = np.clip(u - step, lo, hi)
+    return np.concatenate((rows_c, axis_rows)), np.concatenate((u, axis_roots))
+
+
+def roots_in_pieces(coefficients: np.ndarray, widths: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+    """Roots ``t`` with ``0 < t < width`` of ``sum c_k t^k``, one polynomial per row.
+
+    Returns the row index and the root of each, sorted by row then root.
+    Each row is mapped to ``(-1, 1)`` by ``t = width (1 + u) / 2`` (scaling,
+    then a Taylor shift by 1), solved by :func:`unit_roots`, and mapped back.
+    """
+    c = coefficients * (0.5 * widths[:, None]) ** np.arange(coefficients.shape[1])[None, :]
+    n = c.shape[1]
+    for i in range(n - 1):  # Taylor shift by 1: repeated synthetic division
+        for k in range(n - 2, i - 1, -1):
+            c[:, k] += c[:, k + 1]
+    rows, u = unit_roots(c)
+    t = 0.5 * widths[rows] * (1.0 + u)
+    order = np.lexsort((t, rows))
+    return rows[order], t[order]

@@ -1,0 +1,218 @@
+"""Combinations of moving loads with factors, and load models made of alternative combinations.
+
+A :class:`Combination` adds the extremes of its parts, each part placed
+independently where it is worst (a design lane load beside a design truck),
+with a dynamic allowance on some parts only and a factor on the whole
+(multiple presence, distribution, a 90 % rule).  A :class:`LoadModel` holds
+alternative combinations; its extreme is the governing one.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+from dataclasses import dataclass
+from typing import Literal, get_args
+
+from ilkit._exact import fmt
+from ilkit.errors import LoadInputError
+from ilkit.loads.primitives import AxleTrain, KnifeEdge, Load, UniformBlocks, UniformLoad, number, read_units
+from ilkit.units import UnitSystem
+
+__all__ = ["AppliesTo", "Combination", "LoadModel", "as_model"]
+
+AppliesTo = Literal["all", "negative moment and interior reactions"]
+"""Where a combination is considered: everywhere, or only for negative bending moment
+between points of contraflexure and for reactions at interior supports (AASHTO LRFD
+3.6.1.3.1)."""
+
+_PRIMITIVES = (AxleTrain, UniformLoad, UniformBlocks, KnifeEdge)
+
+
+@dataclass(frozen=True, repr=False)
+class Combination:
+    """Loads acting together, each placed where it is worst, with factors.
+
+    Parameters
+    ----------
+    name:
+        Name used in results (the governing case).
+    parts:
+        Primitive loads (:class:`AxleTrain`, :class:`UniformLoad`,
+        :class:`UniformBlocks`, :class:`KnifeEdge`) with distinct names.  All
+        are converted to the units of the first.
+    dynamic_allowance:
+        Fraction added to the parts named in ``dynamic_on`` (0.33 adds 33 %).
+    dynamic_on:
+        Names of the parts that get the dynamic allowance.
+    factor:
+        Factor on the whole (multiple presence, distribution, 0.90 ...), > 0.
+    applies_to:
+        ``"all"`` or ``"negative moment and interior reactions"``.
+    """
+
+    name: str
+    parts: tuple[Load, ...]
+    dynamic_allowance: float
+    dynamic_on: tuple[str, ...]
+    factor: float
+    applies_to: AppliesTo
+
+    def __init__(
+        self,
+        name: str,
+        parts: Sequence[Load],
+        *,
+        dynamic_allowance: float = 0.0,
+        dynamic_on: Sequence[str] = (),
+        factor: float = 1.0,
+        applies_to: AppliesTo = "all",
+    ) -> None:
+        if isinstance(parts, _PRIMITIVES):
+            parts = (parts,)
+        if not isinstance(parts, Sequence) or not parts:
+            raise LoadInputError(f"{name}: give the parts as a list of loads, got {parts!r}.", field="parts")
+        for p in parts:
+            if not isinstance(p, _PRIMITIVES):
+                raise LoadInputError(
+                    f"{name}: a part must be an AxleTrain, UniformLoad, UniformBlocks or KnifeEdge, got {p!r}.",
+                    field="parts",
+                    value=p,
+                )
+        names = [p.name for p in parts]
+        repeated = sorted({n for n in names if names.count(n) > 1})
+        if repeated:
+            raise LoadInputError(
+                f"{name}: parts must have distinct names; {repeated} appear more than once. Rename one "
+                "(e.g. AxleTrain(..., name='second truck')).",
+                field="parts",
+                value=repeated,
+            )
+        if isinstance(dynamic_on, str):
+            dynamic_on = (dynamic_on,)
+        unknown = [n for n in dynamic_on if n not in names]
+        if unknown:
+            raise LoadInputError(
+                f"{name}: dynamic_on names {unknown}, which are not parts; the parts are {names}.",
+                field="dynamic_on",
+                value=unknown,
+            )
+        allowance = number(dynamic_allowance, "dynamic_allowance", strict=False)
+        if allowance and not dynamic_on:
+            raise LoadInputError(
+                f"{name}: a dynamic allowance of {fmt(allowance)} is given but dynamic_on names no part; "
+                f"name the parts it applies to, from {names}.",
+                field="dynamic_on",
+            )
+        if applies_to not in get_args(AppliesTo):
+            raise LoadInputError(
+                f"{name}: applies_to must be one of {list(get_args(AppliesTo))}, got {applies_to!r}.",
+                field="applies_to",
+                value=applies_to,
+            )
+        units = parts[0].units
+        object.__setattr__(self, "name", str(name))
+        object.__setattr__(self, "parts", tuple(p.converted(units) for p in parts))
+        object.__setattr__(self, "dynamic_allowance", allowance)
+        object.__setattr__(self, "dynamic_on", tuple(dynamic_on))
+        object.__setattr__(self, "factor", number(factor, "factor"))
+        object.__setattr__(self, "applies_to", applies_to)
+
+    @property
+    def units(self) -> UnitSystem:
+        """Unit system of the parts."""
+        return self.parts[0].units
+
+    def part_factor(self, part: Load) -> float:
+        """Factor on one part: ``(1 + dynamic allowance if it applies) x factor``."""
+        dynamic = 1.0 + self.dynamic_allowance if part.name in self.dynamic_on else 1.0
+        return dynamic * self.factor
+
+    def __repr__(self) -> str:
+        extra = ""
+        if self.dynamic_on:
+            extra += f", dynamic_allowance={fmt(self.dynamic_allowance)}, dynamic_on={list(self.dynamic_on)}"
+        if self.factor != 1.0:
+            extra += f", factor={fmt(self.factor)}"
+        if self.applies_to != "all":
+            extra += f", applies_to={self.applies_to!r}"
+        parts = ", ".join(p.name for p in self.parts)
+        return f"Combination({self.name!r}, [{parts}]{extra})"
+
+    def converted(self, units: str | UnitSystem) -> Combination:
+        """The same combination in another unit system."""
+        system = read_units(units, self.name)
+        if system == self.units:
+            return self
+        return Combination(
+            self.name,
+            [p.converted(system) for p in self.parts],
+            dynamic_allowance=self.dynamic_allowance,
+            dynamic_on=self.dynamic_on,
+            factor=self.factor,
+            applies_to=self.applies_to,
+        )
+
+
+@dataclass(frozen=True, repr=False)
+class LoadModel:
+    """A published (or user) load model: alternative combinations, the worst of which governs.
+
+    ``source`` names the document and clause; ``notes`` says which values are
+    recalled from memory rather than read in the standard.
+    """
+
+    name: str
+    cases: tuple[Combination, ...]
+    source: str = ""
+    notes: str = ""
+
+    def __init__(self, name: str, cases: Sequence[Combination], *, source: str = "", notes: str = "") -> None:
+        if isinstance(cases, Combination):
+            cases = (cases,)
+        if not isinstance(cases, Sequence) or not cases or not all(isinstance(c, Combination) for c in cases):
+            raise LoadInputError(f"{name}: give the cases as a list of Combination objects, got {cases!r}.")
+        if not any(c.applies_to == "all" for c in cases):
+            raise LoadInputError(
+                f"{name}: every case is limited to {cases[0].applies_to!r}; add a case with applies_to='all'.",
+                field="cases",
+            )
+        names = [c.name for c in cases]
+        if len(set(names)) != len(names):
+            raise LoadInputError(f"{name}: cases must have distinct names, got {names}.", field="cases")
+        units = cases[0].units
+        object.__setattr__(self, "name", str(name))
+        object.__setattr__(self, "cases", tuple(c.converted(units) for c in cases))
+        object.__setattr__(self, "source", str(source))
+        object.__setattr__(self, "notes", str(notes))
+
+    @property
+    def units(self) -> UnitSystem:
+        """Unit system of the model's numbers."""
+        return self.cases[0].units
+
+    def __repr__(self) -> str:
+        cases = ", ".join(repr(c.name) for c in self.cases)
+        return f"LoadModel({self.name!r}, cases=[{cases}], units={self.units.name!r})"
+
+    def converted(self, units: str | UnitSystem) -> LoadModel:
+        """The same model in another unit system (exact factors)."""
+        system = read_units(units, self.name)
+        if system == self.units:
+            return self
+        return LoadModel(self.name, [c.converted(system) for c in self.cases], source=self.source, notes=self.notes)
+
+
+def as_model(load: Load | Combination | LoadModel) -> LoadModel:
+    """Any load as a load model (a primitive is a combination of one part)."""
+    if isinstance(load, LoadModel):
+        return load
+    if isinstance(load, Combination):
+        return LoadModel(load.name, (load,))
+    if isinstance(load, _PRIMITIVES):
+        return LoadModel(load.name, (Combination(load.name, (load,)),))
+    raise LoadInputError(
+        f"expected a load (AxleTrain, UniformLoad, UniformBlocks, KnifeEdge), a Combination or a LoadModel, "
+        f"got {type(load).__name__} {load!r}.",
+        field="load",
+        value=load,
+    )

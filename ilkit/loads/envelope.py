@@ -1,0 +1,236 @@
+"""Envelopes: the largest and smallest moment and shear at sections along a beam under a load model.
+
+Sections are the ends, every support, every release and equal divisions of
+each span and overhang.  At interior supports and releases both faces are
+listed (``side`` ``"left"`` and ``"right"``).  The reaction envelope covers
+every support; the absolute maximum moment is searched along the whole beam
+and refined to 1e-6 of the beam length.  Sign conventions are those of
+:mod:`ilkit.model`: sagging moment positive, shear positive when the part
+left of the section is pushed up, reactions positive upward.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass, field
+from fractions import Fraction
+from typing import TYPE_CHECKING, Any, Literal
+
+from ilkit._exact import fmt, to_exact
+from ilkit.errors import LoadInputError, UnitsRequiredError
+from ilkit.loads.combination import Combination, LoadModel, as_model
+from ilkit.loads.placement import _Study
+from ilkit.loads.primitives import Load
+from ilkit.loads.results import Extreme, Extremes
+from ilkit.quantity import Side
+
+if TYPE_CHECKING:  # pragma: no cover
+    import pandas as pd
+
+    from ilkit.influence import InfluenceLine
+    from ilkit.model import Beam
+
+__all__ = ["Envelope", "envelope"]
+
+_GOLDEN = (math.sqrt(5.0) - 1.0) / 2.0
+
+
+@dataclass(frozen=True)
+class Envelope:
+    """Envelope of a load model on a beam.
+
+    ``sections``: one row per section (two at interior supports and
+    releases), with the largest and smallest moment and shear and the
+    governing case of each.  ``reactions``: one row per support.
+    ``absolute_maximum_moment``: the largest sagging moment anywhere, with its
+    section in ``.quantity.at``.  Column names carry the units.
+    """
+
+    beam: Beam
+    model: str
+    sections: pd.DataFrame = field(repr=False)
+    reactions: pd.DataFrame = field(repr=False)
+    absolute_maximum_moment: Extreme
+    _found: dict[tuple[str, Fraction, Side | None], Extremes] = field(repr=False, compare=False)
+
+    def __repr__(self) -> str:
+        a = self.absolute_maximum_moment
+        return (
+            f"Envelope({self.model} on {self.beam!r}: {len(self.sections)} section rows, "
+            f"{len(self.reactions)} supports; absolute maximum moment {a.value:.6g} {a.unit} "
+            f"at x={fmt(float(a.quantity.at))})"
+        )
+
+    def to_frame(self) -> pd.DataFrame:
+        """The section table (a copy)."""
+        return self.sections.copy()
+
+    def extreme(
+        self,
+        quantity: Literal["moment", "shear", "reaction"],
+        at: float,
+        extreme: Literal["max", "min"] = "max",
+        side: Side | None = None,
+    ) -> Extreme:
+        """The governing placement behind one entry of the tables."""
+        pos = to_exact(at, field="at")
+        keys = [k for k in self._found if k[0] == quantity and k[1] == pos and (side is None or k[2] == side)]
+        if not keys:
+            listed = sorted({fmt(k[1]) for k in self._found if k[0] == quantity})
+            raise LoadInputError(
+                f"extreme: no {quantity} at x={fmt(pos)}{f' ({side})' if side else ''} in this envelope; "
+                f"it has x = {', '.join(listed[:12])}{' ...' if len(listed) > 12 else ''}.",
+                field="at",
+                value=at,
+            )
+        if extreme not in ("max", "min"):
+            raise LoadInputError(f"extreme must be 'max' or 'min', got {extreme!r}.", field="extreme")
+        found = self._found[keys[0]]
+        return found.maximum if extreme == "max" else found.minimum
+
+
+def envelope(
+    beam: Beam,
+    load: Load | Combination | LoadModel,
+    *,
+    divisions: int = 10,
+    at: list[float] | tuple[float, ...] = (),
+) -> Envelope:
+    """Envelope of ``load`` on ``beam``: moments and shears at sections, reactions, absolute maximum moment.
+
+    ``divisions``: equal parts per span and per overhang (10 gives tenth
+    points).  ``at``: further section positions.  The load is converted to
+    the beam's units; a beam without units is an error.
+    """
+    import pandas as pd
+
+    model = as_model(load)
+    if beam.units is None:
+        raise UnitsRequiredError(
+            f"envelope: the beam declares no units, so {model.name} (in {model.units.name}) cannot be applied. "
+            f"Declare them: Beam(..., units={model.units.name!r}) or units='kN-m'."
+        )
+    if isinstance(divisions, bool) or not isinstance(divisions, int) or divisions < 1:
+        raise LoadInputError(
+            f"divisions: give a whole number of parts per span (>= 1), got {divisions!r}.",
+            field="divisions",
+            value=divisions,
+        )
+    model = model.converted(beam.units)
+    u = beam.units
+    L = beam.length
+    supports = [s.at for s in beam.supports]
+    releases = [p for p, _ in beam.releases]
+    stations = sorted({Fraction(0), L, *supports})
+    points: set[Fraction] = set(releases)
+    for a, b in zip(stations[:-1], stations[1:]):
+        points.update(a + (b - a) * Fraction(k, divisions) for k in range(divisions + 1))
+    for raw in at:
+        pos = to_exact(raw, field="at")
+        if not 0 <= pos <= L:
+            raise LoadInputError(
+                f"at: x={fmt(pos)} is off the beam; give sections from 0 to {fmt(L)}.", field="at", value=raw
+            )
+        points.add(pos)
+    faces = set(supports) | set(releases)
+
+    studies: dict[int, Extremes] = {}
+
+    def both(line: InfluenceLine) -> Extremes:
+        key = id(line)
+        if key not in studies:
+            study = _Study(line, model, beam)
+            studies[key] = Extremes(study.extreme(1), study.extreme(-1))
+        return studies[key]
+
+    found: dict[tuple[str, Fraction, Side | None], Extremes] = {}
+    rows: list[dict[str, Any]] = []
+    for p in sorted(points):
+        sides: tuple[Side | None, ...] = ("left", "right") if p in faces and 0 < p < L else (None,)
+        for side in sides:
+            m = both(beam.moment(p, side=side))
+            v = both(beam.shear(p, side=side))
+            found[("moment", p, side)] = m
+            found[("shear", p, side)] = v
+            rows.append(
+                {
+                    f"x [{u.length}]": float(p),
+                    "side": side or "",
+                    f"M max [{u.moment}]": m.maximum.value,
+                    "M max case": m.maximum.case,
+                    f"M min [{u.moment}]": m.minimum.value,
+                    "M min case": m.minimum.case,
+                    f"V max [{u.force}]": v.maximum.value,
+                    "V max case": v.maximum.case,
+                    f"V min [{u.force}]": v.minimum.value,
+                    "V min case": v.minimum.case,
+                }
+            )
+    reaction_rows = []
+    for s in beam.supports:
+        r = both(beam.reaction(s.at))
+        found[("reaction", s.at, None)] = r
+        reaction_rows.append(
+            {
+                f"x [{u.length}]": float(s.at),
+                "support": s.kind,
+                f"R max [{u.force}]": r.maximum.value,
+                "R max case": r.maximum.case,
+                f"R min [{u.force}]": r.minimum.value,
+                "R min case": r.minimum.case,
+            }
+        )
+    best = _absolute_maximum(beam, model, found, stations + releases)
+    return Envelope(beam, model.name, pd.DataFrame(rows), pd.DataFrame(reaction_rows), best, found)
+
+
+def _absolute_maximum(
+    beam: Beam,
+    model: LoadModel,
+    found: dict[tuple[str, Fraction, Side | None], Extremes],
+    barriers: list[Fraction],
+) -> Extreme:
+    """Largest moment over all sections: the sampled local maxima refined by golden-section search."""
+    sampled = sorted((k[1], e.maximum) for k, e in found.items() if k[0] == "moment")
+    xs = [float(p) for p, _ in sampled]
+    values = [e.value for _, e in sampled]
+    top = max(values)
+    best = max((e for _, e in sampled), key=lambda e: e.value)
+    if top <= 0:
+        return best
+    cuts = sorted(float(b) for b in barriers)
+    tol = 1e-6 * float(beam.length)
+    for i, value in enumerate(values):
+        neighbours = values[max(i - 1, 0) : i + 2]
+        if value < max(neighbours) or value < 0.95 * top:
+            continue
+        lo = xs[max(i - 1, 0)]
+        hi = xs[min(i + 1, len(xs) - 1)]
+        # stay between supports and releases, where the moment line is smooth in the section position
+        lo = max([lo, *(c for c in cuts if c < xs[i])])
+        hi = min([hi, *(c for c in cuts if c > xs[i])])
+        if hi - lo <= 2 * tol:
+            continue
+        found_here = _golden(beam, model, lo, hi, tol)
+        if found_here.value > best.value:
+            best = found_here
+    return best
+
+
+def _golden(beam: Beam, model: LoadModel, lo: float, hi: float, tol: float) -> Extreme:
+    def value_at(x: float) -> Extreme:
+        return _Study(beam.moment(x), model, beam).extreme(1)
+
+    a, b = lo, hi
+    c, d = b - _GOLDEN * (b - a), a + _GOLDEN * (b - a)
+    fc, fd = value_at(c), value_at(d)
+    while b - a > tol:
+        if fc.value >= fd.value:
+            b, d, fd = d, c, fc
+            c = b - _GOLDEN * (b - a)
+            fc = value_at(c)
+        else:
+            a, c, fc = c, d, fd
+            d = a + _GOLDEN * (b - a)
+            fd = value_at(d)
+    return fc if fc.value >= fd.value else fd

@@ -1,0 +1,220 @@
+"""Results of critical placement: plain frozen objects with a readable repr and a table form.
+
+Nothing here prints.  Positions are in the beam's length unit measured from
+its left end; effects carry the sign conventions of :mod:`ilkit.model`.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+from typing import TYPE_CHECKING, Literal
+
+from ilkit._exact import fmt
+from ilkit.quantity import Quantity, Side
+from ilkit.units import UnitSystem
+
+if TYPE_CHECKING:  # pragma: no cover
+    import pandas as pd
+
+__all__ = ["AxlePosition", "Patch", "LoadPlacement", "Extreme", "Extremes", "Direction", "effect_unit"]
+
+Direction = Literal["left to right", "right to left"]
+
+
+def effect_unit(quantity: Quantity, units: UnitSystem) -> str:
+    """Unit of a load effect on ``quantity``: force, moment, length or rad."""
+    if quantity.is_force:
+        return units.force
+    if quantity.is_moment:
+        return units.moment
+    if quantity.kind == "deflection":
+        return units.length
+    return "rad"
+
+
+@dataclass(frozen=True)
+class AxlePosition:
+    """One axle of a placed train.
+
+    ``number`` counts from the lead axle (1).  ``side`` is the one-sided
+    limit taken where the line jumps under the axle (the axle stands just
+    left or just right of ``x``), ``None`` elsewhere.  ``counted`` is False
+    when the axle is off the beam or left off because it would reduce the
+    extreme.
+    """
+
+    number: int
+    load: float
+    x: float
+    side: Side | None
+    ordinate: float
+    counted: bool
+
+    @property
+    def effect(self) -> float:
+        """Load times ordinate for a counted axle, 0 otherwise (unfactored)."""
+        return self.load * self.ordinate if self.counted else 0.0
+
+    def __repr__(self) -> str:
+        side = f" ({self.side})" if self.side else ""
+        off = "" if self.counted else ", not counted"
+        return (
+            f"AxlePosition({self.number}: {fmt(self.load)} at x={fmt(self.x)}{side}, "
+            f"ordinate {fmt(self.ordinate)}{off})"
+        )
+
+
+@dataclass(frozen=True)
+class Patch:
+    """A stretch ``start..end`` of the beam covered by a uniform load of ``intensity``, and its effect."""
+
+    start: float
+    end: float
+    intensity: float
+    effect: float
+
+    def __repr__(self) -> str:
+        return f"Patch({fmt(self.start)}..{fmt(self.end)}, intensity {fmt(self.intensity)}, effect {fmt(self.effect)})"
+
+
+@dataclass(frozen=True)
+class LoadPlacement:
+    """Where one load stands for an extreme, and its effect.
+
+    ``effect`` is unfactored; ``factor`` is the factor on it in the case
+    (dynamic allowance times the case factor).  ``direction`` is the travel
+    direction of a train (the lead axle is in front), ``None`` for loads
+    without one.  ``spacings`` are the distances between consecutive axles
+    as placed (the chosen value where a spacing varies).
+    """
+
+    load: str
+    effect: float
+    factor: float
+    direction: Direction | None
+    spacings: tuple[float, ...]
+    axles: tuple[AxlePosition, ...]
+    patches: tuple[Patch, ...]
+
+    @property
+    def factored(self) -> float:
+        """``factor x effect``."""
+        return self.factor * self.effect
+
+    def __repr__(self) -> str:
+        parts = [f"{self.load!r}", f"effect={fmt(self.effect)}"]
+        if self.factor != 1.0:
+            parts.append(f"factor={fmt(self.factor)}")
+        if self.direction:
+            parts.append(f"travelling {self.direction}")
+        if self.axles:
+            lead = self.axles[0]
+            parts.append(f"lead axle at x={fmt(lead.x)}")
+        if len(self.spacings) > 0:
+            parts.append("spacings " + ", ".join(fmt(s) for s in self.spacings))
+        if self.patches:
+            parts.append(", ".join(f"{fmt(p.start)}..{fmt(p.end)}" for p in self.patches))
+        return f"LoadPlacement({'; '.join(parts)})"
+
+
+@dataclass(frozen=True)
+class Extreme:
+    """The largest (``extreme="max"``) or smallest (``"min"``) effect of a load on one quantity.
+
+    ``value`` is the factored total of the governing ``case``;
+    ``placements`` say where each load of the case stands.
+    """
+
+    quantity: Quantity
+    extreme: Literal["max", "min"]
+    value: float
+    case: str
+    placements: tuple[LoadPlacement, ...]
+    units: UnitSystem
+
+    @property
+    def unit(self) -> str:
+        """Unit of ``value``."""
+        return effect_unit(self.quantity, self.units)
+
+    def __repr__(self) -> str:
+        return (
+            f"Extreme({self.extreme} {self.quantity.label} = {self.value:.6g} {self.unit}, "
+            f"case {self.case!r})"
+        )
+
+    def to_frame(self) -> pd.DataFrame:
+        """One row per axle and per loaded patch, with positions, ordinates and effects.
+
+        Column names carry the units.  ``factored effect`` sums to ``value``.
+        """
+        import pandas as pd
+
+        u = self.units
+        eff = self.unit
+        rows = []
+        for p in self.placements:
+            for a in p.axles:
+                rows.append(
+                    {
+                        "load": p.load,
+                        "item": f"axle {a.number}",
+                        f"x [{u.length}]": a.x,
+                        f"to x [{u.length}]": None,
+                        "side": a.side or "",
+                        "direction": p.direction or "",
+                        f"load [{u.force}]": a.load,
+                        f"intensity [{u.line_load}]": None,
+                        "ordinate": a.ordinate,
+                        "counted": a.counted,
+                        f"effect [{eff}]": a.effect,
+                        "factor": p.factor,
+                        f"factored effect [{eff}]": a.effect * p.factor,
+                    }
+                )
+            for k, patch in enumerate(p.patches):
+                rows.append(
+                    {
+                        "load": p.load,
+                        "item": f"patch {k + 1}",
+                        f"x [{u.length}]": patch.start,
+                        f"to x [{u.length}]": patch.end,
+                        "side": "",
+                        "direction": p.direction or "",
+                        f"load [{u.force}]": None,
+                        f"intensity [{u.line_load}]": patch.intensity,
+                        "ordinate": None,
+                        "counted": True,
+                        f"effect [{eff}]": patch.effect,
+                        "factor": p.factor,
+                        f"factored effect [{eff}]": patch.effect * p.factor,
+                    }
+                )
+        return pd.DataFrame(rows)
+
+
+@dataclass(frozen=True)
+class Extremes:
+    """Both extremes of a load on one quantity."""
+
+    maximum: Extreme
+    minimum: Extreme
+
+    def __repr__(self) -> str:
+        q = self.maximum.quantity.label
+        unit = self.maximum.unit
+        return (
+            f"Extremes({q}: max {self.maximum.value:.6g} {unit} ({self.maximum.case}), "
+            f"min {self.minimum.value:.6g} {unit} ({self.minimum.case}))"
+        )
+
+    def to_frame(self) -> pd.DataFrame:
+        """The rows of both extremes, with a first column saying which."""
+        import pandas as pd
+
+        parts = []
+        for e in (self.maximum, self.minimum):
+            frame = e.to_frame()
+            frame.insert(0, "extreme", e.extreme)
+            parts.append(frame)
+        return pd.concat(parts, ignore_index=True)

@@ -1,0 +1,154 @@
+"""Envelopes along a beam: sections, both faces at supports and releases, reactions, absolute maximum.
+
+Sources: hand calculations from the influence lines (written out below),
+AASHTO LRFD clause definitions (3.6.1.2, 3.6.1.3.1 from memory), and the
+statics of a section (shear jumps by the support reaction).
+"""
+
+from __future__ import annotations
+
+import numpy as np
+import pytest
+
+import ilkit
+from ilkit.loads import AxleTrain, UniformLoad, design_truck, envelope, extremes, hl93
+
+
+@pytest.fixture(scope="module")
+def gerber():
+    # our own three-span hinged girder (determinate): anchor spans with cantilevers, a 10 ft drop-in span
+    return ilkit.Beam(250, {0: "pin", 100: "roller", 150: "roller", 250: "roller"}, hinges=[120, 130], units="kip-ft")
+
+
+@pytest.fixture(scope="module")
+def gerber_env(gerber):
+    return envelope(gerber, hl93(), divisions=10)
+
+
+def test_sections_include_tenth_points_supports_and_releases(gerber, gerber_env):
+    table = gerber_env.sections
+    xs = table["x [ft]"].to_numpy()
+    # tenth points of each span, and the hinges
+    for a, b in [(0, 100), (100, 150), (150, 250)]:
+        for k in range(11):
+            assert np.any(np.isclose(xs, a + (b - a) * k / 10))
+    for h in (120, 130):
+        assert np.isclose(xs, h).sum() == 2
+    # both faces at interior supports and releases, one row at the ends
+    for p in (100, 150, 120, 130):
+        assert sorted(table.loc[np.isclose(xs, p), "side"]) == ["left", "right"]
+    assert list(table.loc[np.isclose(xs, 0), "side"]) == [""]
+
+
+def test_column_names_carry_units(gerber_env):
+    assert list(gerber_env.sections.columns) == [
+        "x [ft]",
+        "side",
+        "M max [kip·ft]",
+        "M max case",
+        "M min [kip·ft]",
+        "M min case",
+        "V max [kip]",
+        "V max case",
+        "V min [kip]",
+        "V min case",
+    ]
+    assert list(gerber_env.reactions.columns) == [
+        "x [ft]",
+        "support",
+        "R max [kip]",
+        "R max case",
+        "R min [kip]",
+        "R min case",
+    ]
+    assert gerber_env.to_frame().equals(gerber_env.sections)
+
+
+def test_rows_match_placement_on_each_line(gerber, gerber_env):
+    model = hl93()
+    table = gerber_env.sections
+    for _, row in table.iloc[::7].iterrows():
+        side = row["side"] or None
+        m = extremes(gerber.moment(row["x [ft]"], side=side), model, beam=gerber)
+        v = extremes(gerber.shear(row["x [ft]"], side=side), model, beam=gerber)
+        assert row["M max [kip·ft]"] == m.maximum.value and row["M min case"] == m.minimum.case
+        assert row["V max [kip]"] == v.maximum.value and row["V min [kip]"] == v.minimum.value
+
+
+def test_moment_is_zero_at_hinges(gerber_env):
+    at_hinges = gerber_env.sections[np.isin(gerber_env.sections["x [ft]"], [120.0, 130.0])]
+    assert (at_hinges[["M max [kip·ft]", "M min [kip·ft]"]] == 0).all().all()
+
+
+def test_shear_faces_at_a_support_differ_by_the_reaction(gerber):
+    # statics of a thin slice over the support: V(right face) - V(left face) = R for every load position
+    xs = np.linspace(0, 250, 2001)
+    left, right = gerber.shear(100, side="left"), gerber.shear(100, side="right")
+    assert right(xs) - left(xs) == pytest.approx(gerber.reaction(100)(xs), abs=1e-12)
+
+
+def test_interior_reaction_two_truck_rule_by_hand(gerber, gerber_env):
+    # R at x=100 (influence line: x/100 on 0..120 up to 1.2 at the hinge, down to 0 at x=130 over the
+    # drop-in span, 0 beyond).  Lane area 120 x 1.2 / 2 + 10 x 1.2 / 2 = 78 ft -> 0.64 x 78 = 49.92 kip.
+    # One truck: 32 at 120, 32 at 106, 8 at 92 -> 38.4 + 33.92 + 7.36 = 79.68 kip -> 1.33 x 79.68 + 49.92.
+    # Two trucks 50 ft apart (3.6.1.3.1, from memory): the rear truck's rear axle at 120 and the lead truck
+    # 50 ft ahead of it: 79.68 + (8 x 0.14 + 32 x 0.28 + 32 x 0.42) = 103.2 kip -> 0.9 (1.33 x 103.2 + 49.92)
+    row = gerber_env.reactions.set_index("x [ft]").loc[100.0]
+    one = 1.33 * 79.68 + 49.92
+    two = 0.9 * (1.33 * 103.2 + 49.92)
+    assert two > one
+    assert row["R max [kip]"] == pytest.approx(two, rel=1e-12)
+    assert row["R max case"] == "90 % (two design trucks + lane)"
+    # end supports: the rule does not apply
+    assert "two design trucks" not in gerber_env.reactions.set_index("x [ft]").loc[0.0, "R max case"]
+
+
+def test_end_reaction_equals_end_shear(gerber_env):
+    # statics: the shear just right of the left end is the left reaction
+    first = gerber_env.sections.iloc[0]
+    r0 = gerber_env.reactions.iloc[0]
+    assert r0["R max [kip]"] == pytest.approx(first["V max [kip]"]) and r0["R min [kip]"] == pytest.approx(
+        first["V min [kip]"]
+    )
+
+
+def test_absolute_maximum_moment_is_at_least_every_section(gerber_env):
+    best = gerber_env.absolute_maximum_moment
+    assert best.value >= gerber_env.sections["M max [kip·ft]"].max() - 1e-9
+    assert 0 < float(best.quantity.at) < 250 and best.quantity.kind == "moment"
+
+
+def test_simple_span_envelope_under_a_uniform_load():
+    # closed form: M max(x) = w x (L - x) / 2, V max(x) = w (L - x)^2 / (2L), V min(x) = -w x^2 / (2L);
+    # absolute maximum w L^2 / 8 at midspan
+    L, w = 36.0, 2.5
+    env = envelope(ilkit.Beam(L, {0: "pin", L: "roller"}, units="kN-m"), UniformLoad(w, units="kN-m"), divisions=12)
+    x = env.sections["x [m]"].to_numpy()
+    assert env.sections["M max [kN·m]"].to_numpy() == pytest.approx(w * x * (L - x) / 2)
+    assert env.sections["V max [kN]"].to_numpy() == pytest.approx(w * (L - x) ** 2 / (2 * L))
+    assert env.sections["V min [kN]"].to_numpy() == pytest.approx(-w * x**2 / (2 * L))
+    assert env.absolute_maximum_moment.value == pytest.approx(w * L**2 / 8)
+
+
+def test_extra_sections_and_lookup_of_a_governing_placement(gerber):
+    env = envelope(gerber, design_truck(), divisions=2, at=[33.3])
+    assert np.isclose(env.sections["x [ft]"], 33.3).any()
+    e = env.extreme("moment", 33.3, "max")
+    assert e.quantity.kind == "moment" and e.value == pytest.approx(
+        env.sections.loc[np.isclose(env.sections["x [ft]"], 33.3), "M max [kip·ft]"].iloc[0]
+    )
+    r = env.extreme("reaction", 150, "min")
+    assert r.value == env.reactions.set_index("x [ft]").loc[150.0, "R min [kip]"]
+    with pytest.raises(ilkit.IlkitError, match="no moment at x=34"):
+        env.extreme("moment", 34)
+    assert "absolute maximum moment" in repr(env)
+
+
+def test_envelope_input_errors(gerber):
+    train = AxleTrain([10], [], units="kip-ft")
+    with pytest.raises(ilkit.IlkitError, match="divisions"):
+        envelope(gerber, train, divisions=0)
+    with pytest.raises(ilkit.IlkitError, match="off the beam"):
+        envelope(gerber, train, at=[260])
+    with pytest.raises(ilkit.IlkitError, match="expected a load"):
+        envelope(gerber, "HL-93")

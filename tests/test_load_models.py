@@ -1,0 +1,370 @@
+"""Published load models against hand calculations from their definitions.
+
+Each test names the clause; values the project recalled rather than read are
+marked "from memory" (see the docstrings of ilkit.loads.models).  Hand
+calculations use the closed-form lines of a simple span (M(a) ordinate
+x (L - a) / L left of the section, a (L - x) / L right of it) and of two
+equal continuous spans (tests/closed_forms.py).
+"""
+
+from __future__ import annotations
+
+import math
+
+import numpy as np
+import pytest
+import sympy as sp
+from closed_forms import moment as cmoment
+from closed_forms import reaction as creaction
+
+import ilkit
+from ilkit.loads import (
+    ALPHA_VALUES,
+    alternate_live_load,
+    cooper,
+    cooper_train,
+    design_tandem,
+    design_truck,
+    envelope,
+    extremes,
+    fatigue_truck,
+    hl93,
+    lm1,
+    lm2,
+    lm71,
+    multiple_presence,
+    phi2,
+    phi3,
+    place,
+    sw0,
+    sw2,
+    two_design_trucks,
+)
+
+
+def simple(L, units="kip-ft"):
+    return ilkit.Beam(L, {0: "pin", L: "roller"}, units=units)
+
+
+def ordinate(L, a, x):
+    """Moment influence ordinate of a simple span at section a for a load at x (0 off the span)."""
+    x = np.asarray(x, dtype=float)
+    inside = (x >= 0) & (x <= L)
+    return np.where(inside, np.where(x < a, x * (L - a) / L, a * (L - x) / L), 0.0)
+
+
+# ====================================================================== AASHTO
+def test_definitions_of_the_aashto_vehicles():
+    # 3.6.1.2.2 (seen): 8, 32, 32 kip; 14 ft; 14 to 30 ft.  3.6.1.2.3 (seen): 2 x 25 kip at 4 ft
+    truck = design_truck()
+    assert truck.loads == (8.0, 32.0, 32.0) and truck.spacings == ((14.0, 14.0), (14.0, 30.0))
+    assert design_tandem().loads == (25.0, 25.0) and design_tandem().spacings == ((4.0, 4.0),)
+    # 3.6.1.3.1 (from memory): two trucks at least 50 ft apart, rear spacing 14 ft
+    two = two_design_trucks()
+    assert two.spacings[2] == (50.0, math.inf) and two.spacings[1] == (14.0, 14.0)
+    assert truck.units.name == "kip-ft"
+
+
+def test_hl93_midspan_moment_of_a_100_ft_span_by_hand():
+    # 3.6.1.2: truck with the 32 kip axle at the section and the other 32 kip axle 14 ft away (the
+    # 14 ft rear spacing governs on a simple span), 8 kip axle 14 ft beyond on the heavy side:
+    # 32 x 25 + 32 x 18 + 8 x 18 = 1520 kip-ft; IM 33 % (Table 3.6.2.1-1, seen); lane 0.64 L^2 / 8 = 800
+    found = place(simple(100).moment(50), hl93())
+    assert found.value == pytest.approx(1.33 * 1520 + 800, rel=1e-12)
+    assert found.case == "design truck + lane"
+    truck, lane = found.placements
+    assert truck.factor == pytest.approx(1.33) and lane.factor == 1.0  # no IM on the lane (3.6.1.2.4)
+    assert truck.spacings == pytest.approx((14.0, 14.0))
+    assert lane.effect == pytest.approx(800.0)
+
+
+def test_hl93_end_shear_of_a_100_ft_span_by_hand():
+    # truck: rear axle at the support, 32 + 32 x 0.86 + 8 x 0.72 = 65.28 kip; lane 0.64 x 100 / 2 = 32
+    found = place(simple(100).shear(0), hl93())
+    assert found.value == pytest.approx(1.33 * 65.28 + 32.0, rel=1e-12)
+
+
+def test_tandem_governs_the_midspan_moment_of_a_20_ft_span():
+    # tandem: 25 x 5 + 25 x 3 = 200 kip-ft; truck: one 32 kip axle, 32 x 5 = 160 kip-ft (the others are off
+    # the span or 14 ft away, 32 x 5 + 32 x (-) ...); lane 0.64 x 400 / 8 = 32 kip-ft
+    found = place(simple(20).moment(10), hl93())
+    assert found.case == "design tandem + lane"
+    assert found.value == pytest.approx(1.33 * 200 + 32, rel=1e-12)
+
+
+def test_fatigue_truck_on_a_100_ft_span():
+    # 3.6.1.4.1 (seen): rear spacing 30 ft; IM 15 % (from memory); no lane.  32 kip axle at midspan,
+    # the other 32 kip axle 30 ft away (ordinate 10), the 8 kip axle 14 ft on the other side (18):
+    # 800 + 320 + 144 = 1264 kip-ft
+    found = place(simple(100).moment(50), fatigue_truck())
+    assert found.value == pytest.approx(1.15 * 1264, rel=1e-12)
+    assert found.placements[0].spacings == pytest.approx((14.0, 30.0)) or found.placements[0].spacings == (
+        pytest.approx((30.0, 14.0))
+    )
+
+
+def test_multiple_presence_factors_from_memory():
+    # Table 3.6.1.1.2-1, from memory
+    assert [multiple_presence(n) for n in (1, 2, 3, 4, 6)] == [1.20, 1.00, 0.85, 0.65, 0.65]
+    base = place(simple(60).moment(30), hl93()).value
+    assert place(simple(60).moment(30), hl93(factor=multiple_presence(1))).value == pytest.approx(1.2 * base)
+
+
+def test_memory_values_can_be_overridden():
+    base = hl93()
+    changed = hl93(two_truck_factor=1.0, two_truck_gap=60, dynamic_allowance=0.0)
+    names = [c.name for c in changed.cases]
+    assert names[2] == "100 % (two design trucks + lane)" and [c.name for c in base.cases][2].startswith("90 %")
+    assert changed.cases[2].parts[0].spacings[2] == (60.0, math.inf)
+    assert place(simple(100).moment(50), changed).value == pytest.approx(1520 + 800)
+
+
+def test_rear_spacing_longer_than_14_ft_can_govern_on_continuous_spans():
+    # negative moment over the pier of two 40 ft spans (handbook closed form, tests/closed_forms.py):
+    # M_B = -x (L^2 - x^2) / (4 L^2) in span 1 and mirrored in span 2; the line is negative in both
+    # spans, so a truck straddling the pier wants its rear axle in the far span: the search must pick a
+    # rear spacing above 14 ft.  Checked against a dense grid of positions and spacings.
+    L = 40
+    line = cmoment(L, L)
+    found = place(line, design_truck(), "min")
+    (spacing_rear,) = [s for s in found.placements[0].spacings if abs(s - 14.0) > 1e-9] or [14.0]
+    best = 0.0
+    xs = np.arange(-60, 2 * L + 1, 0.01)
+    for rear in np.arange(14, 30.001, 0.25):
+        for offsets in (np.array([0, 14, 14 + rear]), np.array([0, rear, rear + 14])):
+            eff = line(xs[:, None] + offsets[None, :]) @ (
+                np.array([8, 32, 32]) if offsets[1] == 14 else np.array([32, 32, 8])
+            )
+            best = min(best, float(eff.min()))
+    assert found.value <= best + 1e-9
+    assert found.value == pytest.approx(best, rel=2e-4)
+    assert 14.0 < spacing_rear <= 30.0
+
+
+def two_span_truck_minimum(L: int, orientation: int) -> tuple[sp.Expr, sp.Expr]:
+    """Least effect on M_B of one design truck (14 ft rear spacing) entirely in span 1, by calculus.
+
+    Returns the effect and the position p of the lead axle.  The effect is a cubic in p (the closed
+    form of M_B); its minimum is at a root of the derivative or at an end of 0 <= p <= L - 28.
+    """
+    p = sp.Symbol("p", real=True)
+    x = sp.Symbol("x", real=True)
+    il = -x * (L**2 - x**2) / (4 * sp.Integer(L) ** 2)
+    axles = [(8, 0), (32, 14), (32, 28)] if orientation > 0 else [(32, 0), (32, 14), (8, 28)]
+    f = sum(P * il.subs(x, p + a) for P, a in axles)
+    candidates = [sp.Integer(0), sp.Integer(L - 28)]
+    candidates += [r for r in sp.solve(sp.diff(f, p), p) if r.is_real and 0 <= r <= L - 28]
+    best = min(candidates, key=lambda r: float(f.subs(p, r)))
+    return f.subs(p, best), best
+
+
+def test_two_truck_rule_for_negative_moment_over_the_pier_by_hand():
+    # two equal continuous spans of 120 ft; M_B line negative in both spans (handbook closed form).
+    # 3.6.1.3.1 (from memory): 90 % of two trucks >= 50 ft apart (14 ft rear spacing) with IM, plus
+    # 90 % of the lane load.  One truck per span, each at its own best place; a train travelling in
+    # either direction puts one truck in each orientation in span 1 (by the symmetry of the line).
+    L = 120
+    f_fwd, p_fwd = two_span_truck_minimum(L, +1)
+    f_bwd, p_bwd = two_span_truck_minimum(L, -1)
+    # the trucks are far enough apart: truck in span 1 ends at p + 28, the mirrored one starts at
+    # 2L - (p' + 28); the gap between them must be at least 50 ft
+    assert float((2 * L - (p_bwd + 28)) - (p_fwd + 28)) >= 50
+    lane_area = -sp.Rational(L**2, 8)  # 2 x integral of x (L^2 - x^2) / (4 L^2) over one span
+    hand = 0.9 * (1.33 * float(f_fwd + f_bwd) + 0.64 * float(lane_area))
+    line = cmoment(L, L)
+    assert line.negative_area == pytest.approx(float(lane_area), rel=1e-12)
+    found = place(line, hl93(), "min")
+    assert found.case == "90 % (two design trucks + lane)"
+    assert found.value == pytest.approx(hand, rel=1e-9)
+    # and it beats one truck with the lane (1.33 x worse truck + lane)
+    single = 1.33 * float(min(f_fwd, f_bwd)) + 0.64 * float(lane_area)
+    assert found.value < single
+
+
+def test_two_truck_rule_is_not_used_for_positive_moment_or_end_reactions():
+    line = cmoment(120, 48)
+    e = extremes(line, hl93())
+    assert e.maximum.case != "90 % (two design trucks + lane)"
+    assert extremes(creaction(120, "A"), hl93()).maximum.case != "90 % (two design trucks + lane)"
+
+
+def test_two_truck_rule_for_the_interior_reaction_needs_the_beam_or_an_end():
+    line = creaction(120, "B")
+    with pytest.raises(ilkit.IlkitError, match="pass beam=beam"):
+        place(line, hl93())
+
+
+# ================================================================== EN 1991-2
+def test_lm1_lane_1_midspan_moment_by_hand():
+    # Table 4.2 (seen): Q = 300 kN per axle, q = 9 kN/m^2 on a 3 m lane = 27 kN/m; axles 1.2 m apart
+    # (from memory).  20 m span, midspan: 300 x 5 + 300 x (10 - 1.2) / 2 + 27 x 20^2 / 8
+    found = place(simple(20, "kN-m").moment(10), lm1())
+    assert found.value == pytest.approx(300 * 5 + 300 * 8.8 / 2 + 27 * 400 / 8, rel=1e-12)
+
+
+def test_lm1_other_lanes_and_adjustment_factors():
+    # lane 2: 200 kN, 2.5 kN/m^2; lane 'other': uniform only (Table 4.2, seen); alpha factors multiply
+    line = simple(20, "kN-m").moment(10)
+    assert place(line, lm1(2, lane_width=3.5)).value == pytest.approx(200 * 5 + 200 * 4.4 + 2.5 * 3.5 * 50)
+    assert place(line, lm1("other")).value == pytest.approx(2.5 * 3 * 50)
+    assert place(line, lm1(1, alpha_Q=0.8, alpha_q=0.7)).value == pytest.approx(0.8 * 2820 + 0.7 * 1350)
+
+
+def test_lm2_single_axle():
+    # 4.3.3 (seen): one axle of 400 kN; midspan of a 12 m span: 400 x 12 / 4
+    assert place(simple(12, "kN-m").moment(6), lm2()).value == pytest.approx(1200.0)
+    assert place(simple(12, "kN-m").moment(6), lm2(beta_Q=0.9)).value == pytest.approx(1080.0)
+
+
+def lm71_by_hand(L: float, a: float, lead: float, orientation: int) -> float:
+    """LM71 on a simple span: four 250 kN axles + 80 kN/m beyond 0.8 m, where the line is positive (all of it)."""
+    xs = lead + orientation * np.array([0, 1.6, 3.2, 4.8])
+    zone = (min(xs) - 0.8, max(xs) + 0.8)
+
+    def area(x0, x1):  # integral of the moment ordinate of a simple span, in closed form (two triangles)
+        def F(x):
+            x = min(max(x, 0.0), L)
+            return x * x * (L - a) / (2 * L) if x <= a else a * (L - a) / 2 - a * (L - x) ** 2 / (2 * L) + 0.0
+
+        return F(x1) - F(x0)
+
+    return float(250 * ordinate(L, a, xs).sum() + 80 * (area(-1e9, zone[0]) + area(zone[1], 1e9)))
+
+
+def test_lm71_on_a_simple_span_by_hand():
+    # 6.3.2 (from memory).  30 m span, section at midspan: the extreme has an axle at the section (the
+    # effect is piecewise quadratic in the train position; between the axles' crossings of the section it
+    # is a quadratic whose stationary point is checked on a fine grid below)
+    L, a = 30.0, 15.0
+    candidates = [lm71_by_hand(L, a, a - k * 1.6 * o, o) for k in range(4) for o in (1, -1)]
+    grid = [lm71_by_hand(L, a, lead, 1) for lead in np.arange(5.0, 25.0, 0.001)]
+    hand = max(max(candidates), max(grid))
+    found = place(simple(L, "kN-m").moment(a), lm71())
+    assert found.value == pytest.approx(hand, rel=1e-7)
+    assert found.value == pytest.approx(12295.2, rel=1e-12)  # axle 2 at the section, worked in the notes above
+    assert place(simple(L, "kN-m").moment(a), lm71(1.21, dynamic_factor=1.1)).value == pytest.approx(
+        1.21 * 1.1 * 12295.2
+    )
+
+
+def test_lm71_uniform_part_only_where_unfavourable():
+    # reaction at A of two equal continuous spans: positive in span 1, negative in span 2 (handbook closed
+    # form); for the largest reaction the 80 kN/m may stand only on span 1
+    line = creaction(25, "A", units="kN-m")
+    found = place(line, lm71())
+    (train,) = found.placements
+    assert train.patches and all(p.end <= 25.0 + 1e-12 for p in train.patches)
+    assert all(p.effect > 0 for p in train.patches)
+
+
+def test_alpha_values_and_the_override():
+    # 6.3.2: the rule is seen, the values from memory
+    assert ALPHA_VALUES == (0.75, 0.83, 0.91, 1.00, 1.10, 1.21, 1.33, 1.46)
+    with pytest.raises(ilkit.IlkitError, match="any_alpha=True"):
+        lm71(1.05)
+    assert lm71(1.05, any_alpha=True).cases[0].parts[0].loads[0] == pytest.approx(262.5)
+
+
+def covered_area(L: float, b: float, g: float, y: float) -> float:
+    """Integral of the midspan-moment line of a simple span over two blocks [y, y+b], [y+b+g, y+2b+g].
+
+    Closed form: the antiderivative of x/2 (x < L/2) and (L - x)/2 (x > L/2), clipped to the span.
+    """
+
+    def F(x):
+        x = min(max(x, 0.0), L)
+        c = L / 2
+        return x * x / 4 if x <= c else c * c / 4 + (c * c - (L - x) ** 2) / 4
+
+    return F(y + b) - F(y) + F(y + 2 * b + g) - F(y + b + g)
+
+
+@pytest.mark.parametrize(
+    ("model", "q", "L", "b", "g"),
+    [
+        (sw0(), 133.0, 40.0, 15.0, 5.3),  # SW/0 (Table 6.1, from memory): 133 kN/m, 15 m + 15 m, 5.3 m apart
+        (sw2(), 150.0, 60.0, 25.0, 7.0),  # SW/2 (Table 6.1, from memory): 150 kN/m, 25 m + 25 m, 7 m apart
+    ],
+)
+def test_sw_blocks_on_a_simple_span_by_hand(model, q, L, b, g):
+    # Centred blocks are only a local plateau.  Better: the first block partly off the span, the gap
+    # left of the section, the second block over it.  There the covered area is
+    #   A(y) = (y + b)^2/4 + ((L/2)^2 - (y + b + g)^2)/4 + ((L/2)^2 - (L - y - 2b - g)^2)/4
+    # and A'(y) = ((y + b) - (y + b + g) + (L - y - 2b - g)) / 2 = 0 gives y = L - 2b - 2g.
+    # (SW/2 on 60 m: y = -4, A = 352 m^2; SW/0 on 40 m: y = -0.6, A = 147.795 m^2.)
+    y = L - 2 * b - 2 * g
+    hand = q * covered_area(L, b, g, y)
+    assert -b < y < 0 and y + b + g <= L / 2 <= y + 2 * b + g <= L  # the configuration assumed above
+    scan = max(covered_area(L, b, g, t) for t in np.arange(-2 * b - g, L, 0.001))
+    assert q * scan <= hand + 1e-9
+    found = place(simple(L, "kN-m").moment(L / 2), model)
+    assert found.value == pytest.approx(hand, rel=1e-12)
+    assert len(found.placements[0].patches) == 2
+
+
+def test_dynamic_factors_phi2_phi3():
+    # 6.4.5.2 (from memory): Phi2 = 1.44 / (sqrt L - 0.2) + 0.82 in [1.00, 1.67];
+    # Phi3 = 2.16 / (sqrt L - 0.2) + 0.73 in [1.00, 2.00]
+    assert phi2(4.0) == pytest.approx(1.44 / 1.8 + 0.82)
+    assert phi3(9.0) == pytest.approx(2.16 / 2.8 + 0.73)
+    assert phi2(1.0) == 1.67 and phi3(1.0) == 2.00
+    assert phi2(400.0) == 1.00 and phi3(1000.0) == 1.00
+    with pytest.raises(ilkit.IlkitError):
+        phi2(0)
+
+
+# ======================================================================= AREMA
+def test_cooper_e80_definition_and_scaling():
+    # Chapter 15: axles 40, 80 x 4, 52 x 4 per locomotive, spacings 8, 5, 5, 5, 9, 5, 6, 5 (from memory),
+    # 8 ft between locomotives, 5 ft to 8 kip/ft
+    e80 = cooper_train()
+    assert sum(e80.loads) == pytest.approx(2 * (40 + 4 * 80 + 4 * 52))
+    assert [s[0] for s in e80.spacings] == [8, 5, 5, 5, 9, 5, 6, 5, 8, 8, 5, 5, 5, 9, 5, 6, 5]
+    assert e80.behind.intensity == 8.0 and e80.behind.clearance == 5.0
+    e60 = cooper_train(60, per="rail")
+    assert e60.loads[1] == pytest.approx(80 * 60 / 80 / 2) and e60.behind.intensity == pytest.approx(3.0)
+    assert alternate_live_load().loads == (100.0, 100.0, 100.0, 100.0)
+
+
+def test_alternate_live_load_governs_a_10_ft_span():
+    # two 100 kip axles 5 ft apart (alternate live load, from memory) on a 10 ft span, crane formula
+    # P (2L - d)^2 / (8L) = 100 x 15^2 / 80 = 281.25 kip-ft; E80's two 80 kip drivers give 225 kip-ft
+    env = envelope(simple(10), cooper(), divisions=10)
+    best = env.absolute_maximum_moment
+    assert best.value == pytest.approx(281.25, rel=1e-9)
+    assert best.case == "alternate live load"
+    e80_only = envelope(simple(10), cooper_train(), divisions=10).absolute_maximum_moment
+    assert e80_only.value == pytest.approx(225.0, rel=1e-9)
+
+
+def test_cooper_impact_is_on_the_whole_live_load():
+    line = simple(50).moment(25)
+    assert place(line, cooper(impact=0.3)).value == pytest.approx(1.3 * place(line, cooper()).value)
+
+
+# ======================================================================= units
+def test_a_kip_ft_model_on_a_kn_m_beam_is_converted_exactly():
+    # exact definitions: 1 ft = 0.3048 m, 1 kip = 4.4482216152605 kN (ilkit.units)
+    ft, kip = 0.3048, 4.4482216152605
+    metric = ilkit.Beam(100 * ft, {0: "pin", 100 * ft: "roller"}, units="kN-m")
+    found = place(metric.moment(50 * ft), hl93())
+    assert found.value == pytest.approx((1.33 * 1520 + 800) * kip * ft, rel=1e-12)
+    assert found.unit == "kN·m"
+    (truck, _lane) = found.placements
+    assert truck.axles[1].load == pytest.approx(32 * kip)
+    assert truck.spacings[0] == pytest.approx(14 * ft)
+
+
+def test_a_kn_m_model_on_a_kip_ft_beam():
+    ft, kip = 0.3048, 4.4482216152605
+    imperial = simple(20 / ft)
+    found = place(imperial.moment(10 / ft), lm2())
+    assert found.value == pytest.approx(400 * 20 / 4 / (kip * ft), rel=1e-12)
+
+
+def test_a_beam_without_units_is_an_error_that_says_how_to_declare_them():
+    beam = ilkit.Beam(20, {0: "pin", 20: "roller"})
+    with pytest.raises(ilkit.UnitsRequiredError, match=r"Beam\(\.\.\., units='kip-ft'\)"):
+        place(beam.moment(10), hl93())
+    with pytest.raises(ilkit.UnitsRequiredError, match="units="):
+        envelope(beam, lm71())
