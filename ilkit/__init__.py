@@ -39,6 +39,7 @@ from ilkit.loads import (
     envelope,
     extremes,
     place,
+    stand,
 )
 from ilkit.model import Beam, Spring, Support
 from ilkit.quantity import Quantity
@@ -76,6 +77,7 @@ __all__ = [
     "LoadModel",
     "place",
     "extremes",
+    "stand",
     "envelope",
     "Extreme",
     "Extremes",

@@ -313,3 +313,109 @@ def test_coalescer_flush_runs_a_pending_request_now(monkeypatch):
         assert not c.pending and calls == [1]
 
     run_loop(drive)
+
+
+# ------------------------------------------------------- moving loads on a continuous girder
+CONTINUOUS = {0: "pin", 30: "roller", 70: "roller", 100: "roller"}
+# our own five-axle vehicle (kN, m), lead axle first
+VEHICLE = ilkit.AxleTrain([60, 120, 120, 100, 100], [3.6, 1.4, 6.0, 1.4], units="kN-m", name="five-axle vehicle")
+
+
+@pytest.fixture(scope="module")
+def continuous():
+    return ilkit.Beam(100, CONTINUOUS, EI=2.4e6, units="kN-m")
+
+
+@pytest.fixture(scope="module")
+def moving(continuous):
+    explorer = Explorer(continuous, [VEHICLE, ilkit.loads.lm71()], backend="inline")
+    explorer.load.value = "five-axle vehicle"
+    yield explorer
+    explorer.close()
+
+
+def test_load_chooser_offers_the_travelling_parts_and_the_models(continuous):
+    explorer = Explorer(continuous, {"HL-93": ilkit.loads.hl93(), "train": VEHICLE}, backend="inline")
+    assert list(explorer.load.options) == [
+        "unit load", "HL-93: design truck", "HL-93: design tandem", "HL-93: two design trucks", "train",
+    ]  # fmt: skip
+    assert list(explorer.model.options) == ["HL-93", "train"]
+    kinds = [v for _, v in explorer.quantity.options]
+    assert "deflection" in kinds and "rotation" in kinds  # EI is given
+    explorer.close()
+
+
+@settings(max_examples=40, deadline=None)
+@given(st.floats(-20, 120), st.sampled_from(["left to right", "right to left"]))
+def test_read_out_of_a_train_is_the_core_effect(moving, continuous, x, direction):
+    moving.direction.value = direction
+    moving.position.value = x
+    want = ilkit.stand(moving.line, VEHICLE, moving.position.value, direction=direction)
+    assert moving.value == want.effect
+    assert [a.x for a in moving.placement.axles] == [a.x for a in want.axles]
+    assert shown(moving) == pytest.approx(want.effect, abs=1e-4 * max(1.0, abs(want.effect)))
+    assert shown_unit(moving) == "kN·m"
+
+
+@pytest.mark.parametrize(("kind", "at"), [("moment", "70"), ("moment", "50"), ("shear", "30"), ("reaction", "30")])
+@pytest.mark.parametrize("extreme", ["max", "min"])
+def test_worst_placement_of_a_train_is_the_core_placement(moving, continuous, kind, at, extreme):
+    moving.quantity.value = kind
+    moving.location.value = at
+    (moving.largest if extreme == "max" else moving.smallest).click()
+    best = ilkit.place(moving.line, VEHICLE, extreme, beam=continuous)
+    assert moving.value == best.value
+    assert moving.position.value == best.placements[0].front
+    assert moving.direction.value == best.placements[0].direction
+    assert "worst placement" in moving.readout.value
+    moving.position.value = moving.position.value + moving.position.step  # moving on: the load as it stands
+    assert "worst placement" not in moving.readout.value
+    want = ilkit.stand(moving.line, VEHICLE, moving.position.value, direction=moving.direction.value)
+    assert moving.value == want.effect
+
+
+def test_worst_placement_keeps_the_spacing_of_a_variable_train(continuous):
+    truck = ilkit.loads.design_truck()  # rear spacing 14 to 30 ft (AASHTO LRFD 3.6.1.2.2)
+    explorer = Explorer(continuous, [truck], quantity="moment", at=70, backend="inline")
+    explorer.load.value = "design truck"
+    explorer.smallest.click()
+    best = ilkit.place(explorer.line, truck, "min", beam=continuous).placements[0]
+    assert explorer.value == best.effect
+    explorer.position.value = explorer.position.value - explorer.position.step
+    want = ilkit.stand(explorer.line, truck, explorer.position.value, direction=best.direction, spacings=best.spacings)
+    assert explorer.value == want.effect
+    assert "spacings" in explorer.readout.value
+    explorer.close()
+
+
+def test_envelope_view_draws_the_core_envelope_and_reads_out_the_extremes(continuous):
+    explorer = Explorer(continuous, [VEHICLE], quantity="moment", at=70, backend="inline")
+    explorer.envelope.value = True
+    explorer.redraw()
+    env = ilkit.envelope(continuous, VEHICLE)
+    drawn = next(a for a in explorer._figure.ax_line.get_lines() if a.get_gid() == "largest")
+    assert sorted(drawn.get_ydata()) == pytest.approx(sorted(env.sections["M max [kN·m]"]), rel=1e-12)
+    both = ilkit.extremes(continuous.moment(70), VEHICLE, beam=continuous)
+    text = explorer.readout.value
+    got_max = float(re.search(r"ilkit-envelope-max'>([^<]+)<", text).group(1))
+    got_min = float(re.search(r"ilkit-envelope-min'>([^<]+)<", text).group(1))
+    assert got_max == pytest.approx(both.maximum.value, rel=1e-4)
+    assert got_min == pytest.approx(both.minimum.value, rel=1e-4)
+    explorer.quantity.value = "deflection"  # no envelope of deflections: the line is shown, with a note
+    explorer.redraw()
+    assert "Envelopes are drawn for bending moment, shear and reactions" in message(explorer)
+    explorer.close()
+
+
+def test_a_load_on_a_beam_without_units_is_a_message(girder):
+    bare = ilkit.Beam(20, {0: "pin", 20: "roller"})
+    explorer = Explorer(bare, [VEHICLE], backend="inline")
+    explorer.load.value = "five-axle vehicle"
+    assert "declares no units" in message(explorer)
+    assert explorer.load.value == "unit load"
+    explorer.close()
+
+
+def test_something_that_is_not_a_load_is_a_typed_error(continuous):
+    with pytest.raises(ilkit.LoadInputError, match="loads: 42 is not a load"):
+        Explorer(continuous, [42], backend="inline")

@@ -29,6 +29,7 @@ from ilkit.loads.models import (
 from ilkit.loads.placement import extremes, place
 from ilkit.loads.primitives import AxleTrain, KnifeEdge, TrainUniform, UniformBlocks, UniformLoad
 from ilkit.loads.results import AxlePosition, Extreme, Extremes, LoadPlacement, Patch
+from ilkit.loads.standing import stand, train_length
 
 __all__ = [
     "AxleTrain",
@@ -40,6 +41,8 @@ __all__ = [
     "LoadModel",
     "place",
     "extremes",
+    "stand",
+    "train_length",
     "envelope",
     "Envelope",
     "Extreme",

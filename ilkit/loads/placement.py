@@ -191,7 +191,7 @@ class _Study:
                 placed = self.place_chain(part, sense)
             self._placed[key] = placed
         p = self._placed[key]
-        return LoadPlacement(p.load, p.effect, factor, p.direction, p.spacings, p.axles, p.patches)
+        return LoadPlacement(p.load, p.effect, factor, p.direction, p.spacings, p.axles, p.patches, p.front)
 
     def place_uniform(self, load: UniformLoad, sense: int) -> LoadPlacement:
         patches = self.patches_on_sign(load.intensity, [(-np.inf, np.inf)], sense)
@@ -252,7 +252,11 @@ class _Study:
                 a, b = max(start, 0.0), min(end, line.length)
                 if b > a:
                     patches.append(Patch(a, b, seg.intensity, seg.intensity * line.integral(a, b)))
-        return LoadPlacement(load.name, opt.value, 1.0, direction, spacings, tuple(axles), tuple(patches))
+        # the front: offset 0 of the first group when travelling right to left (the natural
+        # chain), the far end of the last group of the mirrored chain when travelling left to right
+        last = chain.groups[-1]
+        front = opt.positions[-1] + last.extent if direction == "left to right" else opt.positions[0]
+        return LoadPlacement(load.name, opt.value, 1.0, direction, spacings, tuple(axles), tuple(patches), front)
 
     def patches_on_sign(self, intensity: float, spans: list[tuple[float, float]], sense: int) -> tuple[Patch, ...]:
         """Patches of a breakable load limited to ``spans``: the parts of the line of the wanted sign."""

@@ -85,7 +85,10 @@ class LoadPlacement:
     (dynamic allowance times the case factor).  ``direction`` is the travel
     direction of a train (the lead axle is in front), ``None`` for loads
     without one.  ``spacings`` are the distances between consecutive axles
-    as placed (the chosen value where a spacing varies).
+    as placed (the chosen value where a spacing varies).  ``front`` is the
+    position of the front of a travelling load (its lead axle, or the leading
+    end of its first block; see :func:`ilkit.loads.stand`), ``None`` for a
+    uniform load placed in patches.
     """
 
     load: str
@@ -95,6 +98,7 @@ class LoadPlacement:
     spacings: tuple[float, ...]
     axles: tuple[AxlePosition, ...]
     patches: tuple[Patch, ...]
+    front: float | None = None
 
     @property
     def factored(self) -> float:

@@ -76,17 +76,16 @@ class ExplorerFigure:
             self._mark_section(float(line.quantity.at))
             self._make_moving()
 
-    def show_envelope(self, xs: np.ndarray, largest: np.ndarray, smallest: np.ndarray, *, title: str,
-                      unit: str, at: float, value: float) -> None:
-        """Draw the beam and an envelope (largest and smallest effect at sections) as the background."""
-        from ilkit.views.plot import plot_envelope
+    def show_envelope(self, envelope: Any, kind: str, *, at: float) -> None:
+        """Draw the beam and the envelope of ``kind`` as the background, the section marked."""
+        from ilkit.views.moving import plot_envelope
 
         draw_beam, _, style = _drawing()
         self._line = None
         self._reset()
         with style.context():
             draw_beam(self.beam, ax=self.ax_beam)
-            plot_envelope(xs, largest, smallest, ax=self.ax_line, title=title, unit=unit)
+            plot_envelope(envelope, kind, ax=self.ax_line)  # type: ignore[arg-type]
             self._mark_section(at)
             self._make_moving()
 
@@ -137,10 +136,15 @@ class ExplorerFigure:
     def _apply(self, loading: Loading) -> None:
         counted = [a for a in loading.axles if a.counted]
         idle = [a for a in loading.axles if not a.counted]
+        heaviest = max((a.load for a in loading.axles), default=1.0) or 1.0
         top = ARROW_TOP
-        self._stems.set_data(*_segments([(a.x, 0.08, a.x, top) for a in counted]))
+
+        def tip(a: Axle) -> float:  # arrow length grows with the axle load
+            return 0.2 + (top - 0.2) * a.load / heaviest
+
+        self._stems.set_data(*_segments([(a.x, 0.08, a.x, tip(a)) for a in counted]))
         self._heads.set_data([a.x for a in counted], [0.1] * len(counted))
-        self._idle.set_data(*_segments([(a.x, 0.08, a.x, top) for a in idle]))
+        self._idle.set_data(*_segments([(a.x, 0.08, a.x, tip(a)) for a in idle]))
         self._idle_heads.set_data([a.x for a in idle], [0.1] * len(idle))
         self._band.set_verts([[(s, 0.08), (e, 0.08), (e, top * 0.7), (s, top * 0.7)] for s, e, _ in loading.patches])
         if self._line is not None:

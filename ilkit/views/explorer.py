@@ -38,13 +38,15 @@ from fractions import Fraction
 from typing import TYPE_CHECKING, Any, Literal
 
 from ilkit._exact import fmt, to_exact
-from ilkit.errors import IlkitError, SideRequiredError
+from ilkit.errors import IlkitError, LoadInputError, SideRequiredError
 from ilkit.quantity import KINDS
 from ilkit.views._explorer_figure import Axle, ExplorerFigure, Loading
 from ilkit.views.livefigure import Backend, Coalescer, _require
 
 if TYPE_CHECKING:  # pragma: no cover
     from ilkit.influence import InfluenceLine
+    from ilkit.loads import Envelope, Extremes, LoadPlacement
+    from ilkit.loads.standing import Travelling
     from ilkit.model import Beam
 
 __all__ = ["Explorer", "UNIT_LOAD"]
@@ -53,7 +55,6 @@ UNIT_LOAD = "unit load"
 """Name of the unit load in the load chooser."""
 
 Extreme = Literal["max", "min"]
-Direction = Literal["left to right", "right to left"]
 
 _WORDS = {
     "reaction": "reaction",
@@ -74,9 +75,11 @@ class Explorer:
     beam:
         The beam to explore.
     loads:
-        Load models offered besides the unit load: one model, a list, or a
-        ``{name: model}`` mapping (see :mod:`ilkit.loads`).  Needs a beam with
-        units.
+        Loads offered besides the unit load: one load or load model, a list,
+        or a ``{name: load}`` mapping (see :mod:`ilkit.loads`).  Axle trains,
+        knife-edge loads and blocks travel along the beam with the slider; a
+        load model or combination offers its travelling parts to the slider
+        and itself to the envelope view.  Needs a beam with units.
     quantity:
         The quantity shown first (``"moment"``, ``"shear"``, ``"reaction"``,
         ...; default ``"moment"``).
@@ -90,11 +93,19 @@ class Explorer:
 
     Attributes
     ----------
-    quantity, location, side, load, direction, position, largest, smallest, envelope:
-        The controls (ipywidgets); set their ``value`` to drive the explorer
-        from code.
+    quantity, location, side, load, direction, position, largest, smallest, envelope, model:
+        The controls (ipywidgets); set their ``value`` (or ``click()`` a
+        button) to drive the explorer from code.
     readout, message:
         The read-out and the message area (HTML widgets).
+    line:
+        The influence line shown (a core object).
+    value:
+        The number read out: the ordinate under the unit load, or the effect
+        of the load (unfactored) in the beam's units.
+    placement:
+        Where the chosen load stands and what each axle contributes
+        (:class:`ilkit.loads.LoadPlacement`), ``None`` for the unit load.
     widget:
         The whole layout.
     """
@@ -111,19 +122,25 @@ class Explorer:
     ) -> None:
         w = _require("ipywidgets")
         self.beam = beam
-        self._loads = _read_loads(loads)
+        self._travelling, self._models = _read_loads(loads)
         self.line: InfluenceLine | None = None
         self.value: float = 0.0
-        """The value read out now (ordinate for the unit load, effect for a load model)."""
-        self._limit: Literal["left", "right"] | None = None  # one-sided value after a jump to a worst placement
+        self.placement: LoadPlacement | None = None
+        self._limit: Literal["left", "right"] | None = None  # unit load: one-sided value after a jump
+        self._worst: LoadPlacement | None = None  # a load model's worst placement, until the load moves
+        self._worst_value = 0.0  # the extreme's value (core) while at a worst placement
+        self._spacings: tuple[float, ...] | None = None  # spacings of a variable train chosen by a jump
+        self._envelopes: dict[str, Envelope] = {}
+        self._extremes: dict[tuple[int, str], Extremes] = {}
         self._quiet = False  # set while the explorer itself changes a control
 
         kinds = [k for k in KINDS if self._offers(k)]
         if quantity not in kinds:
             raise _choice_error("quantity", quantity, kinds)
+        wide = {"description_width": "4.8em"}
         self.quantity = w.Dropdown(
             options=[(_WORDS[k], k) for k in kinds], value=quantity, description="quantity",
-            layout=w.Layout(width="15.5em"), style={"description_width": "4.8em"},
+            layout=w.Layout(width="15.5em"), style=wide,
         )  # fmt: skip
         self.location = w.Text(
             value="", description="at x =", continuous_update=False,
@@ -134,8 +151,8 @@ class Explorer:
             style={"button_width": "6.5em"}, layout=w.Layout(display="none"),
         )  # fmt: skip
         self.load = w.Dropdown(
-            options=list(self._loads), value=UNIT_LOAD, description="load",
-            layout=w.Layout(width="15.5em"), style={"description_width": "4.8em"},
+            options=list(self._travelling), value=UNIT_LOAD, description="load",
+            layout=w.Layout(width="21em"), style=wide,
         )  # fmt: skip
         self.direction = w.ToggleButtons(
             options=[("→", "left to right"), ("←", "right to left")], value="left to right",
@@ -143,25 +160,26 @@ class Explorer:
         )  # fmt: skip
         self.position = w.FloatSlider(
             description="load at x", continuous_update=True, readout_format=".2f",
-            layout=w.Layout(width="36em"), style={"description_width": "4.8em"},
+            layout=w.Layout(width="36em"), style=wide,
         )  # fmt: skip
         narrow = w.Layout(width="6.5em")
-        self.largest = w.Button(
-            description="largest", tooltip="jump to the placement of the largest value", layout=narrow
-        )
-        self.smallest = w.Button(
-            description="smallest", tooltip="jump to the placement of the smallest value", layout=narrow
-        )
-        self.envelope = w.ToggleButton(
-            value=False, description="envelope", tooltip="envelope of the chosen load", layout=narrow
-        )
+        self.largest = w.Button(description="largest", tooltip="jump to the placement of the largest value",
+                                layout=narrow)  # fmt: skip
+        self.smallest = w.Button(description="smallest", tooltip="jump to the placement of the smallest value",
+                                 layout=narrow)  # fmt: skip
+        self.envelope = w.ToggleButton(value=False, description="envelope", layout=narrow,
+                                       tooltip="show the envelope of the load model along the beam")  # fmt: skip
+        self.model = w.Dropdown(
+            options=list(self._models), value=next(iter(self._models), None), description="of",
+            layout=w.Layout(width="15em", display="" if self._models else "none"),
+            style={"description_width": "1.6em"},
+        )  # fmt: skip
+        self.envelope.layout.display = "" if self._models else "none"
         self.readout = w.HTML()
         self.message = w.HTML()
-        for name in ("quantity", "location", "side", "load", "direction", "position", "readout", "message"):
+        for name in ("quantity", "location", "side", "load", "direction", "position", "largest", "smallest",
+                     "envelope", "model", "readout", "message"):  # fmt: skip
             getattr(self, name).add_class(f"ilkit-{name}")
-        self.largest.add_class("ilkit-largest")
-        self.smallest.add_class("ilkit-smallest")
-        self.envelope.add_class("ilkit-envelope")
 
         self._figure = ExplorerFigure(beam, backend=backend)
         self._redraw = Coalescer(self._render)
@@ -169,8 +187,8 @@ class Explorer:
         self.widget = w.VBox(
             [
                 w.HBox([self.quantity, self.location, self.side]),
-                w.HBox([self.load, self.direction, self.largest, self.smallest, self.envelope]),
-                self.position,
+                w.HBox([self.load, self.direction, self.largest, self.smallest]),
+                w.HBox([self.position, self.envelope, self.model]),
                 self.readout,
                 self.message,
                 self._figure.live.widget,
@@ -189,6 +207,7 @@ class Explorer:
         self.largest.on_click(lambda _: self.jump("max"))
         self.smallest.on_click(lambda _: self.jump("min"))
         self.envelope.observe(self._on_envelope, "value")
+        self.model.observe(self._on_envelope, "value")
         self._render()
 
     # ------------------------------------------------------------------ display
@@ -212,12 +231,10 @@ class Explorer:
     def close(self) -> None:
         """Close the widgets and release the figure."""
         self._figure.live.close()
-        self.widget.close_all() if hasattr(self.widget, "close_all") else self.widget.close()
+        self.widget.close()
 
     # ---------------------------------------------------------------- section
     def _offers(self, kind: str) -> bool:
-        if not hasattr(self.beam, kind):
-            return False
         places = self.beam.locations(kind)
         if places is not None:
             return len(places) > 0
@@ -270,19 +287,19 @@ class Explorer:
                 line = self.beam.line(kind, at, side=side or self.side.value)
         except IlkitError as err:
             self._show_message(str(err), error=True)
-            self._set_quietly(self.location, _text(self.line.quantity.at) if self.line is not None else "")
+            self._set_quietly(self.location, fmt(self.line.quantity.at) if self.line is not None else "")
             if self.line is not None:
                 self._set_quietly(self.quantity, self.line.quantity.kind)
             return
         self.line = line
-        self._set_quietly(self.location, _text(at))
+        self._set_quietly(self.location, fmt(at))
         self._set_quietly(self.side, line.quantity.side or self.side.value)
         self.side.layout.display = "" if needs_side else "none"
         if needs_side:
             face = f"The {_WORDS[kind]} jumps at x = {fmt(at)}: showing the {line.quantity.side} face."
             note = f"{note} {face}".strip()
         self._show_message(note)
-        self._limit = None
+        self._limit = self._worst = None
         self._background_stale = True
         self._update_value()
         self._redraw.request()
@@ -291,39 +308,45 @@ class Explorer:
     def _on_load(self, change: dict[str, Any]) -> None:
         if self._quiet:
             return
-        self._load_changed()
-        self._background_stale = True
+        self._spacings = None
+        self._limit = self._worst = None
+        if not self._load_changed():
+            self._set_quietly(self.load, change["old"])
+            self._load_changed()
+            return
+        self._show_message("")
         self._update_value()
         self._redraw.request()
 
-    def _load_changed(self) -> None:
-        """Set the slider's range and step for the chosen load, and the direction control."""
-        load = self._loads[self.load.value]
+    def _load_changed(self) -> bool:
+        """Set the slider's range and step for the chosen load; False (and a message) if it cannot be used."""
+        load = self._travelling[self.load.value]
         length = float(self.beam.length)
-        extent = 0.0 if load is None else _extent(load)
+        try:
+            extent = 0.0 if load is None else _train_length(self.beam, load, self._spacings)
+        except IlkitError as err:
+            self._show_message(str(err), error=True)
+            return False
         step = _nice_step(length / 400)
-        lo, hi = -extent, length + extent
-        lo, hi = math.floor(lo / step) * step, math.ceil(hi / step) * step
+        lo, hi = math.floor(-extent / step) * step, math.ceil((length + extent) / step) * step
         self._quiet = True
         try:
             slider = self.position
-            if hi > slider.min:
-                slider.max = hi
-                slider.min = lo
+            if hi > slider.min:  # keep min <= max at every moment
+                slider.max, slider.min = hi, lo
             else:
-                slider.min = lo
-                slider.max = hi
+                slider.min, slider.max = lo, hi
             slider.step = step
-            if not lo <= slider.value <= hi:
-                slider.value = min(max(slider.value, lo), hi)
+            slider.value = min(max(slider.value, lo), hi)
             self.direction.disabled = load is None
         finally:
             self._quiet = False
+        return True
 
     def _on_move(self, change: dict[str, Any]) -> None:
         if self._quiet:
             return
-        self._limit = None
+        self._limit = self._worst = None
         self._update_value()
         self._redraw.request()
 
@@ -333,25 +356,29 @@ class Explorer:
         if line is None:
             return
         x = float(self.position.value)
-        load = self._loads[self.load.value]
+        load = self._travelling[self.load.value]
         try:
             if load is None:
-                value = _one_sided(line, x, self._limit)
-                loading = Loading((Axle(x, 1.0, value),))
+                self.value = _one_sided(line, x, self._limit)
+                self.placement = None
+                loading = Loading((Axle(x, 1.0, self.value),))
             else:
                 from ilkit.loads import stand
 
-                placed = stand(line, load, x, direction=self.direction.value, extreme=self._limit_extreme)
-                value = placed.effect
-                loading = _loading(placed)
+                placed = self._worst or stand(
+                    line, load, x, direction=self.direction.value, spacings=self._spacings
+                )
+                self.value = self._worst_value if self._worst is not None else placed.effect
+                self.placement = placed
+                loading = Loading(
+                    tuple(Axle(a.x, a.load, a.ordinate, a.counted) for a in placed.axles),
+                    tuple((p.start, p.end, p.intensity) for p in placed.patches),
+                )
         except IlkitError as err:
             self._show_message(str(err), error=True)
             return
-        self.value = float(value)
         self._figure.set_loading(loading)
         self._write_readout()
-
-    _limit_extreme: Extreme | None = None
 
     # ----------------------------------------------------------------- worst
     def jump(self, extreme: Extreme) -> None:
@@ -361,27 +388,31 @@ class Explorer:
         line = self.line
         if line is None:
             return
-        load = self._loads[self.load.value]
+        load = self._travelling[self.load.value]
         try:
             if load is None:
                 found = line.maximum if extreme == "max" else line.minimum
-                x, direction, limit = found.x, self.direction.value, found.side
+                front, direction, worst, limit = found.x, self.direction.value, None, found.side
             else:
                 from ilkit.loads import place
 
-                best = place(line, load, extreme, beam=self.beam).placements[0]
-                x, direction, limit = best.axles[0].x, best.direction or self.direction.value, None
+                found = place(line, load, extreme, beam=self.beam)
+                worst = found.placements[0]
+                assert worst.front is not None
+                front, direction, limit = worst.front, worst.direction or self.direction.value, None
+                variable = getattr(load, "is_variable", False)
+                self._spacings = worst.spacings if variable else None
         except IlkitError as err:
             self._show_message(str(err), error=True)
             return
         self._quiet = True
         try:
             self.direction.value = direction
-            self.position.value = min(max(x, self.position.min), self.position.max)
+            self.position.value = min(max(front, self.position.min), self.position.max)
         finally:
             self._quiet = False
-        self._limit = limit
-        self._limit_extreme = extreme if load is not None else None
+        self._limit, self._worst = limit, worst
+        self._worst_value = found.value
         self._show_message("")
         self._update_value()
         self._redraw.request()
@@ -389,7 +420,24 @@ class Explorer:
     # --------------------------------------------------------------- envelope
     def _on_envelope(self, change: dict[str, Any]) -> None:
         self._background_stale = True
+        self._write_readout()
         self._redraw.request()
+
+    def _envelope_of(self, name: str) -> Envelope:
+        if name not in self._envelopes:
+            from ilkit.loads import envelope
+
+            self._envelopes[name] = envelope(self.beam, self._models[name])
+        return self._envelopes[name]
+
+    def _extremes_of(self, name: str) -> Extremes:
+        assert self.line is not None
+        key = (id(self.line), name)
+        if key not in self._extremes:
+            from ilkit.loads import extremes
+
+            self._extremes[key] = extremes(self.line, self._models[name], beam=self.beam)
+        return self._extremes[key]
 
     # -------------------------------------------------------------- read-out
     def _write_readout(self) -> None:
@@ -399,23 +447,47 @@ class Explorer:
         length_unit = f" {line.units.length}" if line.units else ""
         load_name = self.load.value
         where = f"{html.escape(load_name)} at x = {self.position.value:.2f}{length_unit}"
-        if self._limit:
-            where += f" ({'just left of' if self._limit == 'left' else 'just right of'} it)"
-        if self._loads[load_name] is None:
-            unit = line.unit
-            what = "ordinate"
+        rows = []
+        if self.placement is None:
+            unit, what = line.unit, "ordinate"
+            if self._limit:
+                where += f" (just {self._limit} of it)"
         else:
             from ilkit.loads.results import effect_unit
 
-            unit = effect_unit(q, line.units) if line.units else ""
-            what = "effect"
-            where += f", travelling {self.direction.value}"
+            unit, what = effect_unit(q, line.units) if line.units else "", "effect"
+            placed = self.placement
+            if placed.direction:
+                where += f", travelling {placed.direction}"
+            if self._spacings:
+                where += ", spacings " + ", ".join(f"{s:g}" for s in self._spacings) + length_unit
+            if self._worst is not None:
+                off = [str(a.number) for a in placed.axles if not a.counted and 0 <= a.x <= line.length]
+                left_off = f"; axle {', '.join(off)} left off (it would reduce the extreme)" if off else ""
+                rows.append(f"worst placement{left_off}")
         side = f", {q.side} face" if q.side else ""
-        self.readout.value = (
-            f"<div class='ilkit-readout-text'><b>{html.escape(_WORDS[q.kind])}</b> at x = {fmt(q.at)}"
-            f"{html.escape(length_unit)}{side} &nbsp;·&nbsp; {where} &nbsp;·&nbsp; {what} "
+        rows.insert(
+            0,
+            f"<b>{html.escape(_WORDS[q.kind])}</b> at x = {fmt(q.at)}{html.escape(length_unit)}{side}"
+            f" &nbsp;·&nbsp; {where} &nbsp;·&nbsp; {what} "
             f"<b><span class='ilkit-value'>{_number(self.value)}</span> "
-            f"<span class='ilkit-unit'>{html.escape(unit)}</span></b></div>"
+            f"<span class='ilkit-unit'>{html.escape(unit)}</span></b>",
+        )
+        if self.envelope.value and self.model.value is not None:
+            rows.append(self._envelope_row(unit))
+        self.readout.value = "".join(f"<div class='ilkit-readout-text'>{r}</div>" for r in rows)
+
+    def _envelope_row(self, unit: str) -> str:
+        name = self.model.value
+        try:
+            found = self._extremes_of(name)
+        except IlkitError as err:
+            return html.escape(str(err))
+        hi, lo = found.maximum, found.minimum
+        return (
+            f"{html.escape(name)} here: largest <span class='ilkit-envelope-max'>{_number(hi.value)}</span> "
+            f"({html.escape(hi.case)}), smallest <span class='ilkit-envelope-min'>{_number(lo.value)}</span> "
+            f"({html.escape(lo.case)}) {html.escape(hi.unit)}"
         )
 
     def _show_message(self, text: str, *, error: bool = False) -> None:
@@ -438,8 +510,23 @@ class Explorer:
     def _draw_background(self) -> None:
         line = self.line
         assert line is not None
-        title = f"Influence line: {_WORDS[line.quantity.kind]} {line.quantity.label}"
-        self._figure.show_line(line, title=title)
+        q = line.quantity
+        if self.envelope.value and self.model.value is not None:
+            from ilkit.views.moving import ENVELOPE_KINDS
+
+            if q.kind in ENVELOPE_KINDS:
+                try:
+                    found = self._envelope_of(self.model.value)
+                except IlkitError as err:
+                    self._show_message(str(err), error=True)
+                else:
+                    self._figure.show_envelope(found, q.kind, at=float(q.at))
+                    return
+            else:
+                self._show_message(
+                    "Envelopes are drawn for bending moment, shear and reactions; showing the influence line."
+                )
+        self._figure.show_line(line, title=f"Influence line: {_WORDS[q.kind]} {q.label}")
 
     # ----------------------------------------------------------------- helpers
     def _set_quietly(self, control: Any, value: Any) -> None:
@@ -451,19 +538,49 @@ class Explorer:
 
 
 # -------------------------------------------------------------------- helpers
-def _read_loads(loads: Any) -> dict[str, Any]:
-    out: dict[str, Any] = {UNIT_LOAD: None}
+def _read_loads(loads: Any) -> tuple[dict[str, Travelling | None], dict[str, Any]]:
+    """The loads for the slider (unit load first) and the models for the envelope view."""
+    from ilkit.loads import AxleTrain, Combination, KnifeEdge, LoadModel, UniformBlocks, UniformLoad
+
+    travelling: dict[str, Travelling | None] = {UNIT_LOAD: None}
+    models: dict[str, Any] = {}
     if loads is None:
-        return out
+        return travelling, models
     if isinstance(loads, Mapping):
-        items = list(loads.items())
+        items = [(str(k), v) for k, v in loads.items()]
     elif isinstance(loads, Sequence) and not isinstance(loads, (str, bytes)):
         items = [(getattr(m, "name", f"load {k + 1}"), m) for k, m in enumerate(loads)]
     else:
         items = [(getattr(loads, "name", "load"), loads)]
-    for name, model in items:
-        out[str(name)] = model
-    return out
+    moving = (AxleTrain, KnifeEdge, UniformBlocks)
+    for name, item in items:
+        if isinstance(item, moving):
+            travelling[name] = item
+        elif isinstance(item, (Combination, LoadModel)):
+            cases = item.cases if isinstance(item, LoadModel) else (item,)
+            for part in (p for case in cases for p in case.parts if isinstance(p, moving)):
+                travelling.setdefault(f"{name}: {part.name}", part)
+        elif not isinstance(item, UniformLoad):
+            raise LoadInputError(
+                f"loads: {item!r} is not a load; give axle trains, knife-edge loads, blocks, uniform loads, "
+                "combinations or load models from ilkit.loads (e.g. ilkit.loads.hl93()).",
+                field="loads",
+                value=item,
+            )
+        models[name] = item
+    return travelling, models
+
+
+def _train_length(beam: Beam, load: Travelling, spacings: Sequence[float] | None) -> float:
+    from ilkit.errors import UnitsRequiredError
+    from ilkit.loads import train_length
+
+    if beam.units is None:
+        raise UnitsRequiredError(
+            f"{load.name} is given in {load.units.name}, but the beam declares no units; "
+            f"declare them: Beam(..., units={load.units.name!r})."
+        )
+    return train_length(load.converted(beam.units), spacings)
 
 
 def _one_sided(line: InfluenceLine, x: float, side: Literal["left", "right"] | None) -> float:
@@ -472,18 +589,6 @@ def _one_sided(line: InfluenceLine, x: float, side: Literal["left", "right"] | N
     if side == "right":
         return float(line.right(x))
     return float(line(x))
-
-
-def _loading(placed: Any) -> Loading:
-    axles = tuple(Axle(a.x, a.load, a.ordinate, a.counted) for a in placed.axles)
-    patches = tuple((p.start, p.end, p.intensity) for p in placed.patches)
-    return Loading(axles, patches)
-
-
-def _extent(load: Any) -> float:
-    from ilkit.loads import stand
-
-    return float(stand.extent(load))  # type: ignore[attr-defined]
 
 
 def _nice_step(raw: float) -> float:
@@ -504,10 +609,6 @@ def _number(value: float) -> str:
     decimals = min(6, max(0, 4 - math.floor(math.log10(abs(value)))))
     text = f"{value:.{decimals}f}"
     return "0" if float(text) == 0 else text
-
-
-def _text(at: Fraction) -> str:
-    return fmt(at)
 
 
 def _choice_error(field: str, value: object, choices: Sequence[str]) -> IlkitError:
