@@ -14,8 +14,11 @@ from ilkit.errors import (
     IlkitError,
     IndeterminateBeamError,
     MissingDependencyError,
+    NoDerivationError,
     SideRequiredError,
+    UnitsError,
     UnstableBeamError,
+    UnsupportedResultError,
 )
 from ilkit.influence import InfluenceLine, Ordinate, Piece
 from ilkit.model import Beam, Support
@@ -39,6 +42,10 @@ __all__ = [
     "IndeterminateBeamError",
     "SideRequiredError",
     "MissingDependencyError",
+    "UnitsError",
+    "UnsupportedResultError",
+    "NoDerivationError",
+    "views",
     "x",
 ]
 
@@ -50,4 +57,9 @@ def __getattr__(name: str) -> Any:
         from ilkit._symbols import x
 
         return x
+    if name == "views":
+        # drawings, derivations, tables and calculation sheets: loaded on first use
+        import importlib
+
+        return importlib.import_module("ilkit.views")
     raise AttributeError(f"module 'ilkit' has no attribute {name!r}")

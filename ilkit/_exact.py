@@ -60,8 +60,8 @@ def to_exact(value: object, *, field: str) -> Fraction:
     if isinstance(value, numbers.Real) or hasattr(value, "__float__"):
         if _is_quantity(value):
             raise BeamInputError(
-                f"{field}: got the quantity {value!r}; convert it with ilkit.units (or give a plain "
-                "number in the beam's units).",
+                f"{field}: got the quantity {value!r}, but this value takes a plain number; give it in "
+                "the beam's units (value.to(...).magnitude).",
                 field=field,
                 value=value,
             )

@@ -14,6 +14,9 @@ __all__ = [
     "IndeterminateBeamError",
     "SideRequiredError",
     "MissingDependencyError",
+    "UnitsError",
+    "UnsupportedResultError",
+    "NoDerivationError",
 ]
 
 
@@ -62,3 +65,19 @@ class SideRequiredError(IlkitError):
 
 class MissingDependencyError(IlkitError, ImportError):
     """An optional package is needed for this call; the message names the install."""
+
+
+class UnitsError(BeamInputError):
+    """A value's units cannot be used as given: the beam declares no unit system,
+    the dimension is wrong (a force where a length is expected), or the unit has
+    no exact conversion.  The message names the fix.
+    """
+
+
+class UnsupportedResultError(IlkitError, TypeError):
+    """A view (table, display, report) was given an object it does not know how to show."""
+
+
+class NoDerivationError(UnsupportedResultError):
+    """The influence line carries no derivation ilkit can write out (for example a
+    line built by hand, or by an analysis whose derivation is not yet supported)."""
