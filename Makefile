@@ -19,10 +19,10 @@ demo: $(STAMP)
 	$(PY) -m ilkit.demo --out out/demo
 
 lint: $(STAMP)
-	$(PY) -m ruff check ilkit tests benchmarks
+	$(PY) -m ruff check ilkit tests benchmarks tools
 
 test: $(STAMP) lint
-	$(PY) -m pytest --nbval-current-env -p no:cacheprovider
+	$(PY) -m pytest --nbval --nbval-current-env -p no:cacheprovider
 
 bench: $(STAMP)
 	@for f in benchmarks/*.py; do echo "== $$f"; $(PY) $$f || exit 1; done

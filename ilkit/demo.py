@@ -1,0 +1,112 @@
+"""The demo study: run the example notebooks headless and write results a person can open.
+
+``python -m ilkit.demo --out out/demo`` executes every notebook in
+``notebooks/`` (scenarios of our own), and writes to the output folder:
+
+* ``<name>.ipynb``: the executed notebook;
+* ``<name>.html``: the same rendered as a page (figures included, no kernel needed);
+* ``figures/<name>-<k>.png``: every figure;
+* ``index.html``: a page linking all of the above, with the engineering caution.
+
+Needs the ``notebook`` extra (nbclient, nbconvert, matplotlib).
+"""
+
+from __future__ import annotations
+
+import argparse
+import base64
+import html
+import sys
+from pathlib import Path
+
+CAUTION = (
+    "These results come from an aid to calculation. They must be checked by a qualified "
+    "engineer; the local design codes, the licensed current editions of the standards and "
+    "licensed professional practice govern."
+)
+
+
+def _notebooks_folder() -> Path:
+    here = Path(__file__).resolve().parent.parent / "notebooks"
+    if not here.is_dir():
+        raise SystemExit(f"no notebooks folder at {here}; run the demo from a checkout of ilkit")
+    return here
+
+
+def run(out: Path, notebooks: Path | None = None) -> Path:
+    """Execute the notebooks and write the rendered results to ``out``; return the index page."""
+    try:
+        import nbformat
+        from nbclient import NotebookClient
+        from nbconvert import HTMLExporter
+    except ImportError as err:  # pragma: no cover - exercised without the extra only
+        from ilkit.errors import MissingDependencyError
+
+        raise MissingDependencyError(
+            f"the demo needs the notebook extra ({err.name} is missing); run: pip install 'ilkit[notebook]'"
+        ) from err
+
+    source = notebooks or _notebooks_folder()
+    out.mkdir(parents=True, exist_ok=True)
+    figures = out / "figures"
+    figures.mkdir(exist_ok=True)
+    entries = []
+    for path in sorted(source.glob("*.ipynb")):
+        print(f"running {path.name} ...", flush=True)
+        nb = nbformat.read(path, as_version=4)
+        NotebookClient(
+            nb, timeout=900, kernel_name="python3", resources={"metadata": {"path": str(out)}}
+        ).execute()
+        nbformat.write(nb, out / path.name)
+        body, _ = HTMLExporter(template_name="lab").from_notebook_node(nb)
+        (out / f"{path.stem}.html").write_text(body, encoding="utf-8")
+        count = 0
+        for cell in nb.cells:
+            for output in cell.get("outputs", []):
+                data = output.get("data", {})
+                if "image/png" in data:
+                    count += 1
+                    (figures / f"{path.stem}-{count}.png").write_bytes(base64.b64decode(data["image/png"]))
+        title = next(
+            (c.source.lstrip("# ").splitlines()[0] for c in nb.cells if c.cell_type == "markdown"), path.stem
+        )
+        entries.append((path.stem, title, count))
+    for extra in _extra_outputs(out):
+        entries.append(extra)
+    index = out / "index.html"
+    items = "\n".join(
+        f'<li><a href="{html.escape(href)}">{html.escape(title)}</a>'
+        + (f" ({n} figure{'s' if n != 1 else ''} in figures/)" if n else "")
+        + "</li>"
+        for href, title, n in (
+            (e[0] if e[0].endswith((".html", ".md")) else f"{e[0]}.html", e[1], e[2]) for e in entries
+        )
+    )
+    index.write_text(
+        "<!doctype html><html><head><meta charset='utf-8'><title>ilkit demo study</title></head>"
+        "<body style='font-family: sans-serif; max-width: 50em; margin: 2em auto'>"
+        "<h1>ilkit demo study</h1>"
+        f"<p><strong>Caution.</strong> {html.escape(CAUTION)}</p>"
+        f"<ul>{items}</ul></body></html>",
+        encoding="utf-8",
+    )
+    return index
+
+
+def _extra_outputs(out: Path) -> list[tuple[str, str, int]]:
+    """Further demo outputs written by the views layer (calculation sheets), when available."""
+    return []
+
+
+def main(argv: list[str] | None = None) -> int:
+    parser = argparse.ArgumentParser(prog="python -m ilkit.demo", description=__doc__.splitlines()[0])
+    parser.add_argument("--out", type=Path, default=Path("out/demo"), help="output folder (default out/demo)")
+    args = parser.parse_args(argv)
+    index = run(args.out)
+    print(f"\nDemo study written to {args.out.resolve()}")
+    print(f"Open {index.resolve()} in a browser.")
+    return 0
+
+
+if __name__ == "__main__":
+    sys.exit(main())

@@ -1,0 +1,29 @@
+"""The demo runner executes notebooks and writes pages a person can open."""
+
+from __future__ import annotations
+
+import nbformat
+
+from ilkit import demo
+
+
+def test_demo_writes_index_pages_and_figures(tmp_path):
+    folder = tmp_path / "nbs"
+    folder.mkdir()
+    nb = nbformat.v4.new_notebook()
+    nb.cells = [
+        nbformat.v4.new_markdown_cell("# A small study"),
+        nbformat.v4.new_code_cell(
+            "%matplotlib inline\nimport matplotlib.pyplot as plt\nimport ilkit\n"
+            "line = ilkit.Beam(10, {0: 'pin', 10: 'roller'}).moment(4)\n"
+            "plt.plot(*line.sample()); plt.show()\nline(4.0)"
+        ),
+    ]
+    nbformat.write(nb, folder / "small.ipynb")
+    index = demo.run(tmp_path / "out", notebooks=folder)
+    text = index.read_text()
+    assert "small.html" in text and "A small study" in text
+    assert "qualified engineer" in text
+    assert (tmp_path / "out" / "figures" / "small-1.png").stat().st_size > 1000
+    executed = nbformat.read(tmp_path / "out" / "small.ipynb", as_version=4)
+    assert executed.cells[1].outputs[-1]["data"]["text/plain"] == "2.4"
