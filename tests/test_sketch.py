@@ -55,8 +55,10 @@ def test_sketch_labels_shape_and_shading_are_the_core_values(line: InfluenceLine
     expected = {f"ordinate:{ilkit._exact.fmt(x)}:{side}": short(v) for x, side, v in key_ordinates(line)}
     assert labels == expected
     for x, side, value in key_ordinates(line):
-        core = {"left": line.left(x), "right": line.right(x), "both": line(x)}[side]
-        assert value == core
+        exact = line.ordinate_exact(x, None if side == "both" else side)
+        if side == "both" and x == line.breakpoints[-1]:
+            exact = line.ordinate_exact(x, "left")
+        assert value == pytest.approx(float(exact), rel=1e-14, abs=1e-14)
     # the drawn shape passes through the core ordinates at every breakpoint, both faces
     (shape,) = gids(ax, "shape")
     xs, ys = shape.get_xdata(), shape.get_ydata()

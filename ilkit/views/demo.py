@@ -1,10 +1,11 @@
-"""Demo scenario for the calculation sheet (invented numbers, for illustration only).
+"""Demo calculation sheet (a scenario of our own, invented numbers).
 
-A three-span girder of 24 m, 26 m and 24 m in which the outer spans
-cantilever 6 m into the middle span and carry a 14 m suspended span on two
-hinges: a statically determinate girder line that is common in older road
-bridges (common practice).  :func:`write_demo_sheet` writes its calculation
-sheet; the demo runner (``python -m ilkit.demo``) calls it.
+The girder of the notebook ``notebooks/hinged_girder.ipynb``: anchor spans of
+32 m and a 44 m centre span made of two 9 m cantilevers carrying a 26 m
+suspended span on hinges at 41 m and 67 m (kN, m); a statically determinate
+girder line (common practice in older road bridges).  :func:`write_demo_sheet`
+writes its calculation sheet; the demo runner (``python -m ilkit.demo``)
+calls it.
 """
 
 from __future__ import annotations
@@ -19,25 +20,24 @@ __all__ = ["suspended_span_girder", "demo_lines", "write_demo_sheet"]
 
 
 def suspended_span_girder() -> Beam:
-    """The demo girder: supports at 0, 24, 50 and 74 m, hinges at 30 and 44 m (kN, m)."""
+    """The demo girder: supports at 0, 32, 76 and 108 m, hinges at 41 and 67 m (kN, m)."""
     return Beam(
-        length=74,
-        supports={0: "pin", 24: "roller", 50: "roller", 74: "roller"},
-        hinges=[30, 44],
+        length=108,
+        supports={0: "pin", 32: "roller", 76: "roller", 108: "roller"},
+        hinges=[41, 67],
         units="kN-m",
     )
 
 
 def demo_lines(beam: Beam) -> list[InfluenceLine]:
-    """The governing lines of the demo girder: pier reaction, span and pier moments, shears."""
+    """The governing lines of the notebook: pier reaction, pier and span moments, shears."""
     return [
-        beam.reaction(24),
-        beam.moment(12),
-        beam.moment(24),
-        beam.moment(37),
-        beam.shear(24, side="left"),
-        beam.shear(24, side="right"),
-        beam.hinge_shear(30),
+        beam.reaction(32),
+        beam.moment(32),
+        beam.shear(32, side="right"),
+        beam.hinge_shear(41),
+        beam.moment(16),
+        beam.moment(54),
     ]
 
 
@@ -48,7 +48,7 @@ def write_demo_sheet(directory: str | Path) -> CalculationSheet:
         beam,
         Path(directory) / "girder",
         lines=demo_lines(beam),
-        title="Suspended-span girder: influence lines",
-        info={"scenario": "demo data (invented numbers)", "structure": "three spans 24 + 26 + 24 m, "
-              "14 m suspended span on hinges at 30 m and 44 m"},
+        title="Three-span girder with a suspended span: influence lines",
+        info={"scenario": "demo data (invented numbers), as in notebooks/hinged_girder.ipynb",
+              "structure": "spans 32 + 44 + 32 m; 26 m suspended span on hinges at 41 m and 67 m"},
     )
