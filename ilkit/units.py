@@ -23,6 +23,7 @@ from dataclasses import dataclass
 from fractions import Fraction
 from typing import Any, Protocol
 
+from ilkit._exact import is_quantity, to_exact
 from ilkit.errors import BeamInputError, UnitsError
 
 __all__ = [
@@ -39,6 +40,7 @@ __all__ = [
     "FLEXURAL_STIFFNESS",
     "LINE_LOAD",
 ]
+
 
 class QuantityLike(Protocol):
     """What ilkit needs of a pint quantity: a magnitude and its units."""
@@ -136,8 +138,7 @@ def _dimension_unit(dims: Dimension, system: UnitSystem) -> str:
     return " * ".join(parts) or "dimensionless"
 
 
-# Exact definitions of the units ilkit converts, per unit of pint's canonical name:
-# (metres per unit, newtons per unit, length exponent, force exponent).
+# Exact definitions of the units ilkit converts, by pint's canonical unit name.
 _STANDARD_GRAVITY = Fraction("9.80665")  # m/s², by definition (CGPM 1901)
 _UNITS: dict[str, tuple[Fraction, int, int]] = {
     # name: (SI factor, length exponent, force exponent); SI = metres and newtons
@@ -159,11 +160,6 @@ _SI_PREFIXES = {"milli": Fraction(1, 1000), "centi": Fraction(1, 100), "kilo": F
                 "mega": Fraction(10**6), "giga": Fraction(10**9)}
 _SI_BASES = ("meter", "newton", "pascal")
 _PINT_NAMES = {"m": "m", "mm": "mm", "ft": "ft", "in": "inch", "kN": "kN", "N": "N", "kip": "kip", "lb": "lbf"}
-
-
-def is_quantity(value: object) -> bool:
-    """True for a pint quantity (recognised without importing pint)."""
-    return hasattr(value, "magnitude") and hasattr(value, "unit_items")
 
 
 def _unit_factor(name: str) -> tuple[Fraction, int, int] | None:
@@ -227,8 +223,6 @@ def magnitude_in(value: object, *, dims: Dimension, system: UnitSystem | None, f
     is taken as already being in the beam's units.  A pint quantity is
     converted with the exact factors of this module.
     """
-    from ilkit._exact import to_exact
-
     if is_quantity(value):
         scale = factor_to(value, dims=dims, system=system, field=field)
         return to_exact(value.magnitude, field=field) * scale  # type: ignore[attr-defined]

@@ -95,7 +95,7 @@ def draw_support(
     from matplotlib.patches import Circle, Polygon, Rectangle
 
     trans = point_transform(ax, x, y)
-    gid = f"support:{kind}:{fmt(Fraction(repr(float(x))))}"
+    gid = f"support:{kind}:{fmt(x)}"
     out: list[Artist] = []
     if kind == "pin":
         out.append(_patch(ax, Polygon([(0, 0), (-6, -10), (6, -10)], closed=True, facecolor="white",
@@ -128,7 +128,7 @@ def draw_hinge(ax: Axes, x: float, y: float = 0.0, *, gid: str | None = None, co
 
     trans = point_transform(ax, x, y)
     return _patch(ax, Circle((0, 0), 3.2, facecolor="white", edgecolor=color, linewidth=1.0, transform=trans,
-                             zorder=6), gid or f"hinge:{fmt(Fraction(repr(float(x))))}")
+                             zorder=6), gid or f"hinge:{fmt(x)}")
 
 
 def draw_shear_release(
@@ -138,7 +138,7 @@ def draw_shear_release(
     from matplotlib.patches import Rectangle
 
     trans = point_transform(ax, x, y)
-    gid = gid or f"shear-release:{fmt(Fraction(repr(float(x))))}"
+    gid = gid or f"shear-release:{fmt(x)}"
     out = [_patch(ax, Rectangle((-2.4, -2.5), 4.8, 5.0, facecolor="white", edgecolor="none", transform=trans,
                                 zorder=5), gid)]
     for bx in (-2.4, 2.4):
@@ -154,7 +154,7 @@ def draw_spring(
     import numpy as np
 
     trans = point_transform(ax, x, y)
-    gid = f"spring:{kind}:{fmt(Fraction(repr(float(x))))}"
+    gid = f"spring:{kind}:{fmt(x)}"
     if kind == "vertical":
         ys = [0.0, -3.0] + [-3.0 - 1.6 * i for i in range(1, 8)] + [-17.0]
         xs = [0.0, 0.0] + [(-4.0 if i % 2 else 4.0) if i < 7 else 0.0 for i in range(1, 8)] + [0.0]

@@ -99,8 +99,6 @@ def _draw_release(ax: Axes, line: InfluenceLine, mech: Mechanism, at: float) -> 
         _arrow(ax, (at, 0.0), (at, float(line(at))))
         _note(ax, (at, float(line(at)) / 2), "1", 5, 0)
     elif q.kind == "moment_reaction":
-        beam = mech.beam
-        assert beam is not None
         for artist in draw_support(ax, at, "pin"):
             artist.set_gid("release")
         from matplotlib.patches import FancyArrowPatch
@@ -118,9 +116,12 @@ def _draw_release(ax: Axes, line: InfluenceLine, mech: Mechanism, at: float) -> 
         draw_hinge(ax, at, y, gid="release")
         _note(ax, (at, y), "kink 1 rad", 0, 20, "center")  # a sagging kink points up: room above
     else:  # shear, hinge_shear: the faces slide apart by 1
+        # the faces either side of the section; at an end of the beam the outer face is the end point
         left, right = float(line.left(at)), float(line.right(at))
-        if q.at == mech.parts[0].start or q.at == mech.parts[-1].end:
-            left = right = float(line(at))
+        if at == line.breakpoints[0]:
+            left, right = 0.0, float(line(at))
+        elif at == line.breakpoints[-1]:
+            left, right = float(line.left(at)), 0.0
         if q.kind == "hinge_shear":
             draw_hinge(ax, at, left, gid="release")
             draw_hinge(ax, at, right, gid="release")

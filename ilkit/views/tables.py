@@ -94,11 +94,15 @@ def _cell(value: Any, digits: int) -> str:
     return str(value)
 
 
+def _align(frame: pd.DataFrame) -> str:
+    """Numbers right, text left."""
+    return "".join("r" if frame[c].dtype.kind in "fiu" else "l" for c in frame.columns)
+
+
 def doc_table(frame: pd.DataFrame, digits: int = 4) -> _doc.Table:
     """A DataFrame as a document table (numbers to ``digits`` significant figures)."""
-    align = "".join("r" if frame[c].dtype.kind in "fiu" else "l" for c in frame.columns)
     rows = tuple(tuple(_cell(v, digits) for v in row) for row in frame.itertuples(index=False))
-    return _doc.Table(tuple(str(c) for c in frame.columns), rows, align)
+    return _doc.Table(tuple(str(c) for c in frame.columns), rows, _align(frame))
 
 
 def to_csv(obj: object, path: str | Path) -> Path:
@@ -166,9 +170,8 @@ def to_latex(
     tabular is wrapped in a ``table`` float.  Needs ``\\usepackage{booktabs}``.
     """
     frame = table(obj)
-    align = "".join("r" if frame[c].dtype.kind in "fiu" else "l" for c in frame.columns)
     lines = [
-        rf"\begin{{tabular}}{{{align}}}",
+        rf"\begin{{tabular}}{{{_align(frame)}}}",
         r"\toprule",
         " & ".join(_latex_text(str(c)) for c in frame.columns) + r" \\",
         r"\midrule",
