@@ -1,8 +1,9 @@
 """ilkit: influence lines for girders in Jupyter notebooks.
 
 Exact (rational, piecewise) influence lines of reactions, shears and moments
-for hinged determinate beams.  Sign conventions are stated in
-:mod:`ilkit.model`.
+for hinged determinate beams; piecewise-cubic lines (float, or exact on
+request) for continuous beams, elastic supports, varying stiffness,
+deflections and rotations.  Sign conventions are stated in :mod:`ilkit.model`.
 """
 
 from __future__ import annotations
@@ -12,16 +13,18 @@ from typing import Any
 from ilkit.errors import (
     BeamInputError,
     IlkitError,
+    IllConditionedError,
     IndeterminateBeamError,
     MissingDependencyError,
     NoDerivationError,
     SideRequiredError,
+    StiffnessRequiredError,
     UnitsError,
     UnstableBeamError,
     UnsupportedResultError,
 )
 from ilkit.influence import InfluenceLine, Ordinate, Piece
-from ilkit.model import Beam, Support
+from ilkit.model import Beam, Spring, Support
 from ilkit.quantity import Quantity
 from ilkit.units import SYSTEMS, UnitSystem
 
@@ -30,6 +33,7 @@ __version__ = "0.1.0"
 __all__ = [
     "Beam",
     "Support",
+    "Spring",
     "InfluenceLine",
     "Piece",
     "Ordinate",
@@ -42,6 +46,8 @@ __all__ = [
     "IndeterminateBeamError",
     "SideRequiredError",
     "MissingDependencyError",
+    "IllConditionedError",
+    "StiffnessRequiredError",
     "UnitsError",
     "UnsupportedResultError",
     "NoDerivationError",

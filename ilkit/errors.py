@@ -14,6 +14,8 @@ __all__ = [
     "IndeterminateBeamError",
     "SideRequiredError",
     "MissingDependencyError",
+    "IllConditionedError",
+    "StiffnessRequiredError",
     "UnitsError",
     "UnsupportedResultError",
     "NoDerivationError",
@@ -41,6 +43,14 @@ class BeamInputError(IlkitError):
         self.value = value
 
 
+class StiffnessRequiredError(BeamInputError):
+    """The result needs the flexural stiffness ``EI`` and the beam has none.
+
+    Raised for every line of a statically indeterminate beam and for
+    deflection and rotation lines of any beam; ``field`` is ``"EI"``.
+    """
+
+
 class UnstableBeamError(IlkitError):
     """The beam is a mechanism: some part of it can move with no load resisted.
 
@@ -56,7 +66,12 @@ class UnstableBeamError(IlkitError):
 
 
 class IndeterminateBeamError(IlkitError):
-    """An exact (kinematic) result was asked of a statically indeterminate beam."""
+    """A kinematic (rigid-part) result was asked of a statically indeterminate beam.
+
+    The beam's own methods never raise it: they route indeterminate beams to
+    the stiffness method (and raise :class:`StiffnessRequiredError` when
+    ``EI`` is missing).
+    """
 
 
 class SideRequiredError(IlkitError):
@@ -65,6 +80,27 @@ class SideRequiredError(IlkitError):
 
 class MissingDependencyError(IlkitError, ImportError):
     """An optional package is needed for this call; the message names the install."""
+
+
+class IllConditionedError(IlkitError):
+    """The stiffness system of the beam is too ill-conditioned for float arithmetic.
+
+    Stiffness ratios, span ratios or spring stiffnesses so far apart that
+    double precision cannot resolve them would give ordinates that are mostly
+    rounding noise; ilkit refuses them.
+
+    Attributes
+    ----------
+    condition:
+        Estimated condition number of the (diagonally scaled) stiffness matrix.
+    limit:
+        The largest condition number accepted.
+    """
+
+    def __init__(self, message: str, *, condition: float, limit: float) -> None:
+        super().__init__(message)
+        self.condition = condition
+        self.limit = limit
 
 
 class UnitsError(BeamInputError):

@@ -5,7 +5,10 @@ The beam is cut at its internal releases into rigid parts.  Part ``i`` from
 rotation, so that its upward displacement is ``u(x) = w_i + r_i (x - a_i)``.
 Supports and releases are linear constraints on ``(w_i, r_i)``:
 
-* a support: ``u(s) = 0``; a fixed support also ``u'(s) = 0``;
+* a support: ``u(s) = 0``; a fixed support also ``u'(s) = 0``; a spring
+  support counts as the restraint it makes elastic (for stability, the degree
+  of indeterminacy and the statics of a determinate beam a spring carries load
+  like a support);
 * a hinge at ``h``: ``u`` continuous (slopes free);
 * a shear release at ``h``: slopes equal (``u`` may jump).
 
@@ -33,7 +36,7 @@ from typing import TYPE_CHECKING
 
 from ilkit import _exact
 from ilkit._exact import Row, fmt
-from ilkit.errors import IlkitError, UnstableBeamError
+from ilkit.errors import IlkitError, IndeterminateBeamError, UnstableBeamError
 from ilkit.influence import InfluenceLine
 from ilkit.quantity import Quantity
 
@@ -219,12 +222,12 @@ def _constraints(beam: Beam, quantity: Quantity | None) -> tuple[list[Fraction],
                 Constraint(
                     _slope(part),
                     Fraction(1 if target_r else 0),
-                    f"u'(x={fmt(s.at)}) = {1 if target_r else 0} at the fixed support",
+                    f"u'(x={fmt(s.at)}) = {1 if target_r else 0} at the {s.kind} support",
                 )
             )
             if target_r:
-                release = f"the rotational restraint of the fixed support at x={fmt(s.at)} removed"
-                imposed = f"the fixed support x={fmt(s.at)} is rotated counter-clockwise by 1 rad"
+                release = f"the rotational restraint of the {s.kind} support at x={fmt(s.at)} removed"
+                imposed = f"the {s.kind} support x={fmt(s.at)} is rotated counter-clockwise by 1 rad"
     return bounds, rows, imposed, release
 
 
@@ -313,8 +316,16 @@ def _point_names(beam: Beam) -> dict[Fraction, str]:
 def solve_mechanism(beam: Beam, quantity: Quantity) -> Mechanism:
     """Released beam, imposed unit displacement and the resulting movement of every part.
 
-    Only for determinate beams (``beam.degree == 0``).
+    Only for determinate beams (``beam.degree == 0``); an indeterminate beam
+    raises :class:`IndeterminateBeamError` (its lines come from
+    :mod:`ilkit.stiffness`, which the beam's own methods use).
     """
+    if beam.degree > 0:
+        raise IndeterminateBeamError(
+            f"{quantity.label}: the beam is statically indeterminate (degree {beam.degree}), so it has no "
+            "rigid-part mechanism; ask the beam itself (beam.moment(...), beam.reaction(...)), which uses "
+            "the stiffness method."
+        )
     bounds, constraints, imposed, release = _constraints(beam, quantity)
     nparts = len(bounds) - 1
     n = 2 * nparts

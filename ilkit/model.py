@@ -24,10 +24,10 @@ from collections.abc import Iterable, Mapping
 from dataclasses import dataclass
 from fractions import Fraction
 from functools import cached_property
-from typing import TYPE_CHECKING, Any, Literal, get_args
+from typing import TYPE_CHECKING, Any, Literal
 
 from ilkit._display import RichDisplay
-from ilkit._exact import fmt
+from ilkit._exact import fmt, is_quantity, to_exact
 from ilkit.errors import BeamInputError, SideRequiredError, UnitsError
 from ilkit.quantity import Quantity, QuantityKind, Side
 from ilkit.units import FLEXURAL_STIFFNESS, LENGTH, QuantityLike, UnitSystem, conversion, magnitude_in, unit_system
@@ -36,10 +36,95 @@ if TYPE_CHECKING:  # pragma: no cover
     from ilkit.influence import InfluenceLine
     from ilkit.kinematics import Stability
 
-__all__ = ["Beam", "Support", "SupportKind"]
+__all__ = ["Beam", "Support", "SupportKind", "Spring", "StiffnessRange"]
 
-SupportKind = Literal["fixed", "pin", "roller"]
-SUPPORT_KINDS: tuple[str, ...] = get_args(SupportKind)
+SupportKind = Literal["fixed", "pin", "roller", "spring"]
+SUPPORT_KINDS: tuple[str, ...] = ("fixed", "pin", "roller")
+"""Support kinds that can be named by a string (a spring support is a :class:`Spring`)."""
+
+Number = int | float | str | Fraction | QuantityLike
+"""A number in the beam's units, or (lengths and EI) a pint quantity converted into them."""
+StiffnessRange = tuple[Fraction, Fraction, Fraction]
+"""``(start, end, EI)``: flexural stiffness ``EI`` from ``start`` to ``end``."""
+
+
+@dataclass(frozen=True, init=False)
+class Spring:
+    """An elastic support: a bearing whose vertical restraint, rotational restraint or both yield.
+
+    Parameters
+    ----------
+    vertical:
+        Stiffness of the vertical spring, force per unit settlement (e.g.
+        kN/m), or ``"rigid"`` (the default) for a bearing that does not settle.
+    rotational:
+        Stiffness of the rotational spring, moment per radian (e.g. kN·m/rad),
+        ``"free"`` (the default) for a support free to rotate, or ``"rigid"``
+        for full fixity.
+
+    ``Spring(vertical=5000)`` is an elastic bearing free to rotate;
+    ``Spring(rotational=2e5)`` a pin whose rotation is partly restrained;
+    ``Spring(vertical=5000, rotational="rigid")`` a fixed end that settles.
+    The spring force is the reaction (positive upward), the spring moment the
+    moment reaction (positive counter-clockwise).
+    """
+
+    vertical: Fraction | Literal["rigid"]
+    rotational: Fraction | Literal["rigid", "free"]
+
+    def __init__(
+        self,
+        vertical: Number | Literal["rigid"] = "rigid",
+        rotational: Number | Literal["rigid", "free"] = "free",
+    ) -> None:
+        v = _read_spring_stiffness(vertical, "vertical", ("rigid",))
+        r = _read_spring_stiffness(rotational, "rotational", ("rigid", "free"))
+        if v == "rigid" and r in ("rigid", "free"):
+            plain = "fixed" if r == "rigid" else "pin"
+            raise BeamInputError(
+                f"Spring: vertical={vertical!r}, rotational={rotational!r} has no spring in it; it is a "
+                f"{plain!r} support. Write {plain!r}, or give vertical= or rotational= a stiffness.",
+                field="Spring",
+                value=(vertical, rotational),
+            )
+        object.__setattr__(self, "vertical", v)
+        object.__setattr__(self, "rotational", r)
+
+    def __repr__(self) -> str:
+        args = []
+        if self.vertical != "rigid":
+            args.append(f"vertical={_fmt_stiffness(self.vertical)}")
+        if self.rotational != "free":
+            args.append(f"rotational={_fmt_stiffness(self.rotational)}")
+        return f"Spring({', '.join(args)})"
+
+
+def _fmt_stiffness(value: Fraction | str) -> str:
+    return repr(value) if isinstance(value, str) else fmt(value)
+
+
+def _read_spring_stiffness(value: object, field: str, words: tuple[str, ...]) -> Fraction | Any:
+    if isinstance(value, str) and value.strip().lower() in ("rigid", "free"):
+        word = value.strip().lower()
+        if word not in words:  # vertical="free"
+            raise BeamInputError(
+                f"Spring: {field}={value!r}: a support free to move vertically carries no load; remove "
+                "the support, or give the vertical spring stiffness (force per unit settlement).",
+                field=f"Spring.{field}",
+                value=value,
+            )
+        return word
+    k = to_exact(value, field=f"Spring {field} stiffness")
+    if k <= 0:
+        unit = "force per unit settlement" if field == "vertical" else "moment per radian"
+        default = "'rigid'" if field == "vertical" else "'free'"
+        raise BeamInputError(
+            f"Spring: {field} stiffness must be greater than 0, got {value!r}; give it in {unit} of the "
+            f"beam's units, or leave it out ({default}).",
+            field=f"Spring.{field}",
+            value=value,
+        )
+    return k
 
 
 @dataclass(frozen=True)
@@ -48,20 +133,39 @@ class Support:
 
     ``"pin"`` and ``"roller"`` both restrain vertical movement (for the
     vertical loads ilkit deals with they act alike: common practice);
-    ``"fixed"`` also restrains rotation.
+    ``"fixed"`` also restrains rotation; ``"spring"`` is an elastic support
+    described by ``spring``.
     """
 
     at: Fraction
     kind: SupportKind
+    spring: Spring | None = None
 
     @property
     def restrains_rotation(self) -> bool:
-        """True for a fixed support."""
+        """True for a fixed support and for a support with a rotational spring or fixity."""
+        if self.spring is not None:
+            return self.spring.rotational != "free"
         return self.kind == "fixed"
 
+    @property
+    def vertical_stiffness(self) -> Fraction | None:
+        """Stiffness of a vertical spring; ``None`` for a rigid bearing."""
+        if self.spring is None or self.spring.vertical == "rigid":
+            return None
+        return self.spring.vertical
 
-Number = int | float | str | Fraction | QuantityLike
-"""A number in the beam's units, or a pint quantity converted into them."""
+    @property
+    def rotational_stiffness(self) -> Fraction | None:
+        """Stiffness of a rotational spring; ``None`` when rotation is free or fully fixed."""
+        if self.spring is None or isinstance(self.spring.rotational, str):
+            return None
+        return self.spring.rotational
+
+    @property
+    def spec(self) -> str | Spring:
+        """The support as the ``supports`` argument of :class:`Beam` takes it."""
+        return self.spring if self.spring is not None else self.kind
 
 
 class Beam(RichDisplay):
@@ -72,8 +176,9 @@ class Beam(RichDisplay):
     length:
         Total length ``L`` (> 0), overhangs included, in the beam's length unit.
     supports:
-        ``{position: kind}`` with kind ``"fixed"``, ``"pin"`` or ``"roller"``;
-        positions within ``0 <= x <= L``.
+        ``{position: kind}`` with kind ``"fixed"``, ``"pin"``, ``"roller"`` or
+        an elastic support :class:`Spring` (``Spring(vertical=k)``,
+        ``Spring(rotational=k)``); positions within ``0 <= x <= L``.
     hinges:
         Positions of internal moment releases (the hinge passes shear, no
         moment); strictly inside the beam.
@@ -81,17 +186,21 @@ class Beam(RichDisplay):
         Positions of internal shear releases (pass moment, no shear; both sides
         keep equal slopes); strictly inside the beam.
     EI:
-        Flexural stiffness (force x length²); needed for deflections and for
-        indeterminate beams.
+        Flexural stiffness (force x length²); needed for deflections and
+        rotations and for indeterminate beams.  One number for a prismatic
+        beam, or ranges ``[(start, end, EI), ...]`` that cover the beam from 0
+        to ``L`` without gaps or overlaps (haunches, cover plates, cracked
+        zones): the stiffness is constant within each range.
     units:
         Name of a consistent unit system (``"kN-m"``, ``"kip-ft"``, see
         :data:`ilkit.units.SYSTEMS`) or ``None``.
 
     Numbers given as ints, fractions or decimal strings stay exact; floats are
     taken by their decimal text (``12.5`` is 25/2).  With pint installed,
-    lengths and ``EI`` may be pint quantities (``30 * ureg.ft``): they are
-    converted exactly into the declared ``units``; a quantity on a beam
-    without ``units`` is a :class:`~ilkit.UnitsError`.  Plain numbers are
+    lengths (length, positions, EI ranges) and ``EI`` may be pint quantities
+    (``30 * ureg.ft``): they are converted exactly into the declared
+    ``units``; a quantity on a beam without ``units`` is a
+    :class:`~ilkit.UnitsError`.  Plain numbers (and spring stiffnesses) are
     always taken in the declared units.
     """
 
@@ -116,7 +225,7 @@ class Beam(RichDisplay):
         hinge_list = _read_releases(hinges, L, "hinges", support_list, system)
         shear_list = _read_releases(shear_releases, L, "shear_releases", support_list, system)
         _check_release_overlap(hinge_list, shear_list, support_list)
-        ei = _read_ei(EI, system)
+        ei = _read_ei(EI, L, system)
 
         object.__setattr__(self, "_length", L)
         object.__setattr__(self, "_supports", tuple(support_list))
@@ -125,6 +234,7 @@ class Beam(RichDisplay):
         object.__setattr__(self, "_EI", ei)
         object.__setattr__(self, "_units", system)
         object.__setattr__(self, "_lines", {})
+        object.__setattr__(self, "_models", {})  # stiffness models (float, exact), see ilkit.stiffness
         self.stability.raise_if_unstable()
 
     # ---------------------------------------------------------------- immutability
@@ -143,7 +253,7 @@ class Beam(RichDisplay):
         """
         args: dict[str, Any] = {
             "length": self._length,
-            "supports": {s.at: s.kind for s in self._supports},
+            "supports": {s.at: s.spec for s in self._supports},
             "hinges": self._hinges,
             "shear_releases": self._shear_releases,
             "EI": self._EI,
@@ -172,7 +282,8 @@ class Beam(RichDisplay):
         """The same beam with every number converted exactly into another unit system.
 
         Lengths scale by the ratio of the length units, ``EI`` by
-        force x length².  The beam must declare its units.
+        force x length², vertical springs by force / length, rotational
+        springs by force x length.  The beam must declare its units.
         """
         target = unit_system(units)
         if self.units is None or target is None:
@@ -183,12 +294,22 @@ class Beam(RichDisplay):
                 value=units,
             )
         length, force = conversion(self.units, target)
+
+        def spec(s: Support) -> str | Spring:
+            if s.spring is None:
+                return s.kind
+            v, r = s.spring.vertical, s.spring.rotational
+            return Spring(
+                vertical=v if isinstance(v, str) else v * force / length,
+                rotational=r if isinstance(r, str) else r * force * length,
+            )
+
         return Beam(
             length=self.length * length,
-            supports={s.at * length: s.kind for s in self.supports},
+            supports={s.at * length: spec(s) for s in self.supports},
             hinges=[h * length for h in self.hinges],
             shear_releases=[h * length for h in self.shear_releases],
-            EI=None if self.EI is None else self.EI * force * length**2,
+            EI=[(a * length, b * length, ei * force * length**2) for a, b, ei in self.EI_ranges] or None,
             units=target,
         )
 
@@ -214,9 +335,20 @@ class Beam(RichDisplay):
         return self._shear_releases  # type: ignore[attr-defined, no-any-return]
 
     @property
-    def EI(self) -> Fraction | None:
-        """Flexural stiffness, or ``None`` when not given."""
+    def EI(self) -> Fraction | tuple[StiffnessRange, ...] | None:
+        """Flexural stiffness: one number for a prismatic beam, ranges ``((start, end, EI), ...)``
+        where it varies, or ``None`` when not given."""
         return self._EI  # type: ignore[attr-defined, no-any-return]
+
+    @property
+    def EI_ranges(self) -> tuple[StiffnessRange, ...]:
+        """Flexural stiffness as ranges ``((start, end, EI), ...)`` covering the beam; empty without EI."""
+        ei = self.EI
+        if ei is None:
+            return ()
+        if isinstance(ei, Fraction):
+            return ((Fraction(0), self.length, ei),)
+        return ei
 
     @property
     def units(self) -> UnitSystem | None:
@@ -260,14 +392,17 @@ class Beam(RichDisplay):
         return self.stability.degree == 0
 
     def __repr__(self) -> str:
-        sup = ", ".join(f"{fmt(s.at)}: {s.kind!r}" for s in self.supports)
+        sup = ", ".join(f"{fmt(s.at)}: {s.spec!r}" for s in self.supports)
         parts = [f"length={fmt(self.length)}", f"supports={{{sup}}}"]
         if self.hinges:
             parts.append(f"hinges=[{', '.join(fmt(h) for h in self.hinges)}]")
         if self.shear_releases:
             parts.append(f"shear_releases=[{', '.join(fmt(h) for h in self.shear_releases)}]")
-        if self.EI is not None:
+        if isinstance(self.EI, Fraction):
             parts.append(f"EI={fmt(self.EI)}")
+        elif self.EI is not None:
+            ranges = ", ".join(f"({fmt(a)}, {fmt(b)}, {fmt(ei)})" for a, b, ei in self.EI)
+            parts.append(f"EI=[{ranges}]")
         if self.units is not None:
             parts.append(f"units={self.units.name!r}")
         return f"Beam({', '.join(parts)})"
@@ -284,26 +419,39 @@ class Beam(RichDisplay):
         return (self.length, self.supports, self.hinges, self.shear_releases, self.EI, self.units)
 
     # ------------------------------------------------------------- influence lines
-    def reaction(self, at: Number) -> InfluenceLine:
-        """Influence line of the vertical reaction (positive upward) of the support at ``at``."""
-        pos = self._support_at(at, "reaction")
-        return self._line("reaction", pos, None)
+    # Every quantity method takes ``exact``: ``exact=True`` asks for the exact
+    # rational line (pieces with Fraction coefficients, ``line.expr`` a sympy
+    # Piecewise with rationals).  Lines of force quantities of determinate
+    # beams are always exact; the others (indeterminate beams, deflections,
+    # rotations) are float lines unless ``exact=True``.  Exact arithmetic is
+    # meant for small beams: its cost grows quickly with the number of spans.
 
-    def moment_reaction(self, at: Number) -> InfluenceLine:
-        """Influence line of the moment reaction (positive counter-clockwise) of the fixed support at ``at``."""
+    def reaction(self, at: Number, *, exact: bool = False) -> InfluenceLine:
+        """Influence line of the vertical reaction (positive upward) of the support at ``at``.
+
+        For a spring support it is the spring force.
+        """
+        pos = self._support_at(at, "reaction")
+        return self._line("reaction", pos, None, exact)
+
+    def moment_reaction(self, at: Number, *, exact: bool = False) -> InfluenceLine:
+        """Influence line of the moment reaction (positive counter-clockwise) of the fixed support at ``at``.
+
+        For a support with a rotational spring it is the spring moment.
+        """
         pos = self._support_at(at, "moment_reaction")
         if not any(s.at == pos and s.restrains_rotation for s in self.supports):
             fixed = [fmt(s.at) for s in self.supports if s.restrains_rotation]
             hint = f"fixed supports are at x={', '.join(fixed)}" if fixed else "this beam has no fixed support"
             raise BeamInputError(
                 f"moment_reaction: the support at x={fmt(pos)} is not fixed ({hint}); "
-                "only a fixed support has a moment reaction.",
+                "only a fixed support (or one with a rotational spring) has a moment reaction.",
                 field="at",
                 value=at,
             )
-        return self._line("moment_reaction", pos, None)
+        return self._line("moment_reaction", pos, None, exact)
 
-    def shear(self, at: Number, side: Side | None = None) -> InfluenceLine:
+    def shear(self, at: Number, side: Side | None = None, *, exact: bool = False) -> InfluenceLine:
         """Influence line of the shear at the section ``at``.
 
         Positive when the forces on the part left of the section add up to an
@@ -313,20 +461,46 @@ class Beam(RichDisplay):
         """
         pos = self._position(at, "shear")
         side = self._side(pos, side, "shear", jumps=self._has_support(pos))
-        return self._line("shear", pos, side)
+        return self._line("shear", pos, side, exact)
 
-    def moment(self, at: Number, side: Side | None = None) -> InfluenceLine:
+    def moment(self, at: Number, side: Side | None = None, *, exact: bool = False) -> InfluenceLine:
         """Influence line of the bending moment (sagging positive) at the section ``at``.
 
-        Identically zero at a hinge.  At an interior fixed support the moment
-        jumps: name the face with ``side``.
+        Identically zero at a hinge.  At an interior support that restrains
+        rotation (fixed, rotational spring) the moment jumps: name the face
+        with ``side``.
         """
         pos = self._position(at, "moment")
         jumps = any(s.at == pos and s.restrains_rotation for s in self.supports)
         side = self._side(pos, side, "moment", jumps=jumps)
-        return self._line("moment", pos, side)
+        return self._line("moment", pos, side, exact)
 
-    def hinge_shear(self, at: Number, side: Side | None = None) -> InfluenceLine:
+    def deflection(self, at: Number, side: Side | None = None, *, exact: bool = False) -> InfluenceLine:
+        """Influence line of the deflection (positive downward) at the point ``at``.
+
+        The ordinate at ``x`` is the deflection at ``at`` caused by a unit
+        downward load at ``x`` (length per unit force); by Maxwell's theorem it
+        is also the deflected shape of the beam under a unit load at ``at``.
+        Needs ``EI``.  At a shear release the deflection jumps: name the face
+        with ``side``.
+        """
+        pos = self._position(at, "deflection")
+        side = self._side(pos, side, "deflection", jumps=pos in self.shear_releases)
+        return self._line("deflection", pos, side, exact)
+
+    def rotation(self, at: Number, side: Side | None = None, *, exact: bool = False) -> InfluenceLine:
+        """Influence line of the rotation (positive clockwise, radians) at the point ``at``.
+
+        The ordinate at ``x`` is the rotation at ``at`` caused by a unit
+        downward load at ``x`` (radians per unit force); it is also the
+        deflected shape under a unit clockwise couple at ``at``.  Needs ``EI``.
+        At a hinge the rotation jumps: name the face with ``side``.
+        """
+        pos = self._position(at, "rotation")
+        side = self._side(pos, side, "rotation", jumps=pos in self.hinges)
+        return self._line("rotation", pos, side, exact)
+
+    def hinge_shear(self, at: Number, side: Side | None = None, *, exact: bool = False) -> InfluenceLine:
         """Influence line of the shear force passed through the hinge at ``at``.
 
         Same sign convention as :meth:`shear`.  Where a support stands under
@@ -342,17 +516,21 @@ class Beam(RichDisplay):
                 value=at,
             )
         side = self._side(pos, side, "hinge_shear", jumps=self._has_support(pos))
-        return self._line("hinge_shear", pos, side)
+        return self._line("hinge_shear", pos, side, exact)
 
     # --------------------------------------------------------------------- helpers
-    def _line(self, kind: QuantityKind, pos: Fraction, side: Side | None) -> InfluenceLine:
-        key = (kind, pos, side)
+    def _line(self, kind: QuantityKind, pos: Fraction, side: Side | None, exact: bool) -> InfluenceLine:
+        if not isinstance(exact, bool):
+            raise BeamInputError(
+                f"exact: give True or False, got {exact!r}.", field="exact", value=exact
+            )
+        key = (kind, pos, side, exact)
         cache: dict[Any, InfluenceLine] = self._lines  # type: ignore[attr-defined]
         line = cache.get(key)
         if line is None:
             from ilkit.analysis import influence_line
 
-            line = influence_line(self, Quantity(kind, pos, side))
+            line = influence_line(self, Quantity(kind, pos, side), exact=exact)
             cache[key] = line
         return line
 
@@ -422,14 +600,22 @@ def _read_supports(
                 field="supports",
                 value=raw_pos,
             )
+        spring: Spring | None = None
         if isinstance(raw_kind, Support):
-            kind = raw_kind.kind
+            kind, spring = raw_kind.kind, raw_kind.spring
+        elif isinstance(raw_kind, Spring):
+            kind, spring = "spring", raw_kind
         elif isinstance(raw_kind, str) and raw_kind.strip().lower() in SUPPORT_KINDS:
             kind = raw_kind.strip().lower()  # type: ignore[assignment]
         else:
+            hint = (
+                "; for an elastic support give ilkit.Spring(vertical=..., rotational=...)"
+                if isinstance(raw_kind, str) and "spring" in raw_kind.lower()
+                else " or an ilkit.Spring(...)"
+            )
             raise BeamInputError(
                 f"supports: unknown support kind {raw_kind!r} at x={fmt(pos)}; "
-                f"choose one of {', '.join(repr(k) for k in SUPPORT_KINDS)}.",
+                f"choose one of {', '.join(repr(k) for k in SUPPORT_KINDS)}{hint}.",
                 field="supports",
                 value=raw_kind,
             )
@@ -440,7 +626,7 @@ def _read_supports(
                 field="supports",
                 value=raw_pos,
             )
-        out[pos] = Support(pos, kind)
+        out[pos] = Support(pos, kind, spring)
     if not out:
         raise BeamInputError(
             "supports: the beam has no support; add some, e.g. {0: 'pin', 20: 'roller'}.",
@@ -520,15 +706,86 @@ def _check_release_overlap(
             )
 
 
-def _read_ei(EI: Number | None, system: UnitSystem | None) -> Fraction | None:
+def _read_ei(EI: object, L: Fraction, system: UnitSystem | None) -> Fraction | tuple[StiffnessRange, ...] | None:
+    """One positive number, or ranges ``(start, end, EI)`` covering ``0..L`` (merged where equal)."""
     if EI is None:
         return None
-    value = magnitude_in(EI, dims=FLEXURAL_STIFFNESS, system=system, field="EI")
-    if value <= 0:
+    if isinstance(EI, Mapping):
         raise BeamInputError(
-            f"EI: flexural stiffness must be greater than 0, got {EI!r}; give E times I in "
-            "force x length² of the beam's units.",
+            "EI: give one number, or a list of ranges [(start, end, EI), ...], e.g. "
+            "[(0, 18, 2.1e6), (18, 22, 3.4e6), (22, 40, 2.1e6)].",
             field="EI",
             value=EI,
+        )
+    if is_quantity(EI) or isinstance(EI, (str, bytes)) or not isinstance(EI, Iterable):
+        return _positive_ei(EI, EI, system)
+    ranges: list[StiffnessRange] = []
+    for item in EI:
+        triple = list(item) if isinstance(item, Iterable) and not isinstance(item, (str, bytes)) else []
+        if len(triple) != 3:
+            raise BeamInputError(
+                f"EI: each range must be (start, end, EI), got {item!r}; e.g. [(0, 18, 2.1e6), (18, 40, 3.4e6)].",
+                field="EI",
+                value=item,
+            )
+        raw_a, raw_b, raw_ei = triple
+        a = magnitude_in(raw_a, dims=LENGTH, system=system, field="EI range start")
+        b = magnitude_in(raw_b, dims=LENGTH, system=system, field="EI range end")
+        if not 0 <= a < b <= L:
+            raise BeamInputError(
+                f"EI: the range ({raw_a!r}, {raw_b!r}) must have 0 <= start < end <= {fmt(L)} "
+                "(the beam's length).",
+                field="EI",
+                value=item,
+            )
+        ranges.append((a, b, _positive_ei(raw_ei, item, system)))
+    if not ranges:
+        raise BeamInputError(
+            "EI: the list of ranges is empty; give [(0, L, EI)] or leave EI out.", field="EI", value=EI
+        )
+    ranges.sort()
+    reach = Fraction(0)
+    for a, b, _ in ranges:
+        if a > reach:
+            raise BeamInputError(
+                f"EI: no stiffness is given from x={fmt(reach)} to x={fmt(a)}; add a range "
+                f"({fmt(reach)}, {fmt(a)}, EI) so that the ranges cover the beam from 0 to {fmt(L)}.",
+                field="EI",
+                value=EI,
+            )
+        if a < reach:
+            raise BeamInputError(
+                f"EI: two ranges overlap from x={fmt(a)} to x={fmt(min(b, reach))}; each point of the "
+                "beam must lie in exactly one range.",
+                field="EI",
+                value=EI,
+            )
+        reach = b
+    if reach != L:
+        raise BeamInputError(
+            f"EI: no stiffness is given from x={fmt(reach)} to x={fmt(L)}; add a range "
+            f"({fmt(reach)}, {fmt(L)}, EI) so that the ranges cover the whole beam.",
+            field="EI",
+            value=EI,
+        )
+    merged: list[StiffnessRange] = [ranges[0]]
+    for a, b, ei in ranges[1:]:
+        if ei == merged[-1][2]:
+            merged[-1] = (merged[-1][0], b, ei)
+        else:
+            merged.append((a, b, ei))
+    if len(merged) == 1:
+        return merged[0][2]
+    return tuple(merged)
+
+
+def _positive_ei(raw: object, given: object, system: UnitSystem | None) -> Fraction:
+    value = magnitude_in(raw, dims=FLEXURAL_STIFFNESS, system=system, field="EI")
+    if value <= 0:
+        raise BeamInputError(
+            f"EI: flexural stiffness must be greater than 0, got {raw!r}; give E times I in "
+            "force x length² of the beam's units.",
+            field="EI",
+            value=given,
         )
     return value

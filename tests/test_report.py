@@ -110,3 +110,15 @@ def test_demo_runner_writes_the_sheet_and_links_it(tmp_path: Path) -> None:
     index = demo.run(tmp_path / "out", notebooks=tmp_path / "no-notebooks")
     assert 'href="girder.html"' in index.read_text(encoding="utf-8")
     assert (tmp_path / "out" / "girder.md").is_file() and (tmp_path / "out" / "girder_figures" / "beam.svg").is_file()
+
+
+def test_sheet_of_a_continuous_beam_explains_the_stiffness_method(tmp_path: Path) -> None:
+    beam = ilkit.Beam(60, {0: "pin", 20: "roller", 40: "roller", 60: "roller"}, EI=2_000_000, units="kN-m")
+    lines = default_lines(beam)
+    assert [line.quantity.label for line in lines][:4] == ["R at x=0", "R at x=20", "R at x=40", "R at x=60"]
+    sheet = write_calculation_sheet(beam, tmp_path / "continuous", lines=lines[:2])
+    markdown = sheet.markdown.read_text(encoding="utf-8")
+    assert "3 (indeterminate)" not in markdown and "2 (indeterminate)" in markdown
+    assert "stiffness method with prismatic beam elements" in markdown and "Müller-Breslau principle (virtual" \
+        not in markdown
+    assert "Nodal displacements" in markdown and "the bearing at x=20 settles by 1" in markdown

@@ -177,3 +177,42 @@ def test_missing_matplotlib_names_the_install(monkeypatch: pytest.MonkeyPatch) -
         draw_beam(girder())
     with pytest.raises(ImportError):  # MissingDependencyError is also an ImportError
         sketch(girder().moment(5))
+
+
+def springs_beam() -> ilkit.Beam:
+    return ilkit.Beam(30, {0: "pin", 15: ilkit.Spring(vertical=5000), 30: ilkit.Spring(rotational=200000)},
+                      EI=100000, units="kN-m")
+
+
+def test_springs_are_drawn_as_springs() -> None:
+    beam = springs_beam()
+    ax = draw_beam(beam)
+    assert gids(ax, "support:pin:0") and gids(ax, "spring:vertical:15") and gids(ax, "spring:rotational:30")
+    assert gids(ax, "support:pin:30")  # the rigid bearing under the rotational spring
+    settling_fixed_end = ilkit.Beam(30, {0: ilkit.Spring(vertical=5000, rotational="rigid"), 30: "roller"}, EI=1)
+    ax = draw_beam(settling_fixed_end)
+    assert gids(ax, "spring:vertical:0") and gids(ax, "support:fixed:0")
+
+
+def test_sketch_of_an_elastic_line_shows_the_unit_action_and_core_values() -> None:
+    line = springs_beam().moment(7.5)
+    ax = sketch(line)
+    labels = {a.get_gid(): a.get_text() for a in gids(ax, "ordinate:")}
+    assert labels == {f"ordinate:{ilkit._exact.fmt(x)}:{side}": short(v) for x, side, v in key_ordinates(line)}
+    assert labels["ordinate:7.5:both"] == short(line(7.5))
+    assert "kink 1 rad" in [a.get_text() for a in gids(ax, "imposed")]
+    assert gids(ax, "spring:vertical:15") and gids(ax, "release")
+    # the shading follows the cubic pieces closely (41 points a piece)
+    (pos,), (neg,) = gids(ax, "positive"), gids(ax, "negative")
+    assert polygon_area(pos) == pytest.approx(line.positive_area, rel=1e-3)
+    assert polygon_area(neg) == pytest.approx(-line.negative_area, rel=1e-3)
+
+
+def test_sketch_of_a_spring_force_and_a_deflection_names_the_unit_action() -> None:
+    beam = springs_beam()
+    ax = sketch(beam.reaction(15))
+    assert [a.get_text() for a in gids(ax, "imposed")] == ["unit force, × k"]
+    assert not any(matplotlib.colors.same_color(a.get_color(), style.MUTED)
+                   for a in gids(ax, "spring:vertical:15"))  # the spring stays: it is not released
+    ax = sketch(beam.deflection(20))
+    assert [a.get_text() for a in gids(ax, "imposed")] == ["unit force"]

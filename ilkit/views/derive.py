@@ -12,6 +12,9 @@ What is written depends on the origin:
   conditions solved (the imposed unit displacement among them), the movement
   of each part, the ordinates at the breakpoints by small-angle geometry and
   the final piecewise expression.
+* :class:`ilkit.stiffness.UnitShape` (indeterminate beams, springs,
+  deflections and rotations; the stiffness method): see
+  :mod:`ilkit.views.derive_elastic`.
 
 Other analyses add their own writer with ``derive_origin.register(TheirOriginType)``:
 a function ``(origin, line) -> Derivation``.  A line whose origin has no writer
@@ -38,7 +41,7 @@ if TYPE_CHECKING:  # pragma: no cover
     from ilkit.influence import InfluenceLine
     from ilkit.quantity import Quantity
 
-__all__ = ["Derivation", "derivation", "derive_origin", "SIGN_CONVENTIONS", "quantity_title"]
+__all__ = ["Derivation", "derivation", "derive_origin", "header", "SIGN_CONVENTIONS", "quantity_title"]
 
 SIGN_CONVENTIONS: dict[str, str] = {
     "reaction": "positive upward",
@@ -226,26 +229,26 @@ def _breakpoint_rows(
     return rows
 
 
+def header(line: InfluenceLine) -> tuple[str, list[Block]]:
+    """The title of a line's derivation and its opening paragraph (quantity, sign convention, units)."""
+    q, units = line.quantity, line.units
+    title = f"Influence line of the {quantity_title(q, units.length if units else '')}"
+    unit_words = f"; positions x in {units.length}, ordinates in {line.unit}" if units else ""
+    sign = Para((
+        f"Sign convention: the {q.words} ",
+        _symbol(q),
+        f" is {SIGN_CONVENTIONS[q.kind]}; the unit load acts downward at x{unit_words}.",
+    ))
+    return title, [Heading(title, 2), sign]
+
+
 @derive_origin.register(Mechanism)
 def _(origin: Mechanism, line: InfluenceLine) -> Derivation:
     q = origin.quantity
-    units = line.units
-    length_unit = units.length if units else ""
-    title = f"Influence line of the {quantity_title(q, length_unit)}"
     parts = [p for p in origin.parts if p.end > p.start]
     length = parts[-1].end
     knots = line.exact_breakpoints or ()
-    blocks: list[Block] = [Heading(title, 2)]
-    unit_words = f"; positions x in {units.length}, ordinates in {line.unit}" if units else ""
-    blocks.append(
-        Para(
-            (
-                f"Sign convention: the {q.words} ",
-                _symbol(q),
-                f" is {SIGN_CONVENTIONS[q.kind]}; the unit load acts downward at x{unit_words}.",
-            )
-        )
-    )
+    title, blocks = header(line)
     blocks.append(
         Para(
             (
@@ -352,3 +355,6 @@ def _(origin: Mechanism, line: InfluenceLine) -> Derivation:
     blocks.append(cases)
     return Derivation(title, tuple(blocks), expression)
 
+
+# the writer for lines of the stiffness method registers itself with derive_origin
+from ilkit.views import derive_elastic  # noqa: E402, F401

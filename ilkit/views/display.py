@@ -7,8 +7,9 @@ short, constructor-like ``repr``.
 
 * a beam: its diagram and a summary (length, spans, overhangs, supports,
   releases, degree of indeterminacy, units);
-* an influence line: its Müller-Breslau sketch (determinate beams) or its
-  plot, and a table of key ordinates, extremes and areas.
+* an influence line: its Müller-Breslau sketch (or its plot, for a line not
+  made from a beam's analysis), and a table of key ordinates, extremes and
+  areas.
 
 Further result types add theirs with ``mimebundle.register(TheirType)``,
 returning ``{"text/html": ...}``.  Without matplotlib the display leaves the
@@ -24,7 +25,6 @@ from typing import TYPE_CHECKING, Any
 from ilkit._exact import fmt
 from ilkit.errors import MissingDependencyError
 from ilkit.influence import InfluenceLine
-from ilkit.kinematics import Mechanism
 from ilkit.model import Beam
 from ilkit.views import _doc, style
 from ilkit.views.derive import SIGN_CONVENTIONS, quantity_title
@@ -62,11 +62,12 @@ def beam_figure(beam: Beam) -> Any:
 
 
 def line_figure(line: InfluenceLine) -> Any:
-    """A new (pyplot-free) figure with the line's sketch (determinate beams) or plot."""
+    """A new (pyplot-free) figure with the line's Müller-Breslau sketch, or its plot for a line not made
+    from a beam's analysis."""
     from ilkit.views.plot import plot_line
     from ilkit.views.sketch import sketch
 
-    drawer = sketch if isinstance(line.origin, Mechanism) and line.origin.beam is not None else plot_line
+    drawer = sketch if getattr(line.origin, "beam", None) is not None else plot_line
     return _figure(lambda ax: drawer(line, ax), 2.6)
 
 

@@ -200,11 +200,27 @@ def _end(beam: Beam, x: Fraction) -> Literal["left", "right"] | None:
 
 
 def draw_structure(ax: Axes, beam: Beam, *, muted: Sequence[Fraction] = ()) -> list[Artist]:
-    """Supports of ``beam`` on its axis (``y = 0``); those at ``muted`` positions in the reference colour."""
+    """Supports of ``beam`` on its axis (``y = 0``); those at ``muted`` positions in the reference colour.
+
+    An elastic support is drawn as what it is made of: a vertical spring (or a
+    pin where the bearing is rigid), and a rotational spring (or a wall or
+    clamp where rotation is fully restrained).
+    """
     out: list[Artist] = []
     for s in beam.supports:
+        x, end = float(s.at), _end(beam, s.at)
         color = style.MUTED if s.at in muted else style.INK
-        out += draw_support(ax, float(s.at), s.kind, end=_end(beam, s.at), color=color)
+        if s.spring is None:
+            out += draw_support(ax, x, s.kind, end=end, color=color)
+            continue
+        if s.vertical_stiffness is not None:
+            out += draw_spring(ax, x, "vertical", color=color)
+        else:
+            out += draw_support(ax, x, "pin", color=color)
+        if s.rotational_stiffness is not None:
+            out += draw_spring(ax, x, "rotational", color=color)
+        elif s.restrains_rotation:
+            out += draw_support(ax, x, "fixed", end=end, color=color)
     return out
 
 

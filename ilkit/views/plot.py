@@ -37,7 +37,8 @@ def key_ordinates(line: InfluenceLine, *, tol: float = 1e-12) -> list[tuple[floa
     """``(x, side, value)`` of the ordinates worth labelling; side is ``left``, ``right`` or ``both``.
 
     Breakpoints where the line is not zero (both faces at a jump; only the
-    face on the beam at its ends), and the extremes inside curved pieces.
+    face on the beam at its ends), and the extremes inside curved pieces
+    (unless a labelled breakpoint is close by).
     Values are the core's (``line.knot_values()``, ``line.maximum``, ``line.minimum``).
     """
     rows = line.knot_values()
@@ -53,8 +54,10 @@ def key_ordinates(line: InfluenceLine, *, tol: float = 1e-12) -> list[tuple[floa
         elif abs(left) > tol * scale:
             out.append((x, "both", left))
     knots = set(line.breakpoints)
+    near = 0.08 * (line.breakpoints[-1] - line.breakpoints[0])  # closer than this to a labelled knot: crowded
     for extreme in (line.maximum, line.minimum):
-        if extreme.x not in knots and abs(extreme.value) > tol * scale:
+        crowded = any(abs(extreme.x - x) < near for x, _, _ in out)
+        if extreme.x not in knots and abs(extreme.value) > tol * scale and not crowded:
             out.append((extreme.x, "both", extreme.value))
     return out
 

@@ -45,6 +45,16 @@ CAUTION = (
 """The caution every calculation sheet carries, at its start and at its end."""
 
 
+_METHODS = {
+    "Mechanism": "Statically determinate beams: the Müller-Breslau principle (virtual work on the beam with the "
+    "restraint of the quantity removed); the conditions of the rigid parts are solved in exact rational "
+    "arithmetic, so the lines are exact and straight between breakpoints.",
+    "UnitShape": "Indeterminate beams, springs, deflections and rotations: the stiffness method with prismatic "
+    "beam elements; the line is the deflected shape under the unit action conjugate to the quantity "
+    "(Müller-Breslau, Maxwell), cubic and exact between the nodes for the nodal displacements found.",
+}
+
+
 @dataclass(frozen=True)
 class CalculationSheet:
     """Paths of a written calculation sheet."""
@@ -84,7 +94,7 @@ def _(line: InfluenceLine, number: str) -> list[Block]:
     steps = [replace(b, level=b.level + 2) if isinstance(b, Heading) else b for b in derived.blocks[1:]]
     return [
         Heading(f"{number} {title}", 3),
-        Figure(style.figure_svg(fig), f"{number}: the released beam in its displaced shape (Müller-Breslau)",
+        Figure(style.figure_svg(fig), f"{number}: the beam displaced by the unit action (Müller-Breslau sketch)",
                f"line-{number.replace('.', '-')}"),
         Table(("key values", ""), tuple(line_facts(line))),
         Para(("Ordinates at the breakpoints (both faces where the line jumps):",)),
@@ -129,14 +139,13 @@ def sheet_blocks(
         blocks.append(Heading("3. Further results", 2))
         for i, result in enumerate(extra, start=1):
             blocks += report_section(result, f"3.{i}")
+    origins = {type(line.origin) for line in chosen}
+    methods = [text for kind, text in _METHODS.items() if kind in {o.__name__ for o in origins}]
     blocks += [
         Heading(f"{4 if extra else 3}. Method and sources", 2),
-        Para((
-            "Influence lines of statically determinate beams by the Müller-Breslau principle (virtual work on "
-            "the beam with the restraint of the quantity removed), the conditions of the rigid parts solved in "
-            f"exact rational arithmetic by ilkit {ilkit.__version__}. Figures and tables show the same values "
-            "as the derivations; tables round them to four significant figures.",
-        )),
+        *(Para((text,)) for text in methods),
+        Para((f"Computed by ilkit {ilkit.__version__}. Figures and tables show the same values as the "
+              "derivations; tables round them to four significant figures.",)),
         Callout(CAUTION, "caution"),
     ]
     return blocks

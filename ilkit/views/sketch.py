@@ -21,6 +21,7 @@ from typing import TYPE_CHECKING
 from ilkit._exact import fmt
 from ilkit.errors import UnsupportedResultError
 from ilkit.kinematics import Mechanism
+from ilkit.stiffness import UnitShape
 from ilkit.views import style
 from ilkit.views.derive import quantity_title
 from ilkit.views.draw import draw_hinge, draw_shear_release, draw_structure, draw_support, point_transform
@@ -30,6 +31,7 @@ if TYPE_CHECKING:  # pragma: no cover
     from matplotlib.axes import Axes
 
     from ilkit.influence import InfluenceLine
+    from ilkit.model import Beam
 
 __all__ = ["sketch"]
 
@@ -45,36 +47,49 @@ def _note(ax: Axes, xy: tuple[float, float], text: str, dx: float, dy: float, ha
                 fontstyle="italic", gid="imposed", annotation_clip=False)
 
 
-def sketch(line: InfluenceLine, ax: Axes | None = None, *, title: str | None = None) -> Axes:
-    """Draw the Müller-Breslau sketch of a determinate beam's influence line; returns the axes.
-
-    Raises :class:`ilkit.UnsupportedResultError` for a line that did not come
-    from the kinematic analysis of a beam (use
-    :func:`ilkit.views.plot_line` for those).
-    """
-    mech = line.origin
-    if not isinstance(mech, Mechanism) or mech.beam is None:
+def _beam_of(line: InfluenceLine) -> Beam:
+    """The beam a sketch can be drawn for: lines of the kinematic or the elastic analysis of a beam."""
+    origin = line.origin
+    beam = origin.beam if isinstance(origin, (Mechanism, UnitShape)) else None
+    if beam is None:
         raise UnsupportedResultError(
-            f"{line.quantity.label}: a Müller-Breslau sketch needs a line from the kinematic analysis of a "
-            "determinate beam (beam.reaction(x), beam.shear(x), beam.moment(x) ...); draw this one with "
-            "ilkit.views.plot_line(line)."
+            f"{line.quantity.label}: a Müller-Breslau sketch needs a line from the analysis of a beam "
+            "(beam.reaction(x), beam.shear(x), beam.moment(x) ...); draw this one with ilkit.views.plot_line(line)."
         )
-    beam, q = mech.beam, mech.quantity
+    return beam
+
+
+def sketch(line: InfluenceLine, ax: Axes | None = None, *, title: str | None = None) -> Axes:
+    """Draw the Müller-Breslau sketch of a beam's influence line; returns the axes.
+
+    For a determinate beam the drawing is the released beam moved by the unit
+    displacement (``line.origin`` a :class:`~ilkit.kinematics.Mechanism`); for
+    an indeterminate one, or a deflection or rotation line, it is the elastic
+    beam's shape under the unit action (``line.origin`` a
+    :class:`~ilkit.stiffness.UnitShape`), drawn with the line's sign (positive
+    up).  Raises :class:`ilkit.UnsupportedResultError` for a line that did not
+    come from the analysis of a beam (use :func:`ilkit.views.plot_line`).
+    """
+    beam = _beam_of(line)
+    q = line.quantity
     at = float(q.at)
     with style.context():
         ax = style.axes(ax, 2.6)
         L = float(beam.length)
         ax.plot([0, L], [0, 0], color=style.MUTED, linewidth=0.8, linestyle=(0, (5, 3)), gid="axis", zorder=2)
         draw_line(ax, line)
-        released = q.at if q.kind in ("reaction", "moment_reaction") else None
-        draw_structure(ax, beam, muted=[released] if released is not None else [])
+        support = q.kind in ("reaction", "moment_reaction")
+        spring = support and any(s.at == q.at and s.spring is not None for s in beam.supports)
+        released = [q.at] if support and not spring else []
+        draw_structure(ax, beam, muted=released)
         for h in beam.hinges:
             if not (h == q.at and q.kind == "hinge_shear"):
                 draw_hinge(ax, float(h), float(line(float(h))))
         for h in beam.shear_releases:
             draw_shear_release(ax, float(h), (float(line.left(float(h))) + float(line.right(float(h)))) / 2)
-        _draw_release(ax, line, mech, at)
-        ys = [v for _, a, b in line.knot_values() for v in (a, b)] + [0.0]
+        if not (isinstance(line.origin, Mechanism) and not line.origin.release):  # nothing to release
+            _draw_release(ax, line, at, spring)
+        ys = [v for _, a, b in line.knot_values() for v in (a, b)] + [0.0, line.maximum.value, line.minimum.value]
         lo, hi = min(ys), max(ys)
         span = (hi - lo) or 1.0
         ax.set_ylim(lo - 0.32 * span, hi + 0.25 * span)
@@ -90,12 +105,16 @@ def sketch(line: InfluenceLine, ax: Axes | None = None, *, title: str | None = N
         return ax
 
 
-def _draw_release(ax: Axes, line: InfluenceLine, mech: Mechanism, at: float) -> None:
+def _draw_release(ax: Axes, line: InfluenceLine, at: float, spring: bool) -> None:
     """The release inserted for the quantity and the unit displacement imposed there."""
-    q = mech.quantity
-    if not mech.release:
-        return
-    if q.kind == "reaction":
+    q = line.quantity
+    # a spring stays in place: its force is k times the movement under a unit action there
+    words = {"deflection": "unit force", "rotation": "unit couple"}.get(q.kind)
+    if spring:
+        words = "unit force, × k" if q.kind == "reaction" else "unit couple, × k"
+    if words is not None:
+        _note(ax, (at, 0.0), words, 6, -16)  # beside the section, below the beam axis
+    elif q.kind == "reaction":
         _arrow(ax, (at, 0.0), (at, float(line(at))))
         _note(ax, (at, float(line(at)) / 2), "1", 5, 0)
     elif q.kind == "moment_reaction":

@@ -25,7 +25,7 @@ from typing import TYPE_CHECKING, Any
 from ilkit._exact import fmt
 from ilkit.errors import MissingDependencyError, UnsupportedResultError
 from ilkit.influence import InfluenceLine
-from ilkit.model import Beam
+from ilkit.model import Beam, Support
 from ilkit.views import _doc
 from ilkit.views.plot import short
 
@@ -57,10 +57,15 @@ def _(beam: Beam) -> pd.DataFrame:
     import pandas as pd
 
     unit = f" [{beam.units.length}]" if beam.units else ""
-    rows = [(float(s.at), f"{s.kind} support") for s in beam.supports]
+    rows = [(float(s.at), _support_words(s)) for s in beam.supports]
     rows += [(float(p), kind) for p, kind in beam.releases]
     rows.sort(key=lambda r: r[0])
     return pd.DataFrame({f"x{unit}": [r[0] for r in rows], "item": [r[1] for r in rows]})
+
+
+def _support_words(support: Support) -> str:
+    """``"pin support"``, or for an elastic support its springs, e.g. ``"spring support, Spring(vertical=5000)"``."""
+    return f"{support.kind} support" if support.spring is None else f"spring support, {support.spring!r}"
 
 
 def beam_facts(beam: Beam) -> list[tuple[str, str]]:
@@ -75,15 +80,23 @@ def beam_facts(beam: Beam) -> list[tuple[str, str]]:
         ("length", f"{fmt(beam.length)}{u}"),
         ("spans", spans),
         ("overhangs", ", ".join(overhangs) or "none"),
-        ("supports", ", ".join(f"{s.kind} at {fmt(s.at)}" for s in beam.supports)),
+        ("supports", ", ".join(f"{s.kind if s.spring is None else repr(s.spring)} at {fmt(s.at)}"
+                               for s in beam.supports)),
         ("hinges", ", ".join(fmt(h) for h in beam.hinges) or "none"),
         ("shear releases", ", ".join(fmt(h) for h in beam.shear_releases) or "none"),
         ("degree of indeterminacy", f"{degree} ({'determinate' if degree == 0 else 'indeterminate'})"),
         ("units", f"{beam.units.name} (lengths in {beam.units.length}, forces in {beam.units.force})"
          if beam.units else "not declared"),
     ]
-    if beam.EI is not None:
-        facts.append(("EI", f"{fmt(beam.EI)} {beam.units.force}·{beam.units.length}²" if beam.units else fmt(beam.EI)))
+    if beam.units is not None and any(s.spring for s in beam.supports):
+        facts.append(("spring units", f"vertical {beam.units.force}/{beam.units.length}, rotational "
+                      f"{beam.units.force}·{beam.units.length}/rad"))
+    ranges = beam.EI_ranges
+    if ranges:
+        ei_unit = f" {beam.units.force}·{beam.units.length}²" if beam.units else ""
+        facts.append(("EI", ", ".join(
+            f"{fmt(ei)}{ei_unit}" + (f" ({fmt(a)} to {fmt(b)})" if len(ranges) > 1 else "") for a, b, ei in ranges
+        )))
     return facts
 
 
