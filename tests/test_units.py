@@ -143,3 +143,19 @@ def test_plain_numbers_still_exact_and_core_imports_without_pint() -> None:
     )
     out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True)
     assert out.stdout.split() == ["25/2", "3"]  # a (L - a) / L = 5 x 7.5 / 12.5 = 3
+
+
+def test_stiffness_ranges_and_springs_convert() -> None:
+    # EI ranges with quantity positions and stiffnesses
+    half, end = Q_(10, "ft"), Q_(20, "ft")
+    beam = ilkit.Beam(end, {0: "pin", end: "roller"},
+                      EI=[(0, half, Q_(1, "kip * ft ** 2")), (half, end, Q_(2, "kip * ft ** 2"))], units="kN-m")
+    assert beam.EI == ((0, 10 * FT, LBF * FT**2), (10 * FT, 20 * FT, 2 * LBF * FT**2))
+    # springs convert with in_units: vertical force/length, rotational force x length
+    metric = ilkit.Beam(10, {0: "pin", 10: ilkit.Spring(vertical=1000, rotational=500)}, EI=100, units="kN-m")
+    us = metric.in_units("kip-ft")
+    spring = us.supports[1].spring
+    assert spring.vertical == 1000 * FT / LBF and spring.rotational == 500 / (LBF * FT)
+    assert us.in_units("kN-m") == metric
+    # the spring's force line is the same number in any system (force per force)
+    assert us.reaction(10 / FT, exact=True).ordinate_exact(5 / FT) == metric.reaction(10, exact=True).ordinate_exact(5)
