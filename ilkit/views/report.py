@@ -31,7 +31,7 @@ from ilkit.model import Beam
 from ilkit.quantity import KINDS
 from ilkit.views import _doc, style
 from ilkit.views._doc import Block, Callout, Figure, Heading, Para, Table
-from ilkit.views.derive import SIGN_CONVENTIONS, derivation, quantity_title
+from ilkit.views.derive import SIGN_CONVENTIONS, derivation
 from ilkit.views.display import beam_figure, line_facts, line_figure
 from ilkit.views.tables import beam_facts, doc_table
 
@@ -87,13 +87,11 @@ def report_section(obj: object, number: str) -> list[Block]:
 
 @report_section.register(InfluenceLine)
 def _(line: InfluenceLine, number: str) -> list[Block]:
-    units = line.units
-    title = "Influence line of the " + quantity_title(line.quantity, units.length if units else "")
     derived = derivation(line)  # raises NoDerivationError for lines it cannot explain
     fig = line_figure(line)
     steps = [replace(b, level=b.level + 2) if isinstance(b, Heading) else b for b in derived.blocks[1:]]
     return [
-        Heading(f"{number} {title}", 3),
+        Heading(f"{number} {derived.title}", 3),
         Figure(style.figure_svg(fig), f"{number}: the beam displaced by the unit action (Müller-Breslau sketch)",
                f"line-{number.replace('.', '-')}"),
         Table(("key values", ""), tuple(line_facts(line))),
@@ -126,8 +124,7 @@ def sheet_blocks(
         Figure(style.figure_svg(beam_figure(beam)), "The beam: supports, releases and spans", "beam"),
         Para(("Sign conventions: x is the position of the travelling unit load from the left end of the beam; "
               "the unit load acts downward. "
-              + " ".join(f"{KINDS[kind][1].capitalize()}: {words}." for kind, words in SIGN_CONVENTIONS.items()
-                         if kind not in ("deflection", "rotation")),)),
+              + " ".join(f"{KINDS[kind][1].capitalize()}: {words}." for kind, words in SIGN_CONVENTIONS.items()),)),
         Heading("2. Influence lines", 2),
     ]
     if not chosen:
