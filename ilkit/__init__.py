@@ -19,10 +19,13 @@ from ilkit.errors import (
     IndeterminateBeamError,
     LoadInputError,
     MissingDependencyError,
+    NoDerivationError,
     SideRequiredError,
     StiffnessRequiredError,
+    UnitsError,
     UnitsRequiredError,
     UnstableBeamError,
+    UnsupportedResultError,
 )
 from ilkit.influence import InfluenceLine, Ordinate, Piece
 from ilkit.loads import (
@@ -82,6 +85,10 @@ __all__ = [
     "Extreme",
     "Extremes",
     "Envelope",
+    "UnitsError",
+    "UnsupportedResultError",
+    "NoDerivationError",
+    "views",
     "x",
 ]
 
@@ -93,4 +100,9 @@ def __getattr__(name: str) -> Any:
         from ilkit._symbols import x
 
         return x
+    if name == "views":
+        # drawings, derivations, tables and calculation sheets: loaded on first use
+        import importlib
+
+        return importlib.import_module("ilkit.views")
     raise AttributeError(f"module 'ilkit' has no attribute {name!r}")

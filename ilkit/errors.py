@@ -18,6 +18,9 @@ __all__ = [
     "StiffnessRequiredError",
     "LoadInputError",
     "UnitsRequiredError",
+    "UnitsError",
+    "UnsupportedResultError",
+    "NoDerivationError",
 ]
 
 
@@ -121,3 +124,17 @@ class LoadInputError(IlkitError):
 
 class UnitsRequiredError(IlkitError):
     """A load with units was applied to a beam (or line) that declares none."""
+class UnitsError(BeamInputError):
+    """A value's units cannot be used as given: the beam declares no unit system,
+    the dimension is wrong (a force where a length is expected), or the unit has
+    no exact conversion.  The message names the fix.
+    """
+
+
+class UnsupportedResultError(IlkitError, TypeError):
+    """A view (table, display, report) was given an object it does not know how to show."""
+
+
+class NoDerivationError(UnsupportedResultError):
+    """The influence line carries no derivation ilkit can write out (for example a
+    line built by hand, or by an analysis whose derivation is not yet supported)."""

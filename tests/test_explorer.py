@@ -241,7 +241,18 @@ def test_display_bundle_carries_a_still_for_pages_without_a_kernel(ex):
     assert bundle["text/plain"] == "<ilkit explorer: M at x=16, unit load at x=0>"
 
 
-def test_slider_steps_redraw_only_the_moving_load(girder):
+@pytest.fixture
+def keep_backend():
+    """Importing ipympl makes it matplotlib's backend: put the one before back for the other tests."""
+    import matplotlib
+    import matplotlib.pyplot as plt
+
+    before = matplotlib.get_backend()
+    yield
+    plt.switch_backend(before)
+
+
+def test_slider_steps_redraw_only_the_moving_load(girder, keep_backend):
     """In place: a step restores the cached background and redraws the load's artists; no full draw."""
     pytest.importorskip("ipympl")
     explorer = Explorer(girder, backend="ipympl")

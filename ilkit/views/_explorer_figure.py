@@ -15,7 +15,11 @@ from typing import TYPE_CHECKING, Any
 
 import numpy as np
 
+from ilkit.views import style
+from ilkit.views.draw import draw_beam
 from ilkit.views.livefigure import Backend, LiveFigure
+from ilkit.views.moving import plot_envelope
+from ilkit.views.plot import plot_line
 
 if TYPE_CHECKING:  # pragma: no cover
     from ilkit.influence import InfluenceLine
@@ -49,8 +53,6 @@ class ExplorerFigure:
     """Beam diagram and influence line (or envelope), with the load drawn in place."""
 
     def __init__(self, beam: Beam, *, backend: Backend | None = None, size: tuple[float, float] = (8.6, 4.9)):
-        style = _style()
-
         self.beam = beam
         self.live = LiveFigure(size, backend=backend)
         fig = self.live.figure
@@ -66,8 +68,6 @@ class ExplorerFigure:
     # -------------------------------------------------------------- background
     def show_line(self, line: InfluenceLine, *, title: str) -> None:
         """Draw the beam and ``line`` as the background (call :meth:`draw` to show it)."""
-        draw_beam, plot_line, style = _drawing()
-
         self._line = line
         self._reset()
         with style.context():
@@ -78,9 +78,6 @@ class ExplorerFigure:
 
     def show_envelope(self, envelope: Any, kind: str, *, at: float) -> None:
         """Draw the beam and the envelope of ``kind`` as the background, the section marked."""
-        from ilkit.views.moving import plot_envelope
-
-        draw_beam, _, style = _drawing()
         self._line = None
         self._reset()
         with style.context():
@@ -96,16 +93,12 @@ class ExplorerFigure:
         self.ax_line.clear()
 
     def _mark_section(self, at: float) -> None:
-        style = _style()
-
         self.ax_line.axvline(at, color=style.MUTED, linewidth=0.8, linestyle=(0, (4, 3)), zorder=0, gid="section")
         for ax in (self.ax_beam, self.ax_line):
             ax.set_xlim(*self._xlim)
 
     def _make_moving(self) -> None:
         from matplotlib.collections import PolyCollection
-
-        style = _style()
 
         ink, muted = style.INK, style.MUTED
         beam, line = self.ax_beam, self.ax_line
@@ -163,7 +156,6 @@ class ExplorerFigure:
     # ------------------------------------------------------------------ showing
     def draw(self) -> None:
         """Full draw (after the background changed)."""
-        style = _style()
         with style.context():
             self.live.draw()
 
@@ -193,19 +185,3 @@ def _area(line: InfluenceLine, start: float, end: float) -> list[tuple[float, fl
     ys = np.asarray(line(xs), dtype=float)
     return [(a, 0.0), *zip(xs.tolist(), ys.tolist()), (b, 0.0)]
 
-
-def _style() -> Any:
-    try:
-        from ilkit.views import style
-    except ImportError:  # until the views work is merged
-        from ilkit.views import _interim as style
-    return style
-
-
-def _drawing() -> tuple[Any, Any, Any]:
-    try:
-        from ilkit.views.draw import draw_beam
-        from ilkit.views.plot import plot_line
-    except ImportError:  # until the views work is merged
-        from ilkit.views._interim import draw_beam, plot_line
-    return draw_beam, plot_line, _style()

@@ -559,7 +559,7 @@ def _read_loads(loads: Any) -> tuple[dict[str, Travelling | None], dict[str, Any
         elif isinstance(item, (Combination, LoadModel)):
             cases = item.cases if isinstance(item, LoadModel) else (item,)
             for part in (p for case in cases for p in case.parts if isinstance(p, moving)):
-                travelling.setdefault(f"{name}: {part.name}", part)
+                travelling.setdefault(name if part.name == name else f"{name}: {part.name}", part)
         elif not isinstance(item, UniformLoad):
             raise LoadInputError(
                 f"loads: {item!r} is not a load; give axle trains, knife-edge loads, blocks, uniform loads, "

@@ -77,7 +77,9 @@ class LiveFigure:
         Pixels per inch of the drawn image.
     backend:
         ``"inline"`` or ``"ipympl"``; ``None`` follows matplotlib's current
-        backend (see :func:`current_backend`).
+        backend (see :func:`current_backend`).  Asking for ``"ipympl"``
+        imports ipympl, which makes it matplotlib's backend (as
+        ``%matplotlib widget`` does).
 
     Use: draw the background on :attr:`figure`, register the artists that move
     with :meth:`animate`, then call :meth:`draw` after a background change and

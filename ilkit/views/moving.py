@@ -13,6 +13,7 @@ from typing import TYPE_CHECKING, Any, Literal
 import numpy as np
 
 from ilkit.errors import BeamInputError
+from ilkit.views import style
 
 if TYPE_CHECKING:  # pragma: no cover
     from matplotlib.axes import Axes
@@ -27,14 +28,6 @@ ENVELOPE_KINDS: dict[str, tuple[str, str]] = {
     "shear": ("V", "shear"),
     "reaction": ("R", "reaction"),
 }
-
-
-def _style() -> Any:
-    try:
-        from ilkit.views import style
-    except ImportError:  # until the views work is merged
-        from ilkit.views import _interim as style
-    return style
 
 
 def plot_envelope(
@@ -57,7 +50,6 @@ def plot_envelope(
             field="kind",
             value=kind,
         )
-    style = _style()
     symbol, words = ENVELOPE_KINDS[kind]
     table = envelope.reactions if kind == "reaction" else envelope.sections
     x_col = next(c for c in table.columns if c.startswith("x"))
