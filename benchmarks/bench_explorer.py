@@ -1,7 +1,8 @@
 """Kernel-side time of one slider step of the explorer.
 
-A three-span continuous girder (32 + 44 + 32 m, our own demo girder) under
-our own five-axle vehicle.  The explorer is driven headless: the load slider
+The three-span continuous girder of ``notebooks/explorer.ipynb`` (28 + 40 +
+28 m, haunched over the piers; our own demo girder) under our own five-axle
+service vehicle.  The explorer is driven headless: the load slider
 is stepped across the girder and back, in both travel directions, for the
 pier moment, a mid-span moment and the shear at a pier, and each step is
 timed from setting ``position.value`` to the figure being ready to send:
@@ -30,12 +31,17 @@ import numpy as np
 import ilkit
 from ilkit.views.explorer import Explorer
 
-GIRDER = ilkit.Beam(108, {0: "pin", 32: "roller", 76: "roller", 108: "roller"}, EI=3.1e6, units="kN-m")
+GIRDER = ilkit.Beam(
+    length=96,
+    supports={0: "pin", 28: "roller", 68: "roller", 96: "roller"},
+    EI=[(0, 24, 4.2e6), (24, 32, 6.3e6), (32, 64, 4.2e6), (64, 72, 6.3e6), (72, 96, 4.2e6)],
+    units="kN-m",
+)
 VEHICLE = ilkit.AxleTrain(
-    [60, 120, 120, 100, 100], [3.6, 1.4, 6.0, 1.4], units="kN-m", name="five-axle vehicle"
+    [60, 110, 110, 95, 95], [3.4, 1.35, 5.8, 1.35], units="kN-m", name="five-axle service vehicle"
 )  # our own vehicle (kN, m), lead axle first
 TARGET_MS = 30.0
-SECTIONS = [("moment", "32"), ("moment", "54"), ("shear", "76")]
+SECTIONS = [("moment", "28"), ("moment", "48"), ("shear", "68")]
 
 
 def timed(control, value) -> float:

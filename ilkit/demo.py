@@ -18,6 +18,7 @@ import base64
 import html
 import sys
 from pathlib import Path
+from typing import Any
 
 CAUTION = (
     "These results come from an aid to calculation. They must be checked by a qualified "
@@ -38,7 +39,6 @@ def run(out: Path, notebooks: Path | None = None) -> Path:
     try:
         import nbformat
         from nbclient import NotebookClient
-        from nbconvert import HTMLExporter
     except ImportError as err:  # pragma: no cover - exercised without the extra only
         from ilkit.errors import MissingDependencyError
 
@@ -58,7 +58,7 @@ def run(out: Path, notebooks: Path | None = None) -> Path:
             nb, timeout=900, kernel_name="python3", resources={"metadata": {"path": str(out)}}
         ).execute()
         nbformat.write(nb, out / path.name)
-        body, _ = HTMLExporter(template_name="lab").from_notebook_node(nb)
+        body, _ = _page_exporter().from_notebook_node(nb)
         (out / f"{path.stem}.html").write_text(body, encoding="utf-8")
         count = 0
         for cell in nb.cells:
@@ -91,6 +91,24 @@ def run(out: Path, notebooks: Path | None = None) -> Path:
         encoding="utf-8",
     )
     return index
+
+
+def _page_exporter() -> Any:
+    """The HTML exporter for pages read without a kernel.
+
+    A widget cannot be driven from such a page, so where an output carries a
+    still image besides its widget view (the influence-line explorer, ipympl
+    figures) the page shows the image; widgets without a still keep their view.
+    """
+    from nbconvert import HTMLExporter
+    from traitlets.config import Config
+
+    widget = "application/vnd.jupyter.widget-view+json"
+    priority = [m for m in HTMLExporter().default_config.NbConvertBase.display_data_priority if m != widget]
+    priority.insert(priority.index("text/plain"), widget)
+    config = Config()
+    config.NbConvertBase.display_data_priority = priority
+    return HTMLExporter(config=config, template_name="lab")
 
 
 def _extra_outputs(out: Path) -> list[tuple[str, str, int]]:

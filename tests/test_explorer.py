@@ -206,6 +206,16 @@ def test_bad_location_is_a_message_not_a_traceback(ex, girder, text, expected):
     assert message(ex) == ""
 
 
+def test_bad_arguments_of_the_constructor_raise(girder):
+    with pytest.raises(ilkit.BeamInputError, match="x=500 is off the beam"):
+        Explorer(girder, at=500, backend="inline")
+    with pytest.raises(ilkit.SideRequiredError):
+        girder.shear(32)
+    explorer = Explorer(girder, quantity="shear", at=32, side="right", backend="inline")
+    assert explorer.line is girder.shear(32, side="right")
+    explorer.close()
+
+
 def test_unknown_quantity_or_backend_is_a_typed_error(girder):
     with pytest.raises(ilkit.IlkitError, match="quantity: 'torque' is not offered; choose one of 'reaction'"):
         Explorer(girder, quantity="torque", backend="inline")
@@ -238,7 +248,13 @@ def test_display_bundle_carries_a_still_for_pages_without_a_kernel(ex):
     bundle = ex._repr_mimebundle_()
     assert "application/vnd.jupyter.widget-view+json" in bundle
     assert bundle["image/png"].startswith("iVBORw0KGgo")  # base64 of the PNG signature
-    assert bundle["text/plain"] == "<ilkit explorer: M at x=16, unit load at x=0>"
+    assert bundle["text/plain"] == "<ilkit explorer: M at x=16, unit load at x=16>"
+
+
+def test_still_is_the_figure_as_it_is_now(ex):
+    ex.position.value = 70.0
+    still = ex.still()
+    assert still.data == ex._figure.live.png() and still.data.startswith(b"\x89PNG")
 
 
 @pytest.fixture

@@ -196,8 +196,11 @@ class Explorer:
         )
         self.widget.add_class("ilkit-explorer")
 
-        self._set_section(at if at is not None else self._default_location(quantity), side)
         self._load_changed()
+        self._set_section(at if at is not None else self._default_location(quantity), side, strict=True)
+        assert self.line is not None
+        self._set_quietly(self.position, float(self.line.quantity.at))  # the unit load starts at the section
+        self._update_value()
         self.quantity.observe(self._on_quantity, "value")
         self.location.observe(self._on_location, "value")
         self.side.observe(self._on_side, "value")
@@ -221,6 +224,13 @@ class Explorer:
     def __repr__(self) -> str:
         line = self.line.quantity.label if self.line is not None else "no line"
         return f"<ilkit explorer: {line}, {self.load.value} at x={self.position.value:.6g}>"
+
+    def still(self) -> Any:
+        """The figure as it is now, as an image for the notebook (e.g. for the calculation record)."""
+        from IPython.display import Image
+
+        self.redraw()
+        return Image(data=self._figure.live.png(), format="png")
 
     def redraw(self) -> None:
         """Draw the figure now (normally done for you, coalesced, right after a change)."""
@@ -266,8 +276,9 @@ class Explorer:
             return
         self._set_section(self.line.quantity.at, change["new"])
 
-    def _set_section(self, raw: Any, side: Literal["left", "right"] | None) -> None:
-        """Take the quantity at ``raw`` (text or number); on a bad entry show why and keep the old line."""
+    def _set_section(self, raw: Any, side: Literal["left", "right"] | None, *, strict: bool = False) -> None:
+        """Take the quantity at ``raw`` (text or number); on a bad entry show why and keep the old line
+        (``strict``: raise the error instead, for the constructor's arguments)."""
         kind = self.quantity.value
         try:
             at = to_exact(raw, field="location")
@@ -286,6 +297,8 @@ class Explorer:
                 needs_side = True
                 line = self.beam.line(kind, at, side=side or self.side.value)
         except IlkitError as err:
+            if strict:
+                raise
             self._show_message(str(err), error=True)
             self._set_quietly(self.location, fmt(self.line.quantity.at) if self.line is not None else "")
             if self.line is not None:
@@ -446,7 +459,11 @@ class Explorer:
         q = line.quantity
         length_unit = f" {line.units.length}" if line.units else ""
         load_name = self.load.value
-        where = f"{html.escape(load_name)} at x = {self.position.value:.2f}{length_unit}"
+        x = float(self.position.value)
+        where = (
+            f"{html.escape(load_name)} at x = "
+            f"<span class='ilkit-at' data-x='{x!r}'>{x:.2f}</span>{html.escape(length_unit)}"
+        )
         rows = []
         if self.placement is None:
             unit, what = line.unit, "ordinate"
@@ -458,7 +475,7 @@ class Explorer:
             unit, what = effect_unit(q, line.units) if line.units else "", "effect"
             placed = self.placement
             if placed.direction:
-                where += f", travelling {placed.direction}"
+                where += f", travelling <span class='ilkit-travel'>{placed.direction}</span>"
             if self._spacings:
                 where += ", spacings " + ", ".join(f"{s:g}" for s in self._spacings) + length_unit
             if self._worst is not None:

@@ -17,8 +17,15 @@ import ilkit
 from .servers import copy_notebooks, jupyter_lab, run_all_cells, voila
 
 NOTEBOOK = "explorer.ipynb"
-# the girder of notebooks/explorer.ipynb (checked against the notebook's source below)
-GIRDER = ilkit.Beam(length=62, supports={0: "pin", 24: "roller", 50: "roller"}, hinges=[30], units="kN-m")
+# the girder and the vehicle of notebooks/explorer.ipynb (checked against the notebook's source below)
+GIRDER = ilkit.Beam(
+    length=96,
+    supports={0: "pin", 28: "roller", 68: "roller", 96: "roller"},
+    EI=[(0, 24, 4.2e6), (24, 32, 6.3e6), (32, 64, 4.2e6), (64, 72, 6.3e6), (72, 96, 4.2e6)],
+    units="kN-m",
+)
+VEHICLE = ilkit.AxleTrain([60, 110, 110, 95, 95], [3.4, 1.35, 5.8, 1.35], units="kN-m")
+SMALL = ilkit.Beam(length=62, supports={0: "pin", 24: "roller", 50: "roller"}, hinges=[30], units="kN-m")
 
 
 def _number(text: str) -> float:
@@ -40,7 +47,7 @@ def _wait_for(read, want: float, timeout: float = 20.0) -> float:
     raise AssertionError(f"the page shows {got}, the core gives {want}")
 
 
-def _settle_figure(page, explorer) -> None:
+def _settle_figure(explorer) -> None:
     """Wait until the figure's image stops changing (the redraw is coalesced and sent after the read-out)."""
     image = explorer.locator("img").first
     last, stable_since = None, time.monotonic()
@@ -55,51 +62,56 @@ def _settle_figure(page, explorer) -> None:
 
 
 def drive_explorer(page, screenshot) -> None:
+    """The notebook leaves the vehicle at x = 45 m travelling left to right, on the moment over pier B."""
     explorer = page.locator(".ilkit-explorer").first
     explorer.wait_for(timeout=60_000)
     explorer.scroll_into_view_if_needed()
     value = explorer.locator(".ilkit-readout .ilkit-value")
-    position = explorer.locator(".ilkit-position .widget-readout")
+    where = explorer.locator(".ilkit-readout .ilkit-at")
     location = explorer.locator(".ilkit-location input")
 
-    # the notebook leaves the explorer on the moment over pier B (x=24), load at its smallest placement
-    start = _number(position.inner_text())
-    line = GIRDER.moment(24)
-    assert start == line.minimum.x
-    _wait_for(value.inner_text, line.minimum.value)
+    def effect(section: float, x: float) -> float:
+        return ilkit.stand(GIRDER.moment(section), VEHICLE, x, direction="left to right").effect
 
-    # move the load with the keyboard: three steps to the right
+    _wait_for(value.inner_text, effect(28, 45.0))
+    assert float(where.get_attribute("data-x")) == 45.0
+
+    # move the vehicle with the keyboard: three steps to the right
     handle = explorer.locator(".ilkit-position .noUi-handle")
     handle.focus()
     for _ in range(3):
         handle.press("ArrowRight")
-    x = _wait_for(position.inner_text, start + 0.3)
-    _wait_for(value.inner_text, float(line(x)))
+    _wait_for(lambda: where.get_attribute("data-x"), 45.6)
+    x = float(where.get_attribute("data-x"))  # the position the kernel used
+    _wait_for(value.inner_text, effect(28, x))
 
     # type another section into the location box
-    location.fill("12")
+    location.fill("48")
     location.press("Enter")
-    _wait_for(value.inner_text, float(GIRDER.moment(12)(x)))
-    assert location.input_value() == "12"
+    _wait_for(value.inner_text, effect(48, x))
+    assert location.input_value() == "48"
 
     # a bad entry is a message in the widget, and the read-out stays
-    location.fill("70")
+    location.fill("120")
     location.press("Enter")
     explorer.locator(".ilkit-message .ilkit-error").wait_for(timeout=20_000)
     assert "off the beam" in explorer.locator(".ilkit-message").inner_text()
+    assert _number(value.inner_text()) == pytest.approx(effect(48, x), rel=1e-4)
     assert page.locator(".jp-RenderedText[data-mime-type='application/vnd.jupyter.stderr']").count() == 0
 
-    _settle_figure(page, explorer)
+    _settle_figure(explorer)
     explorer.screenshot(path=str(screenshot))
 
 
-def test_notebook_defines_the_girder_of_this_test():
+def test_notebook_defines_the_girder_and_vehicle_of_this_test():
     import nbformat
 
     from .servers import ROOT
 
     source = nbformat.read(ROOT / "notebooks" / NOTEBOOK, as_version=4).cells[1].source
-    assert 'supports={0: "pin", 24: "roller", 50: "roller"}' in source and "length=62" in source
+    assert 'supports={0: "pin", 28: "roller", 68: "roller", 96: "roller"}' in source
+    assert "(24, 32, 6.3e6), (32, 64, 4.2e6), (64, 72, 6.3e6)" in source
+    assert "[60, 110, 110, 95, 95], [3.4, 1.35, 5.8, 1.35]" in source
 
 
 def test_explorer_in_jupyterlab(page, tmp_path, artifacts):
@@ -121,7 +133,8 @@ def test_explorer_with_ipympl_updates_the_canvas_in_place(page, tmp_path, artifa
         nbformat.v4.new_code_cell(
             "%matplotlib widget\nimport ilkit\n"
             "girder = ilkit.Beam(length=62, supports={0: 'pin', 24: 'roller', 50: 'roller'}, hinges=[30], "
-            "units='kN-m')\nexplorer = girder.explore(quantity='shear', at=10)\nexplorer"
+            "units='kN-m')\nexplorer = girder.explore(quantity='shear', at=10)\nexplorer.position.value = 0.0\n"
+            "explorer"
         )
     ]
     nbformat.write(nb, folder / "widget.ipynb")
@@ -146,7 +159,7 @@ def test_explorer_with_ipympl_updates_the_canvas_in_place(page, tmp_path, artifa
         for _ in range(40):
             handle.press("ArrowRight")
         x = _wait_for(explorer.locator(".ilkit-position .widget-readout").inner_text, 4.0)
-        _wait_for(explorer.locator(".ilkit-readout .ilkit-value").inner_text, float(GIRDER.shear(10)(x)))
+        _wait_for(explorer.locator(".ilkit-readout .ilkit-value").inner_text, float(SMALL.shear(10)(x)))
         after = picture()
         assert after != before
         assert explorer.locator(".jupyter-matplotlib").count() == 1  # one canvas, updated in place
