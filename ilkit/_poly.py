@@ -44,8 +44,8 @@ def unit_roots(coefficients: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
     Returns the row index and the root of each.  Quadratics are solved in
     closed form; a cubic is split at the roots of its derivative into
     monotone stretches, and a stretch whose ends differ in sign holds one
-    root, bracketed by bisection and polished by Newton steps kept inside
-    the bracket (to rounding).
+    root, found by Newton steps kept inside a shrinking bracket (bisection
+    where a step would leave it), to rounding.
     """
     n, width = coefficients.shape
     if width <= 1 or n == 0:
@@ -77,19 +77,19 @@ def unit_roots(coefficients: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
     axis_rows, axis_roots = rows[on_axis], lo[on_axis]
     change = np.sign(flo) * np.sign(fhi) < 0
     rows_c, lo, hi, flo, sub = rows[change], lo[change], hi[change], flo[change], sub[change]
-    # bisection to a small bracket, then Newton steps kept inside it
-    for _ in range(10):
-        m = 0.5 * (lo + hi)
-        fm = _polyval(sub, m)
-        same = np.sign(fm) == np.sign(flo)
-        lo, flo, hi = np.where(same, m, lo), np.where(same, fm, flo), np.where(same, hi, m)
+    # Newton steps that stay inside the bracket, bisection otherwise; the bracket shrinks every step
     slope = sub[:, 1:] * np.arange(1, width)[None, :]
     u = 0.5 * (lo + hi)
-    for _ in range(6):
-        d = _polyval(slope, u)
+    done = np.zeros(u.size, dtype=bool)
+    for _ in range(32):
+        fu, du = _polyval(sub, u), _polyval(slope, u)
+        same = np.sign(fu) == np.sign(flo)
+        lo, flo, hi = np.where(same, u, lo), np.where(same, fu, flo), np.where(same, hi, u)
         with np.errstate(divide="ignore", invalid="ignore"):
-            step = np.where(d != 0, _polyval(sub, u) / np.where(d != 0, d, 1.0), 0.0)
-        u = np.clip(u - step, lo, hi)
+            newton = u - fu / du
+        done |= (fu == 0) | (np.abs(newton - u) <= 1e-15)
+        inside = (newton >= lo) & (newton <= hi)
+        u = np.where(done, u, np.where(inside, newton, 0.5 * (lo + hi)))
     return np.concatenate((rows_c, axis_rows)), np.concatenate((u, axis_roots))
 
 

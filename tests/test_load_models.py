@@ -181,6 +181,50 @@ def test_two_truck_rule_for_negative_moment_over_the_pier_by_hand():
     assert found.value < single
 
 
+def test_two_truck_rule_over_the_pier_of_a_real_continuous_girder():
+    # the same hand calculation as above, now on the stiffness solution of two 120 ft spans
+    L = 120
+    beam = ilkit.Beam(2 * L, {0: "pin", L: "roller", 2 * L: "roller"}, EI=1, units="kip-ft")
+    f_fwd, _ = two_span_truck_minimum(L, +1)
+    f_bwd, _ = two_span_truck_minimum(L, -1)
+    hand = 0.9 * (1.33 * float(f_fwd + f_bwd) + 0.64 * float(-sp.Rational(L**2, 8)))
+    found = place(beam.moment(L), hl93(), "min", beam=beam)
+    assert found.case == "90 % (two design trucks + lane)"
+    assert found.value == pytest.approx(hand, rel=1e-9)
+
+
+def test_two_truck_rule_for_the_interior_reaction_of_a_continuous_girder_by_hand():
+    # R_B of two equal spans (handbook closed form x (3L^2 - x^2) / (2L^3), mirrored in span 2) peaks at
+    # the pier, so the two trucks close in on it from both sides until the 50 ft gap binds: the train is
+    # rigid, and its effect is a cubic in the train position between the positions where an axle
+    # crosses the pier.  Its maximum by calculus, for both travel directions:
+    L = 120
+    p = sp.Symbol("p", real=True)
+    x = sp.Symbol("x", real=True)
+    span1 = x * (3 * L**2 - x**2) / (2 * sp.Integer(L) ** 3)
+    span2 = span1.subs(x, 2 * L - x)
+    best = 0.0
+    for loads in ([8, 32, 32, 8, 32, 32], [32, 32, 8, 32, 32, 8]):
+        offsets = [0, 14, 28, 78, 92, 106]
+        crossings = sorted({L - a for a in offsets} | {-106, 2 * L})
+        for lo, hi in zip(crossings[:-1], crossings[1:]):
+            mid = (lo + hi) / 2
+            f = sum(
+                P * (span1 if 0 <= mid + a <= L else span2 if L < mid + a <= 2 * L else sp.Integer(0)).subs(x, p + a)
+                for P, a in zip(loads, offsets)
+            )
+            points = [sp.Integer(lo), sp.Integer(hi)]
+            points += [r for r in sp.solve(sp.diff(f, p), p) if r.is_real and lo <= r <= hi]
+            best = max(best, max(float(f.subs(p, r)) for r in points))
+    lane = 0.64 * 2 * float(sp.integrate(span1, (x, 0, L)))  # = 0.64 x 5L/4
+    hand = 0.9 * (1.33 * best + lane)
+    beam = ilkit.Beam(2 * L, {0: "pin", L: "roller", 2 * L: "roller"}, EI=1, units="kip-ft")
+    found = place(beam.reaction(L), hl93(), beam=beam)
+    assert found.case == "90 % (two design trucks + lane)"
+    assert found.value == pytest.approx(hand, rel=1e-9)
+    assert found.placements[0].spacings[2] == pytest.approx(50.0)
+
+
 def test_two_truck_rule_is_not_used_for_positive_moment_or_end_reactions():
     line = cmoment(120, 48)
     e = extremes(line, hl93())
