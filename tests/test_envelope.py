@@ -139,7 +139,7 @@ def test_extra_sections_and_lookup_of_a_governing_placement(gerber):
     )
     r = env.extreme("reaction", 150, "min")
     assert r.value == env.reactions.set_index("x [ft]").loc[150.0, "R min [kip]"]
-    with pytest.raises(ilkit.IlkitError, match=r"no moment at x=34 in this envelope; it has x = 0, 33\.3, 50, 100, 120"):
+    with pytest.raises(ilkit.IlkitError, match=r"no moment at x=34 in this envelope; it has x = 0, 33\.3, 50, 100"):
         env.extreme("moment", 34)
     with pytest.raises(ilkit.IlkitError, match="'moment', 'shear' or 'reaction'"):
         env.extreme("moments", 50)
