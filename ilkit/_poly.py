@@ -44,8 +44,8 @@ def unit_roots(coefficients: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
     Returns the row index and the root of each.  Quadratics are solved in
     closed form; a cubic is split at the roots of its derivative into
     monotone stretches, and a stretch whose ends differ in sign holds one
-    root, bracketed by bisection and polished by Newton steps kept inside
-    the bracket (to rounding).
+    root, found by Newton steps kept inside a shrinking bracket (bisection
+    where a step would leave it), to rounding.
     """
     n, width = coefficients.shape
     if width <= 1 or n == 0:
@@ -77,35 +77,54 @@ def unit_roots(coefficients: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
     axis_rows, axis_roots = rows[on_axis], lo[on_axis]
     change = np.sign(flo) * np.sign(fhi) < 0
     rows_c, lo, hi, flo, sub = rows[change], lo[change], hi[change], flo[change], sub[change]
-    # bisection to a small bracket, then Newton steps kept inside it
-    for _ in range(10):
-        m = 0.5 * (lo + hi)
-        fm = _polyval(sub, m)
-        same = np.sign(fm) == np.sign(flo)
-        lo, flo, hi = np.where(same, m, lo), np.where(same, fm, flo), np.where(same, hi, m)
+    # Newton steps that stay inside the bracket, bisection otherwise; the bracket shrinks every step
     slope = sub[:, 1:] * np.arange(1, width)[None, :]
     u = 0.5 * (lo + hi)
-    for _ in range(6):
-        d = _polyval(slope, u)
+    done = np.zeros(u.size, dtype=bool)
+    for _ in range(64):
+        if done.all():
+            break
+        fu, du = _polyval(sub, u), _polyval(slope, u)
+        same = np.sign(fu) == np.sign(flo)
+        lo, flo, hi = np.where(same, u, lo), np.where(same, fu, flo), np.where(same, hi, u)
         with np.errstate(divide="ignore", invalid="ignore"):
-            step = np.where(d != 0, _polyval(sub, u) / np.where(d != 0, d, 1.0), 0.0)
-        u = np.clip(u - step, lo, hi)
+            newton = u - fu / du
+        done |= (fu == 0) | (np.abs(newton - u) <= 1e-15) | (hi - lo <= 1e-15)
+        inside = (newton >= lo) & (newton <= hi)
+        u = np.where(done, u, np.where(inside, newton, 0.5 * (lo + hi)))
     return np.concatenate((rows_c, axis_rows)), np.concatenate((u, axis_roots))
+
+
+def _bernstein(n: int) -> np.ndarray:
+    """Matrix taking power coefficients on [0, 1] to Bernstein coefficients (degree n - 1)."""
+    from math import comb
+
+    m = np.zeros((n, n))
+    for i in range(n):
+        for k in range(i + 1):
+            m[i, k] = comb(i, k) / comb(n - 1, k)
+    return m
 
 
 def roots_in_pieces(coefficients: np.ndarray, widths: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
     """Roots ``t`` with ``0 < t < width`` of ``sum c_k t^k``, one polynomial per row.
 
     Returns the row index and the root of each, sorted by row then root.
-    Each row is mapped to ``(-1, 1)`` by ``t = width (1 + u) / 2`` (scaling,
-    then a Taylor shift by 1), solved by :func:`unit_roots`, and mapped back.
+    Rows whose Bernstein coefficients on the piece share one sign cannot
+    cross zero and are skipped.  The others are mapped to ``(-1, 1)`` by
+    ``t = width (1 + u) / 2`` (scaling, then a Taylor shift by 1), solved by
+    :func:`unit_roots`, and mapped back.
     """
-    c = coefficients * (0.5 * widths[:, None]) ** np.arange(coefficients.shape[1])[None, :]
-    n = c.shape[1]
-    for i in range(n - 1):  # Taylor shift by 1: repeated synthetic division
+    n = coefficients.shape[1]
+    scaled = coefficients * widths[:, None] ** np.arange(n)[None, :]  # in s = t / width
+    bernstein = scaled @ _bernstein(n).T
+    mixed = np.nonzero((bernstein.min(axis=1) < 0) & (bernstein.max(axis=1) > 0))[0]
+    c = scaled[mixed] * 0.5 ** np.arange(n)[None, :]  # in v = 2 s
+    for i in range(n - 1):  # Taylor shift by 1 (u = v - 1): repeated synthetic division
         for k in range(n - 2, i - 1, -1):
             c[:, k] += c[:, k + 1]
     rows, u = unit_roots(c)
+    rows = mixed[rows]
     t = 0.5 * widths[rows] * (1.0 + u)
     order = np.lexsort((t, rows))
     return rows[order], t[order]

@@ -28,7 +28,16 @@ class IlkitError(ValueError):
     """Base class of every error ilkit raises on purpose."""
 
 
-class BeamInputError(IlkitError):
+class _InputError(IlkitError):
+    """An input value that cannot be used; ``field`` names the argument, ``value`` holds it as given."""
+
+    def __init__(self, message: str, *, field: str | None = None, value: object = None) -> None:
+        super().__init__(message)
+        self.field = field
+        self.value = value
+
+
+class BeamInputError(_InputError):
     """A beam or a request was described with a value that cannot be used.
 
     Attributes
@@ -38,11 +47,6 @@ class BeamInputError(IlkitError):
     value:
         The offending value as given.
     """
-
-    def __init__(self, message: str, *, field: str | None = None, value: object = None) -> None:
-        super().__init__(message)
-        self.field = field
-        self.value = value
 
 
 class StiffnessRequiredError(BeamInputError):
@@ -105,7 +109,7 @@ class IllConditionedError(IlkitError):
         self.limit = limit
 
 
-class LoadInputError(IlkitError):
+class LoadInputError(_InputError):
     """A load (axle train, uniform load, combination, load model) was described with a value that cannot be used.
 
     Attributes
@@ -115,11 +119,6 @@ class LoadInputError(IlkitError):
     value:
         The offending value as given.
     """
-
-    def __init__(self, message: str, *, field: str | None = None, value: object = None) -> None:
-        super().__init__(message)
-        self.field = field
-        self.value = value
 
 
 class UnitsRequiredError(IlkitError):

@@ -64,11 +64,11 @@ def reaction(L: int | Fraction, support: str, units: str | None = "kip-ft") -> I
     return _line(Quantity("reaction", Fraction(str(at))), [sp.Integer(0), Ls, 2 * Ls], [e1, e2], units)
 
 
-def moment(L: int | Fraction, a: int | Fraction, units: str | None = "kip-ft") -> InfluenceLine:
-    """Bending moment (sagging positive) at section a of two equal continuous spans.
+def _section_line(kind: str, L: int | Fraction, a: int | Fraction, units: str | None) -> InfluenceLine:
+    """Moment or shear at section a from statics of the part left of it.
 
-    Statics on the part left of the section: M(a) = R_A a - (a - x) for a load
-    left of the section, R_A a otherwise (for a >= L, R_B's lever arm adds).
+    M(a) = R_A a + R_B (a - L) [if the section is beyond B] - (a - x) [if the load is left of the section];
+    V(a) = R_A + R_B [if beyond B] - 1 [if the load is left of the section].
     """
     Ls, As = sp.Rational(str(L)), sp.Rational(str(a))
     r = _reactions(Ls)
@@ -76,23 +76,20 @@ def moment(L: int | Fraction, a: int | Fraction, units: str | None = "kip-ft") -
     exprs = []
     for end in knots[1:]:
         span = 0 if end <= Ls else 1
-        m = r["A"][span] * As + (r["B"][span] * (As - Ls) if As > Ls else 0)
-        if end <= As:  # load left of the section
-            m -= As - X
-        exprs.append(m)
-    return _line(Quantity("moment", Fraction(str(a))), knots, exprs, units)
+        ra, rb = r["A"][span], (r["B"][span] if As > Ls else 0)
+        load_left = end <= As
+        if kind == "moment":
+            exprs.append(ra * As + rb * (As - Ls) - (As - X if load_left else 0))
+        else:
+            exprs.append(ra + rb - (1 if load_left else 0))
+    return _line(Quantity(kind, Fraction(str(a))), knots, exprs, units)
+
+
+def moment(L: int | Fraction, a: int | Fraction, units: str | None = "kip-ft") -> InfluenceLine:
+    """Bending moment (sagging positive) at section a of two equal continuous spans."""
+    return _section_line("moment", L, a, units)
 
 
 def shear(L: int | Fraction, a: int | Fraction, units: str | None = "kip-ft") -> InfluenceLine:
     """Shear at section a (0 < a < 2L, a != L) of two equal continuous spans (ilkit sign convention)."""
-    Ls, As = sp.Rational(str(L)), sp.Rational(str(a))
-    r = _reactions(Ls)
-    knots = sorted({sp.Integer(0), Ls, 2 * Ls, As})
-    exprs = []
-    for end in knots[1:]:
-        span = 0 if end <= Ls else 1
-        v = r["A"][span] + (r["B"][span] if As > Ls else 0)
-        if end <= As:
-            v -= 1
-        exprs.append(v)
-    return _line(Quantity("shear", Fraction(str(a))), knots, exprs, units)
+    return _section_line("shear", L, a, units)

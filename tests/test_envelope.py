@@ -11,7 +11,7 @@ import numpy as np
 import pytest
 
 import ilkit
-from ilkit.loads import AxleTrain, UniformLoad, design_truck, envelope, extremes, hl93
+from ilkit.loads import AxleTrain, UniformLoad, design_truck, envelope, extremes, hl93, place
 
 
 @pytest.fixture(scope="module")
@@ -139,8 +139,10 @@ def test_extra_sections_and_lookup_of_a_governing_placement(gerber):
     )
     r = env.extreme("reaction", 150, "min")
     assert r.value == env.reactions.set_index("x [ft]").loc[150.0, "R min [kip]"]
-    with pytest.raises(ilkit.IlkitError, match="no moment at x=34"):
+    with pytest.raises(ilkit.IlkitError, match=r"no moment at x=34 in this envelope; it has x = 0, 33\.3, 50, 100"):
         env.extreme("moment", 34)
+    with pytest.raises(ilkit.IlkitError, match="'moment', 'shear' or 'reaction'"):
+        env.extreme("moments", 50)
     assert "absolute maximum moment" in repr(env)
 
 
@@ -152,3 +154,28 @@ def test_envelope_input_errors(gerber):
         envelope(gerber, train, at=[260])
     with pytest.raises(ilkit.IlkitError, match="expected a load"):
         envelope(gerber, "HL-93")
+
+
+def test_continuous_girder_envelope():
+    # two 120 ft spans from the stiffness solver; the hand values of the two-truck rule are in
+    # tests/test_load_models.py; here: faces at the pier, the pier rows and the absolute maximum
+    L = 120
+    beam = ilkit.Beam(2 * L, {0: "pin", L: "roller", 2 * L: "roller"}, EI=1, units="kip-ft")
+    env = envelope(beam, hl93(), divisions=12)
+    pier = env.sections[np.isclose(env.sections["x [ft]"], L)]
+    assert list(pier["side"]) == ["left", "right"]
+    assert (pier["M min case"] == "90 % (two design trucks + lane)").all()
+    # the moment does not jump over a pin support: both faces carry the same moment envelope
+    assert pier["M min [kip·ft]"].iloc[0] == pier["M min [kip·ft]"].iloc[1]
+    # shear just left and right of the pier differ in sign
+    assert pier["V min [kip]"].iloc[0] < 0 < pier["V max [kip]"].iloc[1]
+    reactions = env.reactions.set_index("x [ft]")
+    assert reactions.loc[float(L), "R max case"] == "90 % (two design trucks + lane)"
+    # symmetry of the girder and of the model (both travel directions)
+    assert reactions.loc[0.0, "R max [kip]"] == pytest.approx(reactions.loc[2.0 * L, "R max [kip]"], rel=1e-12)
+    # the absolute maximum is at least as large as a dense scan of sections near it
+    best = env.absolute_maximum_moment
+    at = float(best.quantity.at)
+    scan = [place(beam.moment(a), hl93(), beam=beam).value for a in np.arange(at - 2, at + 2.01, 0.25)]
+    assert best.value >= max(scan) - 1e-9
+    assert best.value - max(scan) < 1e-3 * best.value

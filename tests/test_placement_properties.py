@@ -25,6 +25,7 @@ import pytest
 from closed_forms import moment as cmoment
 from closed_forms import reaction as creaction
 from closed_forms import shear as cshear
+from continuous_strategies import elastic_beams
 from hypothesis import HealthCheck, assume, given, settings
 from hypothesis import strategies as st
 from strategies import determinate_beams
@@ -65,6 +66,21 @@ def continuous_lines(draw):
 
 
 @st.composite
+def continuous_beam_lines(draw):
+    """Lines of random continuous beams from the stiffness solver (cubic pieces; springs, hinges, varying EI)."""
+    beam = draw(elastic_beams(max_spans=3)).replace(units="kN-m")
+    kind = draw(st.sampled_from(["moment", "shear", "reaction"]))
+    if kind == "reaction":
+        rigid = [s.at for s in beam.supports if s.spring is None]
+        assume(rigid)
+        return beam.reaction(draw(st.sampled_from(rigid)))
+    at = draw(st.integers(min_value=1, max_value=int(4 * beam.length) - 1)) / 4  # on the 0.25 lattice
+    on_support = any(s.at == at for s in beam.supports)
+    side = draw(st.sampled_from(["left", "right"])) if on_support else None
+    return getattr(beam, kind)(at, side=side)
+
+
+@st.composite
 def trains(draw, ranges=True):
     n = draw(st.integers(min_value=1, max_value=5))
     loads = draw(st.lists(st.floats(min_value=1, max_value=50), min_size=n, max_size=n))
@@ -78,18 +94,18 @@ def trains(draw, ranges=True):
 
 
 # ----------------------------------------------------------------- brute force
-def spacing_grid(train):
-    """Every combination of spacings on a 0.125 grid where they vary (the lattice's vertices are on it)."""
-    axes = [np.arange(lo, hi + 1e-9, 0.125) if hi > lo else np.array([lo]) for lo, hi in train.spacings]
+def spacing_grid(train, step=0.125):
+    """Every combination of spacings on a grid where they vary (0.125: the lattice's vertices are on it)."""
+    axes = [np.arange(lo, hi + 1e-9, step) if hi > lo else np.array([lo]) for lo, hi in train.spacings]
     return [np.array(c) for c in itertools.product(*axes)] if axes else [np.zeros(0)]
 
 
-def brute_force(line, train, step=STEP):
+def brute_force(line, train, step=STEP, spacing_step=0.125):
     L = line.length
     best_max, best_min = -np.inf, np.inf
     pos = line.part("positive")
     neg = line.part("negative")
-    for spacings in spacing_grid(train):
+    for spacings in spacing_grid(train, spacing_step):
         offsets = np.concatenate(([0.0], np.cumsum(spacings)))
         length = offsets[-1]
         for orientation in (offsets, length - offsets):  # lead axle left, or lead axle right
@@ -146,6 +162,29 @@ def test_exact_placement_matches_brute_force_on_curved_lines(line, train):
 @given(line=continuous_lines(), train=trains(ranges=True))
 def test_variable_spacing_on_curved_lines(line, train):
     check_against_brute_force(line, train)
+
+
+@SETTINGS
+@given(line=continuous_beam_lines(), train=trains(ranges=True))
+def test_exact_placement_matches_brute_force_on_random_continuous_beams(line, train):
+    check_against_brute_force(line, train)
+
+
+@SETTINGS
+@given(line=st.one_of(beam_lines(), continuous_lines()), loads=st.lists(st.floats(1, 40), min_size=2, max_size=3))
+def test_two_trucks_with_an_open_ended_gap(line, loads):
+    # two identical groups at least 3 apart, any farther: the brute force steps the gap up to the
+    # beam length (beyond it the second group is off the beam whichever the position)
+    n = len(loads)
+    train = AxleTrain(loads + loads, [1.5] * (n - 1) + [(3.0, math.inf)] + [1.5] * (n - 1), units="kN-m")
+    exact = extremes(line, train)
+    length = line.length
+    stepped = AxleTrain(loads + loads, [1.5] * (n - 1) + [(3.0, 3.0 + length + 2)] + [1.5] * (n - 1), units="kN-m")
+    b_max, b_min = brute_force(line, stepped, spacing_step=0.25)
+    tol = lipschitz(line, train) * (STEP + 0.25)
+    assert b_max <= exact.maximum.value + 1e-9 * max(1.0, abs(b_max))
+    assert b_min >= exact.minimum.value - 1e-9 * max(1.0, abs(b_min))
+    assert exact.maximum.value - b_max <= tol and b_min - exact.minimum.value <= tol
 
 
 def test_brute_force_check_can_fail():

@@ -9,7 +9,7 @@ every term is one polynomial, so the extreme is either the value at an event
 (both one-sided limits where the line jumps) or a stationary point inside an
 interval.  The stationary points are found from the derivative, which is
 fitted exactly (it is a polynomial of known degree) at interior Chebyshev
-nodes and solved by bisection on its monotone stretches.  For
+nodes and solved by :func:`ilkit._poly.unit_roots`.  For
 piecewise-linear lines and point loads the derivative is constant between
 events and only events remain: the classic rule that an extreme has a load at
 a breakpoint.  The result is exact to rounding for lines of any degree.

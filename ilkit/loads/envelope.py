@@ -72,11 +72,22 @@ class Envelope:
         extreme: Literal["max", "min"] = "max",
         side: Side | None = None,
     ) -> Extreme:
-        """The governing placement behind one entry of the tables."""
+        """The governing placement behind one entry of the tables.
+
+        ``quantity`` is ``"moment"``, ``"shear"`` or ``"reaction"``; ``at`` a
+        section or support of the tables; ``side`` picks the face where there
+        are two (the left one if not given).
+        """
+        if quantity not in ("moment", "shear", "reaction"):
+            raise LoadInputError(
+                f"extreme: quantity must be 'moment', 'shear' or 'reaction', got {quantity!r}.",
+                field="quantity",
+                value=quantity,
+            )
         pos = to_exact(at, field="at")
         keys = [k for k in self._found if k[0] == quantity and k[1] == pos and (side is None or k[2] == side)]
         if not keys:
-            listed = sorted({fmt(k[1]) for k in self._found if k[0] == quantity})
+            listed = [fmt(p) for p in sorted({k[1] for k in self._found if k[0] == quantity})]
             raise LoadInputError(
                 f"extreme: no {quantity} at x={fmt(pos)}{f' ({side})' if side else ''} in this envelope; "
                 f"it has x = {', '.join(listed[:12])}{' ...' if len(listed) > 12 else ''}.",

@@ -300,22 +300,34 @@ def _sw(name: str, q: float, length: float, gap: float, factor: float) -> LoadMo
     )
 
 
-def sw0(alpha: float = 1.0, *, dynamic_factor: float = 1.0, any_alpha: bool = False) -> LoadModel:
+def sw0(
+    alpha: float = 1.0,
+    *,
+    dynamic_factor: float = 1.0,
+    any_alpha: bool = False,
+    intensity: float = 133.0,
+    length: float = 15.0,
+    gap: float = 5.3,
+) -> LoadModel:
     """EN 1991-2 Load Model SW/0 for one track (6.3.3, Table 6.1, from memory).
 
-    ``alpha`` x 133 kN/m over two lengths of 15.0 m, 5.3 m apart, placed as
-    whole blocks.  ``dynamic_factor``: Φ2 or Φ3.  kN, m.
+    ``alpha`` x ``intensity`` = 133 kN/m over two blocks of ``length`` =
+    15.0 m, ``gap`` = 5.3 m apart, placed as whole blocks.
+    ``dynamic_factor``: Φ2 or Φ3.  kN, m.
     """
-    return _sw("SW/0", _alpha(alpha, any_alpha) * 133.0, 15.0, 5.3, dynamic_factor)
+    return _sw("SW/0", _alpha(alpha, any_alpha) * number(intensity, "intensity"), length, gap, dynamic_factor)
 
 
-def sw2(*, dynamic_factor: float = 1.0) -> LoadModel:
+def sw2(
+    *, dynamic_factor: float = 1.0, intensity: float = 150.0, length: float = 25.0, gap: float = 7.0
+) -> LoadModel:
     """EN 1991-2 Load Model SW/2 for one track (6.3.3, Table 6.1, from memory).
 
-    150 kN/m over two lengths of 25.0 m, 7.0 m apart, placed as whole
-    blocks.  ``dynamic_factor``: Φ2 or Φ3.  kN, m.
+    ``intensity`` = 150 kN/m over two blocks of ``length`` = 25.0 m, ``gap`` =
+    7.0 m apart, placed as whole blocks.  ``dynamic_factor``: Φ2 or Φ3.
+    kN, m.
     """
-    return _sw("SW/2", 150.0, 25.0, 7.0, dynamic_factor)
+    return _sw("SW/2", number(intensity, "intensity"), length, gap, dynamic_factor)
 
 
 def _phi(length: float, a: float, b: float, top: float) -> float:
@@ -359,34 +371,53 @@ def cooper_train(
     *,
     per: Literal["track", "rail"] = "track",
     uniform_breakable: bool = False,
+    axles: tuple[float, ...] = _COOPER_AXLES,
+    spacings: tuple[float, ...] = _COOPER_SPACINGS,
+    between: float = 8.0,
+    uniform: float = 8.0,
+    uniform_clearance: float = 5.0,
 ) -> AxleTrain:
     """AREMA Cooper E-n train (Chapter 15; axle loads as 8 x E10 seen, the sequence from memory).
 
-    Two locomotives, each with axles 40, 80, 80, 80, 80, 52, 52, 52, 52 kip
-    at 8, 5, 5, 5, 9, 5, 6, 5 ft, 8 ft between them, then 5 ft to a trailing
-    uniform load of 8 kip/ft of unlimited length, all for E80 and scaled by
-    n/80.  Per track; ``per="rail"`` halves every load (the Manual's tables
-    are per rail).  The trailing load stands wherever the train puts it;
+    Two locomotives, each with ``axles`` 40, 80, 80, 80, 80, 52, 52, 52, 52
+    kip at ``spacings`` 8, 5, 5, 5, 9, 5, 6, 5 ft, ``between`` = 8 ft between
+    them, then ``uniform_clearance`` = 5 ft to a trailing ``uniform`` load of
+    8 kip/ft of unlimited length, all for E80 and scaled by n/80.  Per track;
+    ``per="rail"`` halves every load (the Manual's tables are per rail).  The
+    trailing load stands wherever the train puts it;
     ``uniform_breakable=True`` applies it only where it adds to the extreme.
     kip, ft.
     """
     scale = number(n, "n") / 80.0 * _per(per)
+    if len(spacings) != len(axles) - 1:
+        raise LoadInputError(
+            f"cooper_train: {len(axles)} axles per locomotive need {len(axles) - 1} spacings, got {len(spacings)}.",
+            field="spacings",
+            value=spacings,
+        )
     return AxleTrain(
-        [scale * v for v in _COOPER_AXLES * 2],
-        [*_COOPER_SPACINGS, 8.0, *_COOPER_SPACINGS],
+        [scale * v for v in (*axles, *axles)],
+        [*spacings, between, *spacings],
         units="kip-ft",
         name=f"Cooper E{fmt(number(n, 'n'))}",
-        behind=TrainUniform(8.0 * scale, 5.0, breakable=uniform_breakable),
+        behind=TrainUniform(number(uniform, "uniform") * scale, uniform_clearance, breakable=uniform_breakable),
     )
 
 
-def alternate_live_load(n: float = 80, *, per: Literal["track", "rail"] = "track") -> AxleTrain:
-    """AREMA alternate live load (Chapter 15, from memory): four 100 kip axles at 5, 6, 5 ft, for E80.
+def alternate_live_load(
+    n: float = 80,
+    *,
+    per: Literal["track", "rail"] = "track",
+    axle: float = 100.0,
+    spacings: tuple[float, ...] = (5.0, 6.0, 5.0),
+) -> AxleTrain:
+    """AREMA alternate live load (Chapter 15, from memory): four ``axle`` = 100 kip axles at 5, 6, 5 ft, for E80.
 
     Scaled by n/80; ``per="rail"`` halves the loads.  kip, ft.
     """
     scale = number(n, "n") / 80.0 * _per(per)
-    return AxleTrain([100.0 * scale] * 4, [5.0, 6.0, 5.0], units="kip-ft", name="alternate live load")
+    loads = [number(axle, "axle") * scale] * (len(spacings) + 1)
+    return AxleTrain(loads, list(spacings), units="kip-ft", name="alternate live load")
 
 
 def cooper(
@@ -398,8 +429,12 @@ def cooper(
 ) -> LoadModel:
     """AREMA Cooper E-n live load (Chapter 15): the worse of the E-n train and the alternate live load.
 
-    ``impact`` is the impact fraction to add to both (compute it from the
-    Manual for the span and the structure type; 0 by default).  kip, ft.
+    The axle loads are seen (8 x E10), the axle sequence and the alternate live
+    load are from memory: see :func:`cooper_train` and
+    :func:`alternate_live_load` to override them and build a
+    :class:`LoadModel` of your own.  ``impact`` is the impact fraction added to
+    both (compute it from the Manual for the span and the structure type; 0
+    by default).  kip, ft.
     """
     train = cooper_train(n, per=per, uniform_breakable=uniform_breakable)
     alternate = alternate_live_load(n, per=per)

@@ -16,6 +16,7 @@ import math
 import numbers
 from collections.abc import Sequence
 from dataclasses import dataclass
+from decimal import Decimal
 from fractions import Fraction
 from pathlib import Path
 from typing import TYPE_CHECKING, Any
@@ -36,6 +37,8 @@ SpacingInput = float | int | str | Fraction | tuple[Any, Any] | list[Any]
 # ------------------------------------------------------------------ helpers
 def number(value: object, what: str, *, minimum: float = 0.0, strict: bool = True, allow_inf: bool = False) -> float:
     """``value`` as a float, checked to be finite and above ``minimum`` (at or above if not ``strict``)."""
+    if isinstance(value, Decimal):
+        value = float(value)
     if isinstance(value, bool) or not isinstance(value, (numbers.Real, str)):
         raise LoadInputError(
             f"{what}: expected a number, got {type(value).__name__} {value!r}.", field=what, value=value
