@@ -133,6 +133,8 @@ class Explorer:
         self._envelopes: dict[str, Envelope] = {}
         self._extremes: dict[tuple[int, str], Extremes] = {}
         self._quiet = False  # set while the explorer itself changes a control
+        self._facts_of: InfluenceLine | None = None
+        self._facts_html = ""
 
         kinds = [k for k in KINDS if self._offers(k)]
         if quantity not in kinds:
@@ -492,7 +494,20 @@ class Explorer:
         )
         if self.envelope.value and self.model.value is not None:
             rows.append(self._envelope_row(unit))
+        rows.append(self._facts(line))
         self.readout.value = "".join(f"<div class='ilkit-readout-text'>{r}</div>" for r in rows)
+
+    def _facts(self, line: InfluenceLine) -> str:
+        """The line's sign convention, extremes and areas (the views' facts of a line), in small print."""
+        if self._facts_of is not line:
+            from ilkit.views.display import line_facts
+
+            facts = line_facts(line)[:5]
+            self._facts_html = "<span style='color:#5a5a5a; font-size:0.9em'>" + " &nbsp;·&nbsp; ".join(
+                html.escape(f"{label} {text}" if label != "sign convention" else text) for label, text in facts
+            ) + "</span>"
+            self._facts_of = line
+        return self._facts_html
 
     def _envelope_row(self, unit: str) -> str:
         name = self.model.value
