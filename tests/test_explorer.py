@@ -446,3 +446,11 @@ def test_a_load_on_a_beam_without_units_is_a_message(girder):
 def test_something_that_is_not_a_load_is_a_typed_error(continuous):
     with pytest.raises(ilkit.LoadInputError, match="loads: 42 is not a load"):
         Explorer(continuous, [42], backend="inline")
+
+
+def test_missing_widgets_package_names_the_install(girder, monkeypatch):
+    import sys
+
+    monkeypatch.setitem(sys.modules, "ipywidgets", None)  # as if ipywidgets were not installed
+    with pytest.raises(ilkit.MissingDependencyError, match=r"pip install 'ilkit\[notebook\]'"):
+        girder.explore()

@@ -14,7 +14,9 @@ Public names:
   :func:`sketch`: Müller-Breslau sketch (all take ``ax=`` and return it);
 * :func:`derivation` -> :class:`Derivation` (Markdown/LaTeX, text, HTML);
 * :func:`table`, :func:`to_csv`, :func:`to_excel`, :func:`to_latex`;
-* :func:`write_calculation_sheet` -> :class:`CalculationSheet`.
+* :func:`write_calculation_sheet` -> :class:`CalculationSheet`;
+* :class:`Explorer` (``beam.explore()``): the interactive explorer;
+  :func:`plot_envelope`: envelopes of moving loads.
 
 A new result type joins by registering with the dispatchers
 :func:`ilkit.views.display.mimebundle`, :func:`table`,
@@ -24,6 +26,8 @@ A new result type joins by registering with the dispatchers
 
 from ilkit.views.derive import Derivation, derivation
 from ilkit.views.draw import draw_beam
+from ilkit.views.explorer import Explorer
+from ilkit.views.moving import plot_envelope
 from ilkit.views.plot import plot_line
 from ilkit.views.report import CalculationSheet, write_calculation_sheet
 from ilkit.views.sketch import sketch
@@ -41,4 +45,6 @@ __all__ = [
     "to_latex",
     "write_calculation_sheet",
     "CalculationSheet",
+    "Explorer",
+    "plot_envelope",
 ]

@@ -149,10 +149,6 @@ class ExplorerFigure:
             self._dots.set_data([], [])
             self._under.set_verts([])
 
-    def show_point(self, x: float, y: float) -> None:
-        """Mark the current effect at the section on an envelope view."""
-        self._dots.set_data([x], [y])
-
     # ------------------------------------------------------------------ showing
     def draw(self) -> None:
         """Full draw (after the background changed)."""

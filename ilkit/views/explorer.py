@@ -56,15 +56,11 @@ UNIT_LOAD = "unit load"
 
 Extreme = Literal["max", "min"]
 
-_WORDS = {
-    "reaction": "reaction",
-    "moment_reaction": "moment reaction",
-    "shear": "shear",
-    "moment": "bending moment",
-    "hinge_shear": "hinge shear",
-    "deflection": "deflection",
-    "rotation": "rotation",
-}
+
+
+def _words(kind: str) -> str:
+    """Plain words for a quantity kind (``"bending moment"``), as :mod:`ilkit.quantity` names it."""
+    return KINDS[kind][1]
 
 
 class Explorer:
@@ -131,7 +127,7 @@ class Explorer:
         self._worst_value = 0.0  # the extreme's value (core) while at a worst placement
         self._spacings: tuple[float, ...] | None = None  # spacings of a variable train chosen by a jump
         self._envelopes: dict[str, Envelope] = {}
-        self._extremes: dict[tuple[int, str], Extremes] = {}
+        self._extremes: dict[tuple[InfluenceLine, str], Extremes] = {}
         self._quiet = False  # set while the explorer itself changes a control
         self._facts_of: InfluenceLine | None = None
         self._facts_html = ""
@@ -141,8 +137,8 @@ class Explorer:
             raise _choice_error("quantity", quantity, kinds)
         wide = {"description_width": "4.8em"}
         self.quantity = w.Dropdown(
-            options=[(_WORDS[k], k) for k in kinds], value=quantity, description="quantity",
-            layout=w.Layout(width="15.5em"), style=wide,
+            options=[(_words(k), k) for k in kinds], value=quantity, description="quantity",
+            layout=w.Layout(width="18em"), style=wide,
         )  # fmt: skip
         self.location = w.Text(
             value="", description="at x =", continuous_update=False,
@@ -290,7 +286,7 @@ class Explorer:
                 nearest = min(places, key=lambda p: (abs(p - at), p))
                 if nearest != at:
                     where = "supports" if kind in ("reaction", "moment_reaction") else "hinges"
-                    note = f"The {_WORDS[kind]} exists only at the {where}: taken at x = {fmt(nearest)}."
+                    note = f"The {_words(kind)} exists only at the {where}: taken at x = {fmt(nearest)}."
                 at = nearest
             try:
                 line = self.beam.line(kind, at)
@@ -311,7 +307,7 @@ class Explorer:
         self._set_quietly(self.side, line.quantity.side or self.side.value)
         self.side.layout.display = "" if needs_side else "none"
         if needs_side:
-            face = f"The {_WORDS[kind]} jumps at x = {fmt(at)}: showing the {line.quantity.side} face."
+            face = f"The {_words(kind)} jumps at x = {fmt(at)}: showing the {line.quantity.side} face."
             note = f"{note} {face}".strip()
         self._show_message(note)
         self._limit = self._worst = None
@@ -380,10 +376,11 @@ class Explorer:
             else:
                 from ilkit.loads import stand
 
-                placed = self._worst or stand(
-                    line, load, x, direction=self.direction.value, spacings=self._spacings
-                )
-                self.value = self._worst_value if self._worst is not None else placed.effect
+                if self._worst is not None:
+                    placed, self.value = self._worst, self._worst_value
+                else:
+                    placed = stand(line, load, x, direction=self.direction.value, spacings=self._spacings)
+                    self.value = placed.effect
                 self.placement = placed
                 loading = Loading(
                     tuple(Axle(a.x, a.load, a.ordinate, a.counted) for a in placed.axles),
@@ -415,8 +412,9 @@ class Explorer:
                 worst = found.placements[0]
                 assert worst.front is not None
                 front, direction, limit = worst.front, worst.direction or self.direction.value, None
-                variable = getattr(load, "is_variable", False)
-                self._spacings = worst.spacings if variable else None
+                if getattr(load, "is_variable", False):
+                    self._spacings = worst.spacings
+                    self._load_changed()  # the slider's range follows the train's length
         except IlkitError as err:
             self._show_message(str(err), error=True)
             return
@@ -447,7 +445,7 @@ class Explorer:
 
     def _extremes_of(self, name: str) -> Extremes:
         assert self.line is not None
-        key = (id(self.line), name)
+        key = (self.line, name)
         if key not in self._extremes:
             from ilkit.loads import extremes
 
@@ -487,7 +485,7 @@ class Explorer:
         side = f", {q.side} face" if q.side else ""
         rows.insert(
             0,
-            f"<b>{html.escape(_WORDS[q.kind])}</b> at x = {fmt(q.at)}{html.escape(length_unit)}{side}"
+            f"<b>{html.escape(_words(q.kind))}</b> at x = {fmt(q.at)}{html.escape(length_unit)}{side}"
             f" &nbsp;·&nbsp; {where} &nbsp;·&nbsp; {what} "
             f"<b><span class='ilkit-value'>{_number(self.value)}</span> "
             f"<span class='ilkit-unit'>{html.escape(unit)}</span></b>",
@@ -558,7 +556,7 @@ class Explorer:
                 self._show_message(
                     "Envelopes are drawn for bending moment, shear and reactions; showing the influence line."
                 )
-        self._figure.show_line(line, title=f"Influence line: {_WORDS[q.kind]} {q.label}")
+        self._figure.show_line(line, title=f"Influence line: {_words(q.kind)} {q.label}")
 
     # ----------------------------------------------------------------- helpers
     def _set_quietly(self, control: Any, value: Any) -> None:
