@@ -491,7 +491,7 @@ class Explorer:
             f"<span class='ilkit-unit'>{html.escape(unit)}</span></b>",
         )
         if self.envelope.value and self.model.value is not None:
-            rows.append(self._envelope_row(unit))
+            rows.append(self._envelope_row())
         rows.append(self._facts(line))
         self.readout.value = "".join(f"<div class='ilkit-readout-text'>{r}</div>" for r in rows)
 
@@ -507,7 +507,8 @@ class Explorer:
             self._facts_of = line
         return self._facts_html
 
-    def _envelope_row(self, unit: str) -> str:
+    def _envelope_row(self) -> str:
+        """The extremes of the envelope's load model at the section (core placement)."""
         name = self.model.value
         try:
             found = self._extremes_of(name)
