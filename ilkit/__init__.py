@@ -19,10 +19,12 @@ from ilkit.errors import (
     IndeterminateBeamError,
     LoadInputError,
     MissingDependencyError,
+    NoDerivationError,
     SideRequiredError,
     StiffnessRequiredError,
-    UnitsRequiredError,
+    UnitsError,
     UnstableBeamError,
+    UnsupportedResultError,
 )
 from ilkit.influence import InfluenceLine, Ordinate, Piece
 from ilkit.loads import (
@@ -64,8 +66,11 @@ __all__ = [
     "MissingDependencyError",
     "IllConditionedError",
     "StiffnessRequiredError",
+    "UnitsError",
+    "UnsupportedResultError",
+    "NoDerivationError",
+    "views",
     "LoadInputError",
-    "UnitsRequiredError",
     # moving loads (published models: ilkit.loads)
     "AxleTrain",
     "TrainUniform",
@@ -91,4 +96,9 @@ def __getattr__(name: str) -> Any:
         from ilkit._symbols import x
 
         return x
+    if name == "views":
+        # drawings, derivations, tables and calculation sheets: loaded on first use
+        import importlib
+
+        return importlib.import_module("ilkit.views")
     raise AttributeError(f"module 'ilkit' has no attribute {name!r}")

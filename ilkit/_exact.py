@@ -58,10 +58,10 @@ def to_exact(value: object, *, field: str) -> Fraction:
     if isinstance(value, numbers.Rational):  # sympy Rational, other rationals
         return Fraction(int(value.numerator), int(value.denominator))
     if isinstance(value, numbers.Real) or hasattr(value, "__float__"):
-        if _is_quantity(value):
+        if is_quantity(value):
             raise BeamInputError(
-                f"{field}: got the quantity {value!r}; convert it with ilkit.units (or give a plain "
-                "number in the beam's units).",
+                f"{field}: got the quantity {value!r}, but this value takes a plain number; give it in "
+                "the beam's units (value.to(...).magnitude).",
                 field=field,
                 value=value,
             )
@@ -83,8 +83,9 @@ def to_exact(value: object, *, field: str) -> Fraction:
     )
 
 
-def _is_quantity(value: object) -> bool:
-    return hasattr(value, "magnitude") and hasattr(value, "units")
+def is_quantity(value: object) -> bool:
+    """True for a pint quantity (recognised by its ``magnitude`` and ``unit_items``, without importing pint)."""
+    return hasattr(value, "magnitude") and hasattr(value, "unit_items")
 
 
 def _not_finite(field: str, value: object) -> BeamInputError:

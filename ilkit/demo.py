@@ -94,8 +94,13 @@ def run(out: Path, notebooks: Path | None = None) -> Path:
 
 
 def _extra_outputs(out: Path) -> list[tuple[str, str, int]]:
-    """Further demo outputs written by the views layer (calculation sheets), when available."""
-    return []
+    """Further demo outputs written by the views layer: the calculation sheet of the notebook girder."""
+    from ilkit.views.demo import write_demo_sheet
+
+    sheet = write_demo_sheet(out)
+    print(f"wrote {sheet.html.name} and {sheet.markdown.name} ...", flush=True)
+    return [(sheet.html.name, "Calculation sheet of the suspended-span girder (Markdown version: "
+             f"{sheet.markdown.name})", 0)]
 
 
 def main(argv: list[str] | None = None) -> int:

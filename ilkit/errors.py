@@ -16,8 +16,10 @@ __all__ = [
     "MissingDependencyError",
     "IllConditionedError",
     "StiffnessRequiredError",
+    "UnitsError",
+    "UnsupportedResultError",
+    "NoDerivationError",
     "LoadInputError",
-    "UnitsRequiredError",
 ]
 
 
@@ -106,6 +108,22 @@ class IllConditionedError(IlkitError):
         self.limit = limit
 
 
+class UnitsError(BeamInputError):
+    """A value's units cannot be used as given: the beam declares no unit system,
+    the dimension is wrong (a force where a length is expected), or the unit has
+    no exact conversion.  The message names the fix.
+    """
+
+
+class UnsupportedResultError(IlkitError, TypeError):
+    """A view (table, display, report) was given an object it does not know how to show."""
+
+
+class NoDerivationError(UnsupportedResultError):
+    """The influence line carries no derivation ilkit can write out (for example a
+    line built by hand, or by an analysis whose derivation is not yet supported)."""
+
+
 class LoadInputError(_InputError):
     """A load (axle train, uniform load, combination, load model) was described with a value that cannot be used.
 
@@ -117,6 +135,3 @@ class LoadInputError(_InputError):
         The offending value as given.
     """
 
-
-class UnitsRequiredError(IlkitError):
-    """A load with units was applied to a beam (or line) that declares none."""

@@ -21,9 +21,10 @@ from typing import TYPE_CHECKING, Any, Literal
 
 import numpy as np
 
+from ilkit._display import RichDisplay
 from ilkit._exact import fmt
 from ilkit.quantity import Quantity
-from ilkit.units import UnitSystem
+from ilkit.units import LENGTH, UnitSystem, factor_to, is_quantity
 
 if TYPE_CHECKING:  # pragma: no cover
     import pandas as pd
@@ -77,12 +78,14 @@ class Ordinate:
         return f"Ordinate(value={fmt(self.value)}, x={fmt(self.x)}{side})"
 
 
-class InfluenceLine:
+class InfluenceLine(RichDisplay):
     """Influence line of one quantity of one beam.
 
     Call it on a float or a numpy array of load positions to get ordinates
     (0 off the beam; right-hand value at a jump, left-hand value at the right
-    end).  Use :meth:`left` and :meth:`right` for one-sided values.
+    end).  Use :meth:`left` and :meth:`right` for one-sided values.  Positions
+    may be pint quantities when the beam declares its units; they are
+    converted into the beam's length unit.
 
     Build lines with the beam's methods (``beam.reaction(x)``, ``beam.shear(x)``
     ...), not with this constructor.
@@ -208,6 +211,8 @@ class InfluenceLine:
         return self._evaluate(x, "right_strict")
 
     def _evaluate(self, x: Any, mode: str) -> Any:
+        if is_quantity(x):
+            x = x.magnitude * float(factor_to(x, dims=LENGTH, system=self.units, field="load position"))
         if np.ndim(x) == 0:
             return self._scalar(float(x), mode)
         xs = np.asarray(x, dtype=float)

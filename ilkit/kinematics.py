@@ -112,9 +112,12 @@ class Stability:
 class Mechanism:
     """The released beam and its displaced shape for one quantity.
 
-    ``parts`` are the rigid parts of the released beam with their movement;
-    ``constraints`` the conditions solved, the imposed one included;
-    ``imposed`` the words for the unit displacement.
+    ``parts`` are the rigid parts of the released beam with their movement
+    (column ``2k`` of a constraint row is ``w`` of part ``k``, column
+    ``2k + 1`` its ``r``); ``constraints`` the conditions solved, the imposed
+    one included; ``imposed`` the words for the unit displacement;
+    ``release`` the words for the restraint removed; ``beam`` the beam
+    analysed (for drawings of the released beam).
     """
 
     quantity: Quantity
@@ -122,6 +125,7 @@ class Mechanism:
     constraints: tuple[Constraint, ...] = field(repr=False)
     imposed: str = ""
     release: str = ""
+    beam: Beam | None = field(default=None, repr=False, compare=False)
 
 
 # --------------------------------------------------------------------- building
@@ -329,7 +333,7 @@ def solve_mechanism(beam: Beam, quantity: Quantity) -> Mechanism:
         # the quantity is carried by no restraint here (moment at a hinge, shear at a shear release)
         parts = tuple(PartMotion(bounds[k], bounds[k + 1], Fraction(0), Fraction(0)) for k in range(nparts))
         why = "a hinge carries no moment" if quantity.kind == "moment" else "a shear release carries no shear"
-        return Mechanism(quantity, parts, tuple(constraints), f"none: {why}", release="")
+        return Mechanism(quantity, parts, tuple(constraints), f"none: {why}", release="", beam=beam)
     try:
         solution = _exact.solve([c.row for c in constraints], [c.rhs for c in constraints], n)
     except _exact.SingularSystemError:  # pragma: no cover - guarded by the stability check
@@ -340,7 +344,7 @@ def solve_mechanism(beam: Beam, quantity: Quantity) -> Mechanism:
     parts = tuple(
         PartMotion(bounds[k], bounds[k + 1], solution[2 * k], solution[2 * k + 1]) for k in range(nparts)
     )
-    return Mechanism(quantity, parts, tuple(constraints), imposed, release)
+    return Mechanism(quantity, parts, tuple(constraints), imposed, release, beam=beam)
 
 
 def exact_line(beam: Beam, quantity: Quantity) -> InfluenceLine:

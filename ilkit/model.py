@@ -26,10 +26,11 @@ from fractions import Fraction
 from functools import cached_property
 from typing import TYPE_CHECKING, Any, Literal
 
-from ilkit._exact import fmt, to_exact
-from ilkit.errors import BeamInputError, SideRequiredError
+from ilkit._display import RichDisplay
+from ilkit._exact import fmt, is_quantity, to_exact
+from ilkit.errors import BeamInputError, SideRequiredError, UnitsError
 from ilkit.quantity import Quantity, QuantityKind, Side
-from ilkit.units import UnitSystem, unit_system
+from ilkit.units import FLEXURAL_STIFFNESS, LENGTH, QuantityLike, UnitSystem, conversion, magnitude_in, unit_system
 
 if TYPE_CHECKING:  # pragma: no cover
     from ilkit.influence import InfluenceLine
@@ -41,7 +42,8 @@ SupportKind = Literal["fixed", "pin", "roller", "spring"]
 SUPPORT_KINDS: tuple[str, ...] = ("fixed", "pin", "roller")
 """Support kinds that can be named by a string (a spring support is a :class:`Spring`)."""
 
-Number = int | float | str | Fraction
+Number = int | float | str | Fraction | QuantityLike
+"""A number in the beam's units, or (lengths and EI) a pint quantity converted into them."""
 StiffnessRange = tuple[Fraction, Fraction, Fraction]
 """``(start, end, EI)``: flexural stiffness ``EI`` from ``start`` to ``end``."""
 
@@ -166,7 +168,7 @@ class Support:
         return self.spring if self.spring is not None else self.kind
 
 
-class Beam:
+class Beam(RichDisplay):
     """A straight girder line under vertical loads.
 
     Parameters
@@ -194,7 +196,12 @@ class Beam:
         :data:`ilkit.units.SYSTEMS`) or ``None``.
 
     Numbers given as ints, fractions or decimal strings stay exact; floats are
-    taken by their decimal text (``12.5`` is 25/2).
+    taken by their decimal text (``12.5`` is 25/2).  With pint installed,
+    lengths (length, positions, EI ranges) and ``EI`` may be pint quantities
+    (``30 * ureg.ft``): they are converted exactly into the declared
+    ``units``; a quantity on a beam without ``units`` is a
+    :class:`~ilkit.UnitsError`.  Plain numbers (and spring stiffnesses) are
+    always taken in the declared units.
     """
 
     def __init__(
@@ -206,19 +213,19 @@ class Beam:
         EI: Number | None = None,
         units: str | UnitSystem | None = None,
     ) -> None:
-        L = to_exact(length, field="length")
+        system = unit_system(units)
+        L = magnitude_in(length, dims=LENGTH, system=system, field="length")
         if L <= 0:
             raise BeamInputError(
                 f"length: must be greater than 0, got {length!r}; give the total length of the beam.",
                 field="length",
                 value=length,
             )
-        support_list = _read_supports(supports, L)
-        hinge_list = _read_releases(hinges, L, "hinges", support_list)
-        shear_list = _read_releases(shear_releases, L, "shear_releases", support_list)
+        support_list = _read_supports(supports, L, system)
+        hinge_list = _read_releases(hinges, L, "hinges", support_list, system)
+        shear_list = _read_releases(shear_releases, L, "shear_releases", support_list, system)
         _check_release_overlap(hinge_list, shear_list, support_list)
-        ei = _read_ei(EI, L)
-        system = unit_system(units)
+        ei = _read_ei(EI, L, system)
 
         object.__setattr__(self, "_length", L)
         object.__setattr__(self, "_supports", tuple(support_list))
@@ -238,7 +245,12 @@ class Beam:
         raise AttributeError(f"Beam is immutable; use beam.replace({name}=...) to get a changed copy.")
 
     def replace(self, **changes: Any) -> Beam:
-        """A new beam with some constructor arguments changed."""
+        """A new beam with some constructor arguments changed.
+
+        Changing ``units`` from one declared system to another is refused: the
+        stored numbers would silently change meaning.  Use :meth:`in_units` to
+        convert them.
+        """
         args: dict[str, Any] = {
             "length": self._length,
             "supports": {s.at: s.spec for s in self._supports},
@@ -254,8 +266,52 @@ class Beam:
                 field="replace",
                 value=sorted(unknown),
             )
+        new_units = unit_system(changes["units"]) if "units" in changes else self.units
+        if self.units is not None and new_units is not None and new_units != self.units:
+            raise UnitsError(
+                f"replace: the beam's numbers are in {self.units.name!r}; changing units to "
+                f"{new_units.name!r} would reinterpret them. Convert with beam.in_units({new_units.name!r}), "
+                "or build a new Beam with the numbers in the new units.",
+                field="units",
+                value=changes["units"],
+            )
         args.update(changes)
         return Beam(**args)
+
+    def in_units(self, units: str | UnitSystem) -> Beam:
+        """The same beam with every number converted exactly into another unit system.
+
+        Lengths scale by the ratio of the length units, ``EI`` by
+        force x length², vertical springs by force / length, rotational
+        springs by force x length.  The beam must declare its units.
+        """
+        target = unit_system(units)
+        if self.units is None or target is None:
+            raise UnitsError(
+                "in_units: the beam declares no unit system, so its numbers cannot be converted; "
+                "declare it first with beam.replace(units='kN-m') (or the system the numbers are in).",
+                field="units",
+                value=units,
+            )
+        length, force = conversion(self.units, target)
+
+        def spec(s: Support) -> str | Spring:
+            if s.spring is None:
+                return s.kind
+            v, r = s.spring.vertical, s.spring.rotational
+            return Spring(
+                vertical=v if isinstance(v, str) else v * force / length,
+                rotational=r if isinstance(r, str) else r * force * length,
+            )
+
+        return Beam(
+            length=self.length * length,
+            supports={s.at * length: spec(s) for s in self.supports},
+            hinges=[h * length for h in self.hinges],
+            shear_releases=[h * length for h in self.shear_releases],
+            EI=[(a * length, b * length, ei * force * length**2) for a, b, ei in self.EI_ranges] or None,
+            units=target,
+        )
 
     # ------------------------------------------------------------------ properties
     @property
@@ -479,7 +535,7 @@ class Beam:
         return line
 
     def _position(self, at: Number, what: str) -> Fraction:
-        pos = to_exact(at, field=f"{what} position")
+        pos = magnitude_in(at, dims=LENGTH, system=self.units, field=f"{what} position")
         if pos < 0 or pos > self.length:
             raise BeamInputError(
                 f"{what}: x={fmt(pos)} is off the beam; give a position from 0 to {fmt(self.length)}.",
@@ -525,7 +581,9 @@ class Beam:
         return side if jumps else None
 
 
-def _read_supports(supports: Mapping[Number, str | Support], L: Fraction) -> list[Support]:
+def _read_supports(
+    supports: Mapping[Number, str | Support], L: Fraction, system: UnitSystem | None
+) -> list[Support]:
     if not isinstance(supports, Mapping):
         raise BeamInputError(
             "supports: give a mapping {position: kind}, e.g. {0: 'pin', 20: 'roller'}.",
@@ -534,7 +592,7 @@ def _read_supports(supports: Mapping[Number, str | Support], L: Fraction) -> lis
         )
     out: dict[Fraction, Support] = {}
     for raw_pos, raw_kind in supports.items():
-        pos = to_exact(raw_pos, field="supports position")
+        pos = magnitude_in(raw_pos, dims=LENGTH, system=system, field="supports position")
         if pos < 0 or pos > L:
             raise BeamInputError(
                 f"supports: the support at x={raw_pos!r} is off the beam; positions must lie "
@@ -579,7 +637,7 @@ def _read_supports(supports: Mapping[Number, str | Support], L: Fraction) -> lis
 
 
 def _read_releases(
-    values: Iterable[Number], L: Fraction, field: str, supports: list[Support]
+    values: Iterable[Number], L: Fraction, field: str, supports: list[Support], system: UnitSystem | None
 ) -> list[Fraction]:
     if isinstance(values, (str, bytes)) or not isinstance(values, Iterable):
         raise BeamInputError(
@@ -588,7 +646,7 @@ def _read_releases(
     name = "hinge" if field == "hinges" else "shear release"
     out: list[Fraction] = []
     for raw in values:
-        pos = to_exact(raw, field=f"{field} position")
+        pos = magnitude_in(raw, dims=LENGTH, system=system, field=f"{field} position")
         if pos <= 0 or pos >= L:
             fixed_end = any(s.at == pos and s.restrains_rotation for s in supports)
             if fixed_end:
@@ -648,7 +706,7 @@ def _check_release_overlap(
             )
 
 
-def _read_ei(EI: object, L: Fraction) -> Fraction | tuple[StiffnessRange, ...] | None:
+def _read_ei(EI: object, L: Fraction, system: UnitSystem | None) -> Fraction | tuple[StiffnessRange, ...] | None:
     """One positive number, or ranges ``(start, end, EI)`` covering ``0..L`` (merged where equal)."""
     if EI is None:
         return None
@@ -659,8 +717,8 @@ def _read_ei(EI: object, L: Fraction) -> Fraction | tuple[StiffnessRange, ...] |
             field="EI",
             value=EI,
         )
-    if isinstance(EI, (str, bytes)) or not isinstance(EI, Iterable):
-        return _positive_ei(EI, EI)
+    if is_quantity(EI) or isinstance(EI, (str, bytes)) or not isinstance(EI, Iterable):
+        return _positive_ei(EI, EI, system)
     ranges: list[StiffnessRange] = []
     for item in EI:
         triple = list(item) if isinstance(item, Iterable) and not isinstance(item, (str, bytes)) else []
@@ -671,8 +729,8 @@ def _read_ei(EI: object, L: Fraction) -> Fraction | tuple[StiffnessRange, ...] |
                 value=item,
             )
         raw_a, raw_b, raw_ei = triple
-        a = to_exact(raw_a, field="EI range start")
-        b = to_exact(raw_b, field="EI range end")
+        a = magnitude_in(raw_a, dims=LENGTH, system=system, field="EI range start")
+        b = magnitude_in(raw_b, dims=LENGTH, system=system, field="EI range end")
         if not 0 <= a < b <= L:
             raise BeamInputError(
                 f"EI: the range ({raw_a!r}, {raw_b!r}) must have 0 <= start < end <= {fmt(L)} "
@@ -680,7 +738,7 @@ def _read_ei(EI: object, L: Fraction) -> Fraction | tuple[StiffnessRange, ...] |
                 field="EI",
                 value=item,
             )
-        ranges.append((a, b, _positive_ei(raw_ei, item)))
+        ranges.append((a, b, _positive_ei(raw_ei, item, system)))
     if not ranges:
         raise BeamInputError(
             "EI: the list of ranges is empty; give [(0, L, EI)] or leave EI out.", field="EI", value=EI
@@ -721,8 +779,8 @@ def _read_ei(EI: object, L: Fraction) -> Fraction | tuple[StiffnessRange, ...] |
     return tuple(merged)
 
 
-def _positive_ei(raw: object, given: object) -> Fraction:
-    value = to_exact(raw, field="EI")
+def _positive_ei(raw: object, given: object, system: UnitSystem | None) -> Fraction:
+    value = magnitude_in(raw, dims=FLEXURAL_STIFFNESS, system=system, field="EI")
     if value <= 0:
         raise BeamInputError(
             f"EI: flexural stiffness must be greater than 0, got {raw!r}; give E times I in "

@@ -35,7 +35,7 @@ scaled stiffness matrix is too ill-conditioned for double precision.
 from __future__ import annotations
 
 import bisect
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 from fractions import Fraction
 from typing import TYPE_CHECKING, Any
 
@@ -69,7 +69,9 @@ class UnitShape:
     ``factor`` multiplies the deflected shape (a spring stiffness for a
     spring's force, 1 otherwise); ``deflections`` and ``rotations`` are the
     nodal values of that shape before the factor, at ``nodes`` (the left face
-    where a release separates the faces).
+    where a release separates the faces); ``unit_action`` is the action
+    applied inside an element (``None`` for a unit movement of a restraint);
+    ``beam`` the beam analysed (for derivations and drawings).
     """
 
     quantity: Quantity
@@ -78,6 +80,8 @@ class UnitShape:
     nodes: tuple[Fraction, ...]
     deflections: tuple[Fraction | float, ...]
     rotations: tuple[Fraction | float, ...]
+    unit_action: Action | None = None
+    beam: Beam | None = field(default=None, repr=False, compare=False)
 
 
 @dataclass(frozen=True)
@@ -289,6 +293,8 @@ class ElasticModel:
             tuple(self.nodes),
             tuple(d[f[0]] for f in faces),
             tuple(d[f[1]] for f in faces),
+            unit_action=action,
+            beam=self.beam,
         )
         return InfluenceLine(
             quantity=quantity, knots=tuple(knots), coefficients=coefficients, units=self.beam.units, origin=origin

@@ -16,7 +16,6 @@ A scenario of our own: anchor spans of 32 m, a 44 m centre span made of two
     ("code", """
 %matplotlib inline
 import matplotlib.pyplot as plt
-import numpy as np
 import pandas as pd
 
 import ilkit
@@ -60,24 +59,12 @@ for name, line in lines.items():
     print(f"{name:30s} {line.expr}")
 """),
     ("code", """
-fig, axes = plt.subplots(len(lines), 1, figsize=(9, 2.1 * len(lines)), sharex=True)
-for ax, (name, line) in zip(axes, lines.items()):
-    xs, ys = line.sample()
-    ax.plot(xs, ys, color="black", lw=1.2)
-    ax.fill_between(xs, ys, 0, where=ys >= 0, color="0.8", interpolate=True, lw=0)
-    ax.fill_between(xs, ys, 0, where=ys <= 0, color="0.93", interpolate=True, lw=0)
-    ax.axhline(0, color="black", lw=0.6)
-    for xk, left, right in line.knot_values():
-        for value in {round(left, 9), round(right, 9)}:
-            if value and 0 < xk < float(girder.length) or (value and xk in (0.0, float(girder.length))):
-                ax.annotate(f"{value:.3g}", (xk, value), textcoords="offset points", xytext=(3, 3), fontsize=8)
-    for s in girder.supports:
-        ax.plot(float(s.at), 0, marker="^", color="black", ms=6)
-    for h in girder.hinges:
-        ax.plot(float(h), 0, marker="o", mfc="white", mec="black", ms=5)
-    ax.set_ylabel(line.unit, fontsize=8)
-    ax.set_title(name, fontsize=9, loc="left")
-axes[-1].set_xlabel("load position x [m]")
+from ilkit import views
+
+fig, axes = plt.subplots(len(lines) + 1, 1, figsize=(9, 2.2 * (len(lines) + 1)), sharex=True)
+views.draw_beam(girder, ax=axes[0], title="The girder")
+for ax, (name, line) in zip(axes[1:], lines.items()):
+    views.plot_line(line, ax=ax, title=name)
 fig.tight_layout()
 plt.show()
 """),

@@ -23,7 +23,7 @@ from typing import TYPE_CHECKING, Literal
 import numpy as np
 
 from ilkit._exact import fmt
-from ilkit.errors import LoadInputError, UnitsRequiredError
+from ilkit.errors import LoadInputError, UnitsError
 from ilkit.influence import InfluenceLine
 from ilkit.loads import _search
 from ilkit.loads.combination import Combination, LoadModel, as_model
@@ -86,10 +86,11 @@ class _Study:
             )
         model = as_model(self.load)
         if self.line.units is None:
-            raise UnitsRequiredError(
+            raise UnitsError(
                 f"{self.line.quantity.label}: the beam declares no units, so {model.name} (in "
                 f"{model.units.name}) cannot be applied. Declare them: Beam(..., units={model.units.name!r}) "
-                "or units='kN-m'."
+                "or units='kN-m'.",
+                field="units",
             )
         self.model = model.converted(self.line.units)
 

@@ -1,0 +1,241 @@
+"""Calculation sheets: one call writes the record of a study as HTML and Markdown.
+
+``write_calculation_sheet(beam, path, lines=...)`` writes
+
+* ``<path>.html``: one self-contained page (figures inline as SVG, formulas as
+  MathML; no scripts, no network), for reading, printing and filing;
+* ``<path>.md``: the same in Markdown with LaTeX formulas, its figures as SVG
+  files in the folder ``<path>_figures/`` beside it.
+
+The sheet holds: the caution that results must be checked by a qualified
+engineer under the governing codes; the inputs (beam summary and diagram,
+units, sign conventions); for every influence line its Müller-Breslau sketch,
+key ordinates, ordinate table and derivation; the method and its sources.
+
+Results from other parts of ilkit (placements, envelopes) join the sheet
+through ``results=``: each type adds its section with
+``report_section.register(TheirType)``, a function returning document blocks.
+"""
+
+from __future__ import annotations
+
+import html
+from collections.abc import Iterable, Mapping, Sequence
+from dataclasses import dataclass, replace
+from functools import singledispatch
+from pathlib import Path
+
+from ilkit.errors import BeamInputError, UnsupportedResultError
+from ilkit.influence import InfluenceLine
+from ilkit.model import Beam
+from ilkit.quantity import KINDS
+from ilkit.views import _doc, style
+from ilkit.views._doc import Block, Callout, Figure, Heading, Para, Table
+from ilkit.views.derive import SIGN_CONVENTIONS, derivation
+from ilkit.views.display import beam_figure, line_facts, line_figure
+from ilkit.views.tables import beam_facts, doc_table
+
+__all__ = ["CAUTION", "CalculationSheet", "write_calculation_sheet", "sheet_blocks", "report_section", "default_lines"]
+
+CAUTION = (
+    "These results were produced by software as an aid to calculation. They must be checked by a qualified "
+    "engineer, who is responsible for their use; the governing design codes, the licensed current editions "
+    "of the standards and licensed professional practice take precedence over anything in this sheet."
+)
+"""The caution every calculation sheet carries, at its start and at its end."""
+
+
+_METHODS = {
+    "Mechanism": "Statically determinate beams: the Müller-Breslau principle (virtual work on the beam with the "
+    "restraint of the quantity removed); the conditions of the rigid parts are solved in exact rational "
+    "arithmetic, so the lines are exact and straight between breakpoints.",
+    "UnitShape": "Indeterminate beams, springs, deflections and rotations: the stiffness method with prismatic "
+    "beam elements; the line is the deflected shape under the unit action conjugate to the quantity "
+    "(Müller-Breslau, Maxwell), cubic and exact between the nodes for the nodal displacements found.",
+}
+
+
+@dataclass(frozen=True)
+class CalculationSheet:
+    """Paths of a written calculation sheet."""
+
+    html: Path
+    markdown: Path
+    figures: Path
+
+
+def default_lines(beam: Beam) -> list[InfluenceLine]:
+    """The lines a sheet shows when none are given.
+
+    The vertical reaction of every support, the moment reaction of every
+    fixed support, and the bending moment at the middle of every span.
+    """
+    lines = [beam.reaction(s.at) for s in beam.supports]
+    lines += [beam.moment_reaction(s.at) for s in beam.supports if s.restrains_rotation]
+    lines += [beam.moment((a + b) / 2) for a, b in beam.spans]
+    return lines
+
+
+@singledispatch
+def report_section(obj: object, number: str) -> list[Block]:
+    """The blocks of one result's section of a sheet; extend with ``.register``."""
+    raise UnsupportedResultError(
+        f"write_calculation_sheet: no sheet section for {type(obj).__name__}; give influence lines "
+        "(beam.reaction(x), beam.moment(x) ...) in lines=."
+    )
+
+
+@report_section.register(InfluenceLine)
+def _(line: InfluenceLine, number: str) -> list[Block]:
+    derived = derivation(line)  # raises NoDerivationError for lines it cannot explain
+    fig = line_figure(line)
+    steps = [replace(b, level=b.level + 2) if isinstance(b, Heading) else b for b in derived.blocks[1:]]
+    return [
+        Heading(f"{number} {derived.title}", 3),
+        Figure(style.figure_svg(fig), f"{number}: the beam displaced by the unit action (Müller-Breslau sketch)",
+               f"line-{number.replace('.', '-')}"),
+        Table(("key values", ""), tuple(line_facts(line))),
+        Para(("Ordinates at the breakpoints (both faces where the line jumps):",)),
+        doc_table(line.ordinates()),
+        Heading("Derivation", 4),
+        *steps,
+    ]
+
+
+def sheet_blocks(
+    beam: Beam,
+    lines: Sequence[InfluenceLine] | None = None,
+    results: Iterable[object] = (),
+    *,
+    title: str = "Influence-line calculation sheet",
+    info: Mapping[str, str] | None = None,
+) -> list[Block]:
+    """The sheet as document blocks (what :func:`write_calculation_sheet` renders)."""
+    import ilkit
+
+    chosen = default_lines(beam) if lines is None else list(lines)
+    blocks: list[Block] = [Heading(title, 1)]
+    if info:
+        blocks.append(Table(("", ""), tuple((str(k), str(v)) for k, v in info.items())))
+    blocks += [
+        Callout(CAUTION, "caution"),
+        Heading("1. Inputs", 2),
+        Table(("item", "value"), tuple(beam_facts(beam))),
+        Figure(style.figure_svg(beam_figure(beam)), "The beam: supports, releases and spans", "beam"),
+        Para(("Sign conventions: x is the position of the travelling unit load from the left end of the beam; "
+              "the unit load acts downward. "
+              + " ".join(f"{KINDS[kind][1].capitalize()}: {words}." for kind, words in SIGN_CONVENTIONS.items()),)),
+        Heading("2. Influence lines", 2),
+    ]
+    if not chosen:
+        blocks.append(Para(("No influence lines were asked for.",)))
+    for i, line in enumerate(chosen, start=1):
+        blocks += report_section(line, f"2.{i}")
+    extra = list(results)
+    if extra:
+        blocks.append(Heading("3. Further results", 2))
+        for i, result in enumerate(extra, start=1):
+            blocks += report_section(result, f"3.{i}")
+    origins = {type(line.origin) for line in chosen}
+    methods = [text for kind, text in _METHODS.items() if kind in {o.__name__ for o in origins}]
+    blocks += [
+        Heading(f"{4 if extra else 3}. Method and sources", 2),
+        *(Para((text,)) for text in methods),
+        Para((f"Computed by ilkit {ilkit.__version__}. Figures and tables show the same values as the "
+              "derivations; tables round them to four significant figures.",)),
+        Callout(CAUTION, "caution"),
+    ]
+    return blocks
+
+
+_CSS = """
+body { margin: 0; background: #f3f1ec; color: #1c1c1c; }
+main.sheet { max-width: 52rem; margin: 1.5rem auto; padding: 2rem 2.5rem; background: white;
+  font: 15px/1.5 Georgia, 'DejaVu Serif', serif; box-shadow: 0 0 0 1px #d8d4ca; }
+h1 { font-size: 1.6rem; border-bottom: 3px double #1c1c1c; padding-bottom: .3rem; }
+h2 { font-size: 1.25rem; border-bottom: 1px solid #1c1c1c; margin-top: 2rem; }
+h3 { font-size: 1.1rem; margin-top: 1.8rem; }
+h4, h5 { font-size: 1rem; margin-bottom: .3rem; }
+table { border-collapse: collapse; margin: .6rem 0; font: 13px/1.4 'DejaVu Sans', sans-serif; }
+th, td { padding: .15rem .7rem; border-bottom: 1px solid #cfcac0; vertical-align: top; }
+thead th { border-bottom: 1.5px solid #1c1c1c; }
+figure { margin: 1rem 0; } figure img { width: 100%; }
+figcaption { font-size: 13px; font-style: italic; }
+aside.caution { border-left: 5px solid #1c1c1c; background: #f3f1ec; padding: .6rem 1rem; margin: 1rem 0; }
+math { font-family: 'STIX Two Math', 'Cambria Math', 'Latin Modern Math', 'DejaVu Math TeX Gyre', math;
+  font-size: 1.05em; }
+math[display="block"] { margin: .6rem 0; }
+mtable.cases mtd { text-align: left; }
+@media print { body { background: white; } main.sheet { box-shadow: none; margin: 0; max-width: none; }
+  h3 { break-before: page; } figure, table { break-inside: avoid; } }
+"""
+
+
+def _page(title: str, body: str) -> str:
+    return (
+        '<!DOCTYPE html>\n<html lang="en">\n<head>\n<meta charset="utf-8">\n'
+        f"<title>{html.escape(title)}</title>\n<style>{_CSS}</style>\n</head>\n"
+        f'<body>\n<main class="sheet">\n{body}\n</main>\n</body>\n</html>\n'
+    )
+
+
+def _stem(path: str | Path) -> Path:
+    path = Path(path)
+    if path.suffix.lower() in (".html", ".md"):
+        return path.with_suffix("")
+    if path.suffix:
+        raise BeamInputError(
+            f"write_calculation_sheet: the path {str(path)!r} ends in {path.suffix!r}; give a path ending in "
+            "'.html' or '.md', or no suffix: both files are written.",
+            field="path",
+            value=str(path),
+        )
+    return path
+
+
+def write_calculation_sheet(
+    beam: Beam,
+    path: str | Path,
+    *,
+    lines: Sequence[InfluenceLine] | None = None,
+    results: Iterable[object] = (),
+    title: str = "Influence-line calculation sheet",
+    info: Mapping[str, str] | None = None,
+) -> CalculationSheet:
+    """Write the calculation sheet of ``beam`` as HTML and Markdown; returns the paths.
+
+    Parameters
+    ----------
+    beam:
+        The beam studied.
+    path:
+        Where to write: ``"out/girder"``, ``"out/girder.html"`` or
+        ``"out/girder.md"`` all write ``out/girder.html``, ``out/girder.md``
+        and the folder ``out/girder_figures/``.  Missing folders are created.
+    lines:
+        Influence lines to show, each with sketch, ordinates and derivation;
+        default :func:`default_lines`.  A line whose derivation cannot be
+        written raises :class:`ilkit.NoDerivationError`.
+    results:
+        Further results with a registered :func:`report_section`.
+    title, info:
+        The sheet's title, and header fields such as
+        ``{"project": ..., "prepared by": ..., "date": ...}``.
+    """
+    stem = _stem(path)
+    blocks = sheet_blocks(beam, lines, results, title=title, info=info)
+    stem.parent.mkdir(parents=True, exist_ok=True)
+    figures = stem.parent / f"{stem.name}_figures"
+    figures.mkdir(exist_ok=True)
+
+    def link(fig: Figure) -> str:
+        target = figures / f"{fig.name}.svg"
+        target.write_text(fig.svg, encoding="utf-8")
+        return f"{figures.name}/{target.name}"
+
+    html_path = stem.with_suffix(".html")
+    md_path = stem.with_suffix(".md")
+    html_path.write_text(_page(title, _doc.to_html(blocks)), encoding="utf-8")
+    md_path.write_text(_doc.to_markdown(blocks, link), encoding="utf-8")
+    return CalculationSheet(html_path, md_path, figures)
+

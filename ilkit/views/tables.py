@@ -1,0 +1,203 @@
+"""Tables of results, with units in the column names, and their export.
+
+``table(obj)`` gives the pandas DataFrame form of a result:
+
+* :class:`~ilkit.InfluenceLine`: position and the ordinates just left and
+  right of every breakpoint (``line.ordinates()``);
+* :class:`~ilkit.Beam`: its supports and releases by position;
+* a DataFrame is returned as it is.
+
+Further result types add their form with ``table.register(TheirType)``.
+
+Export: :func:`to_csv`, :func:`to_excel` (needs openpyxl) and
+:func:`to_latex` (a booktabs table, written by ilkit: no LaTeX packages other
+than booktabs are needed).  Each accepts a result or a DataFrame.
+"""
+
+from __future__ import annotations
+
+import math
+from collections.abc import Mapping
+from functools import singledispatch
+from pathlib import Path
+from typing import TYPE_CHECKING, Any
+
+from ilkit._exact import fmt
+from ilkit.errors import MissingDependencyError, UnsupportedResultError
+from ilkit.influence import InfluenceLine
+from ilkit.model import Beam, Support
+from ilkit.views import _doc
+from ilkit.views.plot import short
+
+if TYPE_CHECKING:  # pragma: no cover
+    import pandas as pd
+
+__all__ = ["table", "beam_facts", "to_csv", "to_excel", "to_latex", "doc_table"]
+
+
+@singledispatch
+def table(obj: object) -> pd.DataFrame:
+    """The DataFrame form of a result; units are in the column names."""
+    import pandas as pd
+
+    if isinstance(obj, pd.DataFrame):
+        return obj
+    raise UnsupportedResultError(
+        f"table: no table form for {type(obj).__name__}; give an InfluenceLine, a Beam or a pandas DataFrame."
+    )
+
+
+@table.register(InfluenceLine)
+def _(line: InfluenceLine) -> pd.DataFrame:
+    return line.ordinates()
+
+
+@table.register(Beam)
+def _(beam: Beam) -> pd.DataFrame:
+    import pandas as pd
+
+    unit = f" [{beam.units.length}]" if beam.units else ""
+    rows = [(float(s.at), _support_words(s)) for s in beam.supports]
+    rows += [(float(p), kind) for p, kind in beam.releases]
+    rows.sort(key=lambda r: r[0])
+    return pd.DataFrame({f"x{unit}": [r[0] for r in rows], "item": [r[1] for r in rows]})
+
+
+def _support_words(support: Support) -> str:
+    """``"pin support"``, or for an elastic support its springs, e.g. ``"spring support, Spring(vertical=5000)"``."""
+    return f"{support.kind} support" if support.spring is None else f"spring support, {support.spring!r}"
+
+
+def beam_facts(beam: Beam) -> list[tuple[str, str]]:
+    """The beam in a few lines: ``(label, value)`` for summaries and calculation sheets."""
+    u = f" {beam.units.length}" if beam.units else ""
+    spans = ", ".join(f"{fmt(b - a)}{u} ({fmt(a)} to {fmt(b)})" for a, b in beam.spans) or "none"
+    first, last = beam.supports[0].at, beam.supports[-1].at
+    overhangs = [f"left {fmt(first)}{u}"] if first > 0 else []
+    overhangs += [f"right {fmt(beam.length - last)}{u}"] if last < beam.length else []
+    degree = beam.degree
+    facts = [
+        ("length", f"{fmt(beam.length)}{u}"),
+        ("spans", spans),
+        ("overhangs", ", ".join(overhangs) or "none"),
+        ("supports", ", ".join(f"{s.kind if s.spring is None else repr(s.spring)} at {fmt(s.at)}"
+                               for s in beam.supports)),
+        ("hinges", ", ".join(fmt(h) for h in beam.hinges) or "none"),
+        ("shear releases", ", ".join(fmt(h) for h in beam.shear_releases) or "none"),
+        ("degree of indeterminacy", f"{degree} ({'determinate' if degree == 0 else 'indeterminate'})"),
+        ("units", f"{beam.units.name} (lengths in {beam.units.length}, forces in {beam.units.force})"
+         if beam.units else "not declared"),
+    ]
+    if beam.units is not None and any(s.spring for s in beam.supports):
+        facts.append(("spring units", f"vertical {beam.units.force}/{beam.units.length}, rotational "
+                      f"{beam.units.force}·{beam.units.length}/rad"))
+    ranges = beam.EI_ranges
+    if ranges:
+        ei_unit = f" {beam.units.force}·{beam.units.length}²" if beam.units else ""
+        facts.append(("EI", ", ".join(
+            f"{fmt(ei)}{ei_unit}" + (f" ({fmt(a)} to {fmt(b)})" if len(ranges) > 1 else "") for a, b, ei in ranges
+        )))
+    return facts
+
+
+def _cell(value: Any, digits: int) -> str:
+    if isinstance(value, float) or hasattr(value, "dtype"):
+        as_float = float(value)
+        return short(as_float, digits) if math.isfinite(as_float) else str(as_float)
+    return str(value)
+
+
+def _align(frame: pd.DataFrame) -> str:
+    """Numbers right, text left."""
+    return "".join("r" if frame[c].dtype.kind in "fiu" else "l" for c in frame.columns)
+
+
+def doc_table(frame: pd.DataFrame, digits: int = 4) -> _doc.Table:
+    """A DataFrame as a document table (numbers to ``digits`` significant figures)."""
+    rows = tuple(tuple(_cell(v, digits) for v in row) for row in frame.itertuples(index=False))
+    return _doc.Table(tuple(str(c) for c in frame.columns), rows, _align(frame))
+
+
+def to_csv(obj: object, path: str | Path) -> Path:
+    """Write the table of ``obj`` as CSV (UTF-8, full precision, no index); returns the path."""
+    path = Path(path)
+    table(obj).to_csv(path, index=False, encoding="utf-8")
+    return path
+
+
+_SHEET_FORBIDDEN = str.maketrans({c: "_" for c in "[]:*?/\\"})
+
+
+def to_excel(obj: object, path: str | Path) -> Path:
+    """Write ``obj`` to an Excel workbook; returns the path.
+
+    ``obj`` is a result, a DataFrame, or a mapping ``{sheet name: result}``
+    for several sheets (names are shortened to Excel's 31 characters).
+    Needs openpyxl: without it :class:`ilkit.MissingDependencyError` names
+    ``pip install openpyxl``.
+    """
+    try:
+        import openpyxl  # noqa: F401
+    except ImportError:
+        raise MissingDependencyError(
+            "to_excel: writing Excel files needs openpyxl, which is not installed; install it with: "
+            "pip install openpyxl (or write CSV with ilkit.views.to_csv)."
+        ) from None
+    import pandas as pd
+
+    path = Path(path)
+    sheets = obj if isinstance(obj, Mapping) else {"ilkit": obj}
+    with pd.ExcelWriter(path, engine="openpyxl") as writer:
+        for name, item in sheets.items():
+            table(item).to_excel(writer, sheet_name=str(name).translate(_SHEET_FORBIDDEN)[:31], index=False)
+    return path
+
+
+_LATEX_TEXT = {
+    "\\": r"\textbackslash{}", "&": r"\&", "%": r"\%", "$": r"\$", "#": r"\#", "_": r"\_", "{": r"\{",
+    "}": r"\}", "~": r"\textasciitilde{}", "^": r"\textasciicircum{}", "·": r"\ensuremath{\cdot}",
+    "²": r"\textsuperscript{2}", "³": r"\textsuperscript{3}", "δ": r"\ensuremath{\delta}",
+    "θ": r"\ensuremath{\theta}", "η": r"\ensuremath{\eta}", "−": r"\ensuremath{-}",
+}
+
+
+def _latex_text(text: str) -> str:
+    return "".join(_LATEX_TEXT.get(ch, ch) for ch in text)
+
+
+def _latex_cell(value: Any, digits: int) -> str:
+    text = _cell(value, digits)
+    if isinstance(value, (int, float)) or hasattr(value, "dtype"):
+        return f"${text}$"
+    return _latex_text(text)
+
+
+def to_latex(
+    obj: object, path: str | Path | None = None, *, digits: int = 4, caption: str | None = None,
+    label: str | None = None,
+) -> str:
+    """The table of ``obj`` as a LaTeX ``tabular`` with booktabs rules; also written to ``path`` if given.
+
+    Numbers have ``digits`` significant figures and are set in math mode (so
+    the minus sign is a proper minus).  With ``caption`` or ``label`` the
+    tabular is wrapped in a ``table`` float.  Needs ``\\usepackage{booktabs}``.
+    """
+    frame = table(obj)
+    lines = [
+        rf"\begin{{tabular}}{{{_align(frame)}}}",
+        r"\toprule",
+        " & ".join(_latex_text(str(c)) for c in frame.columns) + r" \\",
+        r"\midrule",
+        *(" & ".join(_latex_cell(v, digits) for v in row) + r" \\" for row in frame.itertuples(index=False)),
+        r"\bottomrule",
+        r"\end{tabular}",
+    ]
+    if caption is not None or label is not None:
+        extra = ([rf"\caption{{{_latex_text(caption)}}}"] if caption is not None else []) + (
+            [rf"\label{{{label}}}"] if label is not None else []
+        )
+        lines = [r"\begin{table}[htbp]", r"\centering", *lines, *extra, r"\end{table}"]
+    text = "\n".join(lines) + "\n"
+    if path is not None:
+        Path(path).write_text(text, encoding="utf-8")
+    return text

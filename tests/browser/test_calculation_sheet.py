@@ -1,0 +1,67 @@
+"""The calculation sheet opens in a real browser, and rich displays render in JupyterLab."""
+
+from __future__ import annotations
+
+import pytest
+
+from ilkit.views.demo import demo_lines, suspended_span_girder, write_demo_sheet
+
+from .servers import copy_notebooks, jupyter_lab, run_all_cells
+
+
+@pytest.fixture(scope="module")
+def sheet(tmp_path_factory):
+    return write_demo_sheet(tmp_path_factory.mktemp("sheet"))
+
+
+def test_calculation_sheet_renders_figures_and_formulas(page, sheet, artifacts):
+    requests: list[str] = []
+    errors: list[str] = []
+    page.on("request", lambda r: requests.append(r.url))
+    page.on("console", lambda m: errors.append(m.text) if m.type == "error" else None)
+    page.on("pageerror", lambda e: errors.append(str(e)))
+    page.goto(sheet.html.as_uri())
+    page.wait_for_load_state("load")
+    title = "Three-span girder with a suspended span: influence lines"
+    assert page.title() == title and page.locator("h1").inner_text() == title
+    assert page.locator("aside.caution").count() == 2
+    assert page.locator("aside.caution").first.is_visible()
+    n_lines = len(demo_lines(suspended_span_girder()))
+    assert page.locator("h3").count() == n_lines
+    # every figure decoded and drawn at a real size
+    sizes = page.eval_on_selector_all(
+        "figure img", "imgs => imgs.map(i => [i.complete, i.naturalWidth, i.getBoundingClientRect().height])"
+    )
+    assert len(sizes) == 1 + n_lines
+    assert all(done and width > 0 and height > 50 for done, width, height in sizes)
+    # formulas are laid out as MathML: a fraction is taller than a line of text, the cases span rows
+    heights = page.eval_on_selector_all("mfrac", "fs => fs.map(f => f.getBoundingClientRect().height)")
+    assert heights and max(heights) > 15
+    cases = page.locator("mtable.cases").first.bounding_box()
+    assert cases is not None and cases["height"] > 60
+    # the printed ordinates are the core's: the anchor part turns about x=0 when the pier at 32 rises
+    # by 1, so the pier reaction's largest ordinate is 41/32 = 1.28125, at the hinge
+    assert "1.281 kN/kN at x = 41 m" in page.locator("main").inner_text()
+    page.locator("mtable.cases").first.scroll_into_view_if_needed()
+    page.screenshot(path=str(artifacts / "calculation-sheet.png"))
+    assert errors == []
+    assert all(url.startswith(("file:", "data:")) for url in requests), requests  # self-contained
+
+
+def test_rich_displays_render_in_jupyterlab(page, tmp_path, artifacts):
+    folder = copy_notebooks(tmp_path, ["calculation_record.ipynb"])
+    with jupyter_lab(tmp_path, folder) as (base, token):
+        run_all_cells(page, base, token, "calculation_record.ipynb")
+        # the beam's rich display: its diagram (an SVG image) and the summary table
+        first = page.locator(".jp-OutputArea-output").first
+        first.scroll_into_view_if_needed()
+        image = first.locator("img[alt='beam diagram']")
+        assert image.count() == 1 and image.evaluate("i => i.complete && i.naturalWidth > 0")
+        assert "degree of indeterminacy" in first.text_content()
+        # the derivation renders as Markdown with typeset mathematics
+        derivation = page.locator(".jp-OutputArea-output.jp-RenderedMarkdown", has_text="Müller-Breslau principle")
+        assert derivation.count() == 1
+        derivation.scroll_into_view_if_needed()
+        assert derivation.locator("mjx-container, .MathJax").count() > 10
+        assert "Ordinates at the breakpoints" in derivation.text_content()
+        page.screenshot(path=str(artifacts / "lab-calculation-record.png"), full_page=False)

@@ -1,0 +1,124 @@
+"""Calculation sheets: contents, files and errors (tests/browser/test_calculation_sheet.py opens one)."""
+
+from __future__ import annotations
+
+import re
+from fractions import Fraction
+from html.parser import HTMLParser
+from pathlib import Path
+
+import pytest
+
+import ilkit
+from ilkit.views import derivation, write_calculation_sheet
+from ilkit.views.demo import demo_lines, suspended_span_girder, write_demo_sheet
+from ilkit.views.plot import short
+from ilkit.views.report import CAUTION, default_lines, report_section
+
+
+@pytest.fixture(scope="module")
+def demo_sheet(tmp_path_factory: pytest.TempPathFactory):
+    return write_demo_sheet(tmp_path_factory.mktemp("sheet"))
+
+
+class _Tags(HTMLParser):
+    VOID = frozenset({"meta", "img", "br", "hr", "link", "input"})
+
+    def __init__(self) -> None:
+        super().__init__()
+        self.stack: list[str] = []
+        self.errors: list[str] = []
+
+    def handle_starttag(self, tag: str, attrs: list) -> None:
+        if tag not in self.VOID:
+            self.stack.append(tag)
+
+    def handle_endtag(self, tag: str) -> None:
+        if not self.stack or self.stack[-1] != tag:
+            self.errors.append(f"</{tag}> closes {self.stack[-1:] or 'nothing'}")
+        else:
+            self.stack.pop()
+
+
+def test_sheet_files_and_balanced_html(demo_sheet) -> None:
+    assert demo_sheet.html.name == "girder.html" and demo_sheet.markdown.name == "girder.md"
+    page = demo_sheet.html.read_text(encoding="utf-8")
+    parser = _Tags()
+    parser.feed(page)
+    assert parser.errors == [] and parser.stack == []
+    assert "http://" not in page.replace("http://www.w3.org", "") and "<script" not in page  # self-contained
+
+
+def test_sheet_carries_the_caution_inputs_lines_and_derivations(demo_sheet) -> None:
+    beam = suspended_span_girder()
+    page = demo_sheet.html.read_text(encoding="utf-8")
+    markdown = demo_sheet.markdown.read_text(encoding="utf-8")
+    for text in (page, markdown):
+        assert text.count(CAUTION) == 2  # at the start and at the end
+        assert "qualified engineer" in CAUTION and "governing design codes" in CAUTION
+        assert "degree of indeterminacy" in text and "32 m (0 to 32), 44 m (32 to 76)" in text
+    for i, line in enumerate(demo_lines(beam), start=1):
+        d = derivation(line)
+        assert f"2.{i} {d.title}" in markdown
+        # the derivation's final expression is in the Markdown, as LaTeX
+        cases = d.to_markdown().split("$$")[-2].strip()
+        assert cases in markdown
+        # the ordinate table holds the core values
+        for x, left, right in line.knot_values():
+            assert f"| {short(x)} | {short(left)} | {short(right)} |" in markdown
+    assert page.count("<math") > 50 and "<mtable" in page
+
+
+def test_markdown_figures_are_files_beside_it(demo_sheet) -> None:
+    markdown = demo_sheet.markdown.read_text(encoding="utf-8")
+    links = re.findall(r"!\[[^\]]*\]\(([^)]+)\)", markdown)
+    assert len(links) == 1 + len(demo_lines(suspended_span_girder()))
+    for link in links:
+        target = demo_sheet.markdown.parent / link
+        assert target.is_file() and target.read_text(encoding="utf-8").lstrip().startswith("<?xml")
+
+
+def test_paths_suffixes_and_default_lines(tmp_path: Path) -> None:
+    beam = ilkit.Beam(20, {0: "fixed", 12: "roller"}, hinges=[8], units="kip-ft")
+    lines = default_lines(beam)
+    assert [line.quantity.label for line in lines] == ["R at x=0", "R at x=12", "M_R at x=0", "M at x=6"]
+    for given in ("a/sheet", "a/sheet.html", "a/sheet.md"):
+        out = write_calculation_sheet(beam, tmp_path / given, lines=lines[:1])
+        assert out.html == tmp_path / "a" / "sheet.html" and out.markdown.exists()
+    with pytest.raises(ilkit.BeamInputError, match=r"ends in '\.pdf'.*'\.html' or '\.md'"):
+        write_calculation_sheet(beam, tmp_path / "sheet.pdf")
+
+
+def test_results_and_lines_the_sheet_cannot_explain_are_errors(tmp_path: Path) -> None:
+    beam = suspended_span_girder()
+    with pytest.raises(ilkit.UnsupportedResultError, match="no sheet section for object"):
+        write_calculation_sheet(beam, tmp_path / "s", lines=[], results=[object()])
+    from ilkit.influence import InfluenceLine
+    from ilkit.quantity import Quantity
+
+    numeric = InfluenceLine(quantity=Quantity("moment", Fraction(5)), knots=(0.0, 10.0), coefficients=((0.0, 1.0),))
+    with pytest.raises(ilkit.NoDerivationError):
+        write_calculation_sheet(beam, tmp_path / "s", lines=[numeric])
+    with pytest.raises(ilkit.UnsupportedResultError):
+        report_section(3.5, "3.1")
+
+
+def test_demo_runner_writes_the_sheet_and_links_it(tmp_path: Path) -> None:
+    from ilkit import demo
+
+    (tmp_path / "no-notebooks").mkdir()
+    index = demo.run(tmp_path / "out", notebooks=tmp_path / "no-notebooks")
+    assert 'href="girder.html"' in index.read_text(encoding="utf-8")
+    assert (tmp_path / "out" / "girder.md").is_file() and (tmp_path / "out" / "girder_figures" / "beam.svg").is_file()
+
+
+def test_sheet_of_a_continuous_beam_explains_the_stiffness_method(tmp_path: Path) -> None:
+    beam = ilkit.Beam(60, {0: "pin", 20: "roller", 40: "roller", 60: "roller"}, EI=2_000_000, units="kN-m")
+    lines = default_lines(beam)
+    assert [line.quantity.label for line in lines][:4] == ["R at x=0", "R at x=20", "R at x=40", "R at x=60"]
+    sheet = write_calculation_sheet(beam, tmp_path / "continuous", lines=lines[:2])
+    markdown = sheet.markdown.read_text(encoding="utf-8")
+    assert "3 (indeterminate)" not in markdown and "2 (indeterminate)" in markdown
+    assert "stiffness method with prismatic beam elements" in markdown and "Müller-Breslau principle (virtual" \
+        not in markdown
+    assert "Nodal displacements" in markdown and "the bearing at x=20 settles by 1" in markdown
