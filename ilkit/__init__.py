@@ -23,7 +23,6 @@ from ilkit.errors import (
     SideRequiredError,
     StiffnessRequiredError,
     UnitsError,
-    UnitsRequiredError,
     UnstableBeamError,
     UnsupportedResultError,
 )
@@ -68,8 +67,11 @@ __all__ = [
     "MissingDependencyError",
     "IllConditionedError",
     "StiffnessRequiredError",
+    "UnitsError",
+    "UnsupportedResultError",
+    "NoDerivationError",
+    "views",
     "LoadInputError",
-    "UnitsRequiredError",
     # moving loads (published models: ilkit.loads)
     "AxleTrain",
     "TrainUniform",
@@ -85,10 +87,6 @@ __all__ = [
     "Extreme",
     "Extremes",
     "Envelope",
-    "UnitsError",
-    "UnsupportedResultError",
-    "NoDerivationError",
-    "views",
     "x",
 ]
 

@@ -16,11 +16,10 @@ __all__ = [
     "MissingDependencyError",
     "IllConditionedError",
     "StiffnessRequiredError",
-    "LoadInputError",
-    "UnitsRequiredError",
     "UnitsError",
     "UnsupportedResultError",
     "NoDerivationError",
+    "LoadInputError",
 ]
 
 
@@ -109,20 +108,6 @@ class IllConditionedError(IlkitError):
         self.limit = limit
 
 
-class LoadInputError(_InputError):
-    """A load (axle train, uniform load, combination, load model) was described with a value that cannot be used.
-
-    Attributes
-    ----------
-    field:
-        The argument or table column at fault (``"loads"``, ``"spacings"`` ...).
-    value:
-        The offending value as given.
-    """
-
-
-class UnitsRequiredError(IlkitError):
-    """A load with units was applied to a beam (or line) that declares none."""
 class UnitsError(BeamInputError):
     """A value's units cannot be used as given: the beam declares no unit system,
     the dimension is wrong (a force where a length is expected), or the unit has
@@ -137,3 +122,16 @@ class UnsupportedResultError(IlkitError, TypeError):
 class NoDerivationError(UnsupportedResultError):
     """The influence line carries no derivation ilkit can write out (for example a
     line built by hand, or by an analysis whose derivation is not yet supported)."""
+
+
+class LoadInputError(_InputError):
+    """A load (axle train, uniform load, combination, load model) was described with a value that cannot be used.
+
+    Attributes
+    ----------
+    field:
+        The argument or table column at fault (``"loads"``, ``"spacings"`` ...).
+    value:
+        The offending value as given.
+    """
+

@@ -153,7 +153,7 @@ def test_bad_direction_position_or_spacing(span):
 
 def test_beam_without_units(span):
     bare = ilkit.Beam(L, {0: "pin", L: "roller"})
-    with pytest.raises(ilkit.UnitsRequiredError, match="declares no units"):
+    with pytest.raises(ilkit.UnitsError, match="declares no units"):
         stand(bare.moment(A), TRAIN, 3.0)
 
 

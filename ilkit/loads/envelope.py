@@ -17,7 +17,7 @@ from fractions import Fraction
 from typing import TYPE_CHECKING, Any, Literal
 
 from ilkit._exact import fmt, to_exact
-from ilkit.errors import LoadInputError, UnitsRequiredError
+from ilkit.errors import LoadInputError, UnitsError
 from ilkit.loads.combination import Combination, LoadModel, as_model
 from ilkit.loads.placement import _Study
 from ilkit.loads.primitives import Load
@@ -117,9 +117,10 @@ def envelope(
 
     model = as_model(load)
     if beam.units is None:
-        raise UnitsRequiredError(
+        raise UnitsError(
             f"envelope: the beam declares no units, so {model.name} (in {model.units.name}) cannot be applied. "
-            f"Declare them: Beam(..., units={model.units.name!r}) or units='kN-m'."
+            f"Declare them: Beam(..., units={model.units.name!r}) or units='kN-m'.",
+            field="units",
         )
     if isinstance(divisions, bool) or not isinstance(divisions, int) or divisions < 1:
         raise LoadInputError(

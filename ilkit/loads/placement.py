@@ -23,7 +23,7 @@ from typing import TYPE_CHECKING, Literal
 import numpy as np
 
 from ilkit._exact import fmt
-from ilkit.errors import LoadInputError, UnitsRequiredError
+from ilkit.errors import LoadInputError, UnitsError
 from ilkit.influence import InfluenceLine
 from ilkit.loads import _search
 from ilkit.loads.combination import Combination, LoadModel, as_model
@@ -77,7 +77,10 @@ class _Study:
     model: LoadModel = field(init=False)
     _parts: dict[int, InfluenceLine] = field(init=False, default_factory=dict)
     _cands: dict[tuple[object, ...], _search.Candidates] = field(init=False, default_factory=dict)
-    _placed: dict[tuple[object, ...], LoadPlacement] = field(init=False, default_factory=dict)
+    _effects: dict[tuple[int, int], float] = field(init=False, default_factory=dict)
+    _chains: dict[tuple[int, int], tuple[Direction, _search.Chain, _search.ChainOptimum]] = field(
+        init=False, default_factory=dict
+    )
 
     def __post_init__(self) -> None:
         if not isinstance(self.line, InfluenceLine):
@@ -86,10 +89,11 @@ class _Study:
             )
         model = as_model(self.load)
         if self.line.units is None:
-            raise UnitsRequiredError(
+            raise UnitsError(
                 f"{self.line.quantity.label}: the beam declares no units, so {model.name} (in "
                 f"{model.units.name}) cannot be applied. Declare them: Beam(..., units={model.units.name!r}) "
-                "or units='kN-m'."
+                "or units='kN-m'.",
+                field="units",
             )
         self.model = model.converted(self.line.units)
 
@@ -145,14 +149,14 @@ class _Study:
             for block in pattern.blocks
         ]
         self.prefetch(wanted, sense)
-        best: tuple[float, Combination, tuple[LoadPlacement, ...]] | None = None
+        best: tuple[float, Combination] | None = None
         for case in cases:
-            placements = tuple(self.place_part(part, sense, case.part_factor(part)) for part in case.parts)
-            total = sum(p.factored for p in placements)
+            total = sum(case.part_factor(part) * self.effect(part, sense) for part in case.parts)
             if best is None or sense * total > sense * best[0] + 1e-12 * max(1.0, abs(best[0])):
-                best = (total, case, placements)
+                best = (total, case)
         assert best is not None  # a model always has a case that applies everywhere
-        total, case, placements = best
+        total, case = best
+        placements = tuple(self.placement(part, sense, case.part_factor(part)) for part in case.parts)
         return Extreme(
             self.line.quantity, "max" if sense > 0 else "min", float(total), case.name, placements, self.line.units
         )
@@ -182,32 +186,39 @@ class _Study:
         )
 
     # ------------------------------------------------------------ one load
-    def place_part(self, part: Load, sense: int, factor: float) -> LoadPlacement:
+    def effect(self, part: Load, sense: int) -> float:
+        """Unfactored extreme effect of one load (its placement is described only if its case governs)."""
         key = (id(part), sense)
-        if key not in self._placed:
+        if key not in self._effects:
             if isinstance(part, UniformLoad):
-                placed = self.place_uniform(part, sense)
+                area = self.line.positive_area if sense > 0 else self.line.negative_area
+                self._effects[key] = part.intensity * area
             else:
-                placed = self.place_chain(part, sense)
-            self._placed[key] = placed
-        p = self._placed[key]
-        return LoadPlacement(p.load, p.effect, factor, p.direction, p.spacings, p.axles, p.patches, p.front)
+                self._effects[key] = self.best_chain(part, sense)[2].value
+        return self._effects[key]
 
-    def place_uniform(self, load: UniformLoad, sense: int) -> LoadPlacement:
-        patches = self.patches_on_sign(load.intensity, [(-np.inf, np.inf)], sense)
-        return LoadPlacement(load.name, sum(p.effect for p in patches), 1.0, None, (), (), patches)
+    def placement(self, part: Load, sense: int, factor: float) -> LoadPlacement:
+        if isinstance(part, UniformLoad):
+            patches = self.patches_on_sign(part.intensity, [(-np.inf, np.inf)], sense)
+            return LoadPlacement(part.name, self.effect(part, sense), factor, None, (), (), patches)
+        direction, chain, opt = self.best_chain(part, sense)
+        drop = isinstance(part, AxleTrain) and part.drop_adverse_axles
+        return self.describe(part, None if isinstance(part, KnifeEdge) else direction, chain, opt, sense, drop, factor)
 
-    def place_chain(self, load: AxleTrain | UniformBlocks | KnifeEdge, sense: int) -> LoadPlacement:
-        drop = isinstance(load, AxleTrain) and load.drop_adverse_axles
-        find = self.finder(drop, sense)
-        best: tuple[Direction | None, _search.Chain, _search.ChainOptimum] | None = None
-        for direction, chain in _layouts(load):
-            opt = _search.best_in_chain(chain, find, sense)
-            if best is None or sense * opt.value > sense * best[2].value + 1e-12 * max(1.0, abs(best[2].value)):
-                best = (direction, chain, opt)
-        assert best is not None
-        direction, chain, opt = best
-        return self.describe(load, None if isinstance(load, KnifeEdge) else direction, chain, opt, sense, drop)
+    def best_chain(
+        self, load: AxleTrain | UniformBlocks | KnifeEdge, sense: int
+    ) -> tuple[Direction, _search.Chain, _search.ChainOptimum]:
+        key = (id(load), sense)
+        if key not in self._chains:
+            find = self.finder(isinstance(load, AxleTrain) and load.drop_adverse_axles, sense)
+            best: tuple[Direction, _search.Chain, _search.ChainOptimum] | None = None
+            for direction, chain in _layouts(load):
+                opt = _search.best_in_chain(chain, find, sense)
+                if best is None or sense * opt.value > sense * best[2].value + 1e-12 * max(1.0, abs(best[2].value)):
+                    best = (direction, chain, opt)
+            assert best is not None
+            self._chains[key] = best
+        return self._chains[key]
 
     def describe(
         self,
@@ -217,6 +228,7 @@ class _Study:
         opt: _search.ChainOptimum,
         sense: int,
         drop: bool,
+        factor: float,
     ) -> LoadPlacement:
         line = self.line
         xs: list[float] = []
@@ -256,7 +268,9 @@ class _Study:
         # chain), the far end of the last group of the mirrored chain when travelling left to right
         last = chain.groups[-1]
         front = opt.positions[-1] + last.extent if direction == "left to right" else opt.positions[0]
-        return LoadPlacement(load.name, opt.value, 1.0, direction, spacings, tuple(axles), tuple(patches), front)
+        return LoadPlacement(
+            load.name, opt.value, factor, direction, spacings, tuple(axles), tuple(patches), front
+        )
 
     def patches_on_sign(self, intensity: float, spans: list[tuple[float, float]], sense: int) -> tuple[Patch, ...]:
         """Patches of a breakable load limited to ``spans``: the parts of the line of the wanted sign."""

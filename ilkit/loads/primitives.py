@@ -174,7 +174,8 @@ class AxleTrain:
                 field="spacings",
                 value=spacings,
             )
-        spans = tuple(_spacing(s, i) for i, s in enumerate(spacings))
+        ranges = tuple(_spacing(s, i) for i, s in enumerate(spacings))
+        system = read_units(units, name)
         for label, extra in (("ahead", ahead), ("behind", behind)):
             if extra is not None and not isinstance(extra, TrainUniform):
                 raise LoadInputError(
@@ -183,8 +184,8 @@ class AxleTrain:
         if not isinstance(drop_adverse_axles, bool):
             raise LoadInputError(f"drop_adverse_axles: give True or False, got {drop_adverse_axles!r}.")
         object.__setattr__(self, "loads", axle_loads)
-        object.__setattr__(self, "spacings", spans)
-        object.__setattr__(self, "units", read_units(units, name))
+        object.__setattr__(self, "spacings", ranges)
+        object.__setattr__(self, "units", system)
         object.__setattr__(self, "name", str(name))
         object.__setattr__(self, "ahead", ahead)
         object.__setattr__(self, "behind", behind)

@@ -27,7 +27,7 @@ from typing import TYPE_CHECKING, get_args
 import numpy as np
 
 from ilkit._exact import fmt
-from ilkit.errors import LoadInputError, UnitsRequiredError
+from ilkit.errors import LoadInputError, UnitsError
 from ilkit.influence import InfluenceLine
 from ilkit.loads.primitives import AxleTrain, KnifeEdge, UniformBlocks, number
 from ilkit.loads.results import AxlePosition, Direction, LoadPlacement, Patch
@@ -103,7 +103,7 @@ def stand(
             value=direction,
         )
     front = number(at, "stand: position at", minimum=-math.inf, strict=False)
-    load = load.converted(_units(line, load))
+    load = load.converted(units_for(load, line.units, line.quantity.label))
     gaps = _spacings(load, spacings)
     offsets, weights, segments = _layout(load, gaps)
     sign = -1.0 if direction == "left to right" else 1.0  # offsets run behind the front
@@ -136,13 +136,15 @@ def train_length(load: Travelling, spacings: Sequence[float] | None = None) -> f
 
 
 # -------------------------------------------------------------------- helpers
-def _units(line: InfluenceLine, load: Travelling) -> UnitSystem:
-    if line.units is None:
-        raise UnitsRequiredError(
-            f"{line.quantity.label}: the beam declares no units, so {load.name} (in {load.units.name}) "
-            f"cannot be applied. Declare them: Beam(..., units={load.units.name!r}) or units='kN-m'."
+def units_for(load: Travelling, system: UnitSystem | None, what: str) -> UnitSystem:
+    """The unit system ``load`` is applied in: the beam's ``system``; a beam without one is an error."""
+    if system is None:
+        raise UnitsError(
+            f"{what}: the beam declares no units, so {load.name} (in {load.units.name}) cannot be applied. "
+            f"Declare them: Beam(..., units={load.units.name!r}) or units='kN-m'.",
+            field="units",
         )
-    return line.units
+    return system
 
 
 def _spacings(load: Travelling, spacings: Sequence[float] | None) -> list[float]:

@@ -603,15 +603,9 @@ def _read_loads(loads: Any) -> tuple[dict[str, Travelling | None], dict[str, Any
 
 
 def _train_length(beam: Beam, load: Travelling, spacings: Sequence[float] | None) -> float:
-    from ilkit.errors import UnitsRequiredError
-    from ilkit.loads import train_length
+    from ilkit.loads.standing import train_length, units_for
 
-    if beam.units is None:
-        raise UnitsRequiredError(
-            f"{load.name} is given in {load.units.name}, but the beam declares no units; "
-            f"declare them: Beam(..., units={load.units.name!r})."
-        )
-    return train_length(load.converted(beam.units), spacings)
+    return train_length(load.converted(units_for(load, beam.units, load.name)), spacings)
 
 
 def _one_sided(line: InfluenceLine, x: float, side: Literal["left", "right"] | None) -> float:
