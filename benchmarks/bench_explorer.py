@@ -5,7 +5,7 @@ The three-span continuous girder of ``notebooks/explorer.ipynb`` (28 + 40 +
 service vehicle.  The explorer is driven headless: the load slider
 is stepped across the girder and back, in both travel directions, for the
 pier moment, a mid-span moment and the shear at a pier, and each step is
-timed from setting ``position.value`` to the figure being ready to send:
+timed from setting ``slider.value`` to the figure being ready to send:
 
 * ``inline``: core call, read-out, blit of the moving load on the cached
   background, PNG of the figure placed in the output widget;
@@ -57,17 +57,17 @@ def drive(backend: str) -> dict[str, list[float]]:
         # as after the browser's "initialized" message: ipympl stops keeping a full PNG still per frame
         explorer._figure.live.widget.syncing_data_url = False
     explorer.load.value = VEHICLE.name
-    slider = explorer.position
-    steps = np.arange(slider.min, slider.max, 40 * slider.step)
+    slider = explorer.slider
+    steps = range(slider.min, slider.max, 40)
     out: dict[str, list[float]] = {"step": [], "read-out": [], "new quantity": [], "worst placement": []}
     for kind, at in SECTIONS:
         out["new quantity"].append(timed(explorer.quantity, kind) + timed(explorer.location, at))
         for direction in ("left to right", "right to left"):
             explorer.direction.value = direction
             for x in [*steps, *steps[::-1]]:
-                out["step"].append(timed(slider, float(x)))
+                out["step"].append(timed(slider, int(x)))
         for x in steps:  # the read-out alone: what the step does before the coalesced redraw
-            slider.value = float(x)
+            slider.value = int(x)
             start = time.perf_counter()
             explorer._update_value()
             out["read-out"].append((time.perf_counter() - start) * 1e3)

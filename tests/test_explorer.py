@@ -163,10 +163,10 @@ def test_worst_placement_of_the_unit_load_is_the_lines_extreme(ex, girder, kind,
     line = ex.line
     ex.largest.click()
     assert ex.value == line.maximum.value
-    assert ex.position.value == line.maximum.x
+    assert ex.x == line.maximum.x
     ex.smallest.click()
     assert ex.value == line.minimum.value
-    assert ex.position.value == line.minimum.x
+    assert ex.x == line.minimum.x
     assert shown(ex) == pytest.approx(line.minimum.value, abs=1e-4 * max(1, abs(line.minimum.value)))
 
 
@@ -377,7 +377,8 @@ def test_load_chooser_offers_the_travelling_parts_and_the_models(continuous):
 def test_read_out_of_a_train_is_the_core_effect(moving, continuous, x, direction):
     moving.direction.value = direction
     moving.position.value = x
-    want = ilkit.stand(moving.line, VEHICLE, moving.position.value, direction=direction)
+    assert moving.x == moving.position.value
+    want = ilkit.stand(moving.line, VEHICLE, moving.x, direction=direction)
     assert moving.value == want.effect
     assert [a.x for a in moving.placement.axles] == [a.x for a in want.axles]
     assert shown(moving) == pytest.approx(want.effect, abs=1e-4 * max(1.0, abs(want.effect)))
@@ -392,12 +393,12 @@ def test_worst_placement_of_a_train_is_the_core_placement(moving, continuous, ki
     (moving.largest if extreme == "max" else moving.smallest).click()
     best = ilkit.place(moving.line, VEHICLE, extreme, beam=continuous)
     assert moving.value == best.value
-    assert moving.position.value == best.placements[0].front
+    assert moving.x == moving.position.value == best.placements[0].front
     assert moving.direction.value == best.placements[0].direction
     assert "worst placement" in moving.readout.value
-    moving.position.value = moving.position.value + moving.position.step  # moving on: the load as it stands
+    moving.slider.value += 1  # one step on: the load as it stands
     assert "worst placement" not in moving.readout.value
-    want = ilkit.stand(moving.line, VEHICLE, moving.position.value, direction=moving.direction.value)
+    want = ilkit.stand(moving.line, VEHICLE, moving.x, direction=moving.direction.value)
     assert moving.value == want.effect
 
 
@@ -408,8 +409,8 @@ def test_worst_placement_keeps_the_spacing_of_a_variable_train(continuous):
     explorer.smallest.click()
     best = ilkit.place(explorer.line, truck, "min", beam=continuous).placements[0]
     assert explorer.value == best.effect
-    explorer.position.value = explorer.position.value - explorer.position.step
-    want = ilkit.stand(explorer.line, truck, explorer.position.value, direction=best.direction, spacings=best.spacings)
+    explorer.slider.value -= 1
+    want = ilkit.stand(explorer.line, truck, explorer.x, direction=best.direction, spacings=best.spacings)
     assert explorer.value == want.effect
     assert "spacings" in explorer.readout.value
     explorer.close()
@@ -454,3 +455,26 @@ def test_missing_widgets_package_names_the_install(girder, monkeypatch):
     monkeypatch.setitem(sys.modules, "ipywidgets", None)  # as if ipywidgets were not installed
     with pytest.raises(ilkit.MissingDependencyError, match=r"pip install 'ilkit\[notebook\]'"):
         girder.explore()
+
+
+def test_the_slider_moves_by_steps_and_the_box_takes_an_exact_position(moving, continuous):
+    """The slider counts steps (a browser cannot snap or round them); the position box is exact."""
+    moving.quantity.value = "moment"
+    moving.location.value = "70"
+    moving.smallest.click()
+    front = ilkit.place(moving.line, VEHICLE, "min", beam=continuous).placements[0].front
+    assert moving.x == moving.position.value == front  # exact, between the slider's steps
+    k = moving.slider.value
+    moving.slider.value = k  # what a browser sends back for a step it shows: no change
+    assert moving.x == front and "worst placement" in moving.readout.value
+    xs = []
+    for j in (1, 2, 3):
+        moving.slider.value = k + j
+        xs.append(moving.x)
+    assert xs[2] - xs[1] == pytest.approx(xs[1] - xs[0]) and xs[1] > xs[0]  # equal steps
+    assert abs(xs[0] - front) <= xs[1] - xs[0]  # the first step on is next to where the load was
+    moving.position.value = 61.234  # typed: taken as it is
+    assert moving.x == 61.234
+    assert moving.value == ilkit.stand(moving.line, VEHICLE, 61.234, direction=moving.direction.value).effect
+    moving.position.value = 1e4  # beyond the load's travel: a message, the load stays
+    assert "outside the load's travel" in message(moving) and moving.x == 61.234

@@ -23,12 +23,12 @@ explorer = girder.explore(quantity="moment", at=28, backend="inline")
 draws, values = [], []
 _render = explorer._render
 def slow_render():
-    draws.append(explorer.position.value)
+    draws.append(explorer.x)
     time.sleep(0.05)
     _render()
 explorer._redraw._callback = slow_render
-explorer.position.observe(lambda change: values.append(explorer.value), "value")
-print(explorer.position.model_id)
+explorer.slider.observe(lambda change: values.append((explorer.x, explorer.value)), "value")
+print(explorer.slider.model_id, explorer.slider.value)
 """
 
 
@@ -58,16 +58,16 @@ def run(client, code: str) -> str:
 
 
 def test_a_fast_drag_updates_every_read_out_and_coalesces_the_redraws(kernel):
-    slider = run(kernel, SETUP).strip()
-    xs = [1 + 0.5 * k for k in range(60)]
-    for x in xs:
-        content = {"comm_id": slider, "data": {"method": "update", "state": {"value": x}, "buffer_paths": []}}
+    slider, start = run(kernel, SETUP).split()
+    steps = [int(start) + k for k in range(1, 61)]  # a drag to the right over 60 steps
+    for step in steps:
+        content = {"comm_id": slider, "data": {"method": "update", "state": {"value": step}, "buffer_paths": []}}
         kernel.session.send(kernel.shell_channel.socket, "comm_msg", content=content)
         time.sleep(0.005)
     time.sleep(1.0)
-    check = f"values == [girder.moment(28)(x) for x in {xs!r}]"
-    report = run(kernel, f"print(len(values), len(draws), draws[-1], {check})")
+    check = "all(v == girder.moment(28)(x) for x, v in values)"
+    report = run(kernel, f"print(len(values), len(draws), draws[-1] == explorer.x, {check})")
     events, redraws, last, exact = report.split()
     assert int(events) == 60 and exact == "True"  # every read-out, each the core's ordinate
     assert int(redraws) <= 15  # about one redraw per 50 ms, not one per event
-    assert float(last) == xs[-1]  # the last redraw shows where the load stopped
+    assert last == "True"  # the last redraw shows where the load stopped

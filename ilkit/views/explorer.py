@@ -89,13 +89,18 @@ class Explorer:
 
     Attributes
     ----------
-    quantity, location, side, load, direction, position, largest, smallest, envelope, model:
+    quantity, location, side, load, direction, slider, position, largest, smallest, envelope, model:
         The controls (ipywidgets); set their ``value`` (or ``click()`` a
-        button) to drive the explorer from code.
+        button) to drive the explorer from code.  ``slider`` moves the load by
+        steps (its value counts the steps); ``position`` is the exact position
+        of the load (a number box; setting it moves the load).
     readout, message:
         The read-out and the message area (HTML widgets).
     line:
         The influence line shown (a core object).
+    x:
+        Where the load stands: the unit load, or the front (lead axle) of a
+        travelling load, in the beam's length unit (``position.value``).
     value:
         The number read out: the ordinate under the unit load, or the effect
         of the load (unfactored) in the beam's units.
@@ -121,6 +126,7 @@ class Explorer:
         self._travelling, self._models = _read_loads(loads)
         self.line: InfluenceLine | None = None
         self.value: float = 0.0
+        self.x: float = 0.0
         self.placement: LoadPlacement | None = None
         self._limit: Literal["left", "right"] | None = None  # unit load: one-sided value after a jump
         self._worst: LoadPlacement | None = None  # a load model's worst placement, until the load moves
@@ -156,10 +162,17 @@ class Explorer:
             options=[("→", "left to right"), ("←", "right to left")], value="left to right",
             tooltips=["travelling left to right", "travelling right to left"], style={"button_width": "2.6em"},
         )  # fmt: skip
-        self.position = w.FloatSlider(
-            description="load at x", continuous_update=True, readout_format=".2f",
-            layout=w.Layout(width="36em"), style=wide,
+        # The slider counts steps (integers): a browser's slider snaps any value between
+        # its steps (or with rounding noise) to a step and sends it back, which would move
+        # a load put exactly somewhere (a worst placement) and race with later settings.
+        self.slider = w.IntSlider(
+            description="load at x", continuous_update=True, readout=False,
+            layout=w.Layout(width="30em"), style=wide,
         )  # fmt: skip
+        self.position = w.FloatText(
+            layout=w.Layout(width="7em"), tooltip="exact position of the load (its front)",
+        )  # fmt: skip
+        self._x0, self._step = 0.0, 1.0  # the slider's step k stands for x = x0 + k * step
         narrow = w.Layout(width="6.5em")
         self.largest = w.Button(description="largest", tooltip="jump to the placement of the largest value",
                                 layout=narrow)  # fmt: skip
@@ -175,8 +188,8 @@ class Explorer:
         self.envelope.layout.display = "" if self._models else "none"
         self.readout = w.HTML()
         self.message = w.HTML()
-        for name in ("quantity", "location", "side", "load", "direction", "position", "largest", "smallest",
-                     "envelope", "model", "readout", "message"):  # fmt: skip
+        for name in ("quantity", "location", "side", "load", "direction", "slider", "position", "largest",
+                     "smallest", "envelope", "model", "readout", "message"):  # fmt: skip
             getattr(self, name).add_class(f"ilkit-{name}")
 
         self._figure = ExplorerFigure(beam, backend=backend)
@@ -186,7 +199,7 @@ class Explorer:
             [
                 w.HBox([self.quantity, self.location, self.side]),
                 w.HBox([self.load, self.direction, self.largest, self.smallest]),
-                w.HBox([self.position, self.envelope, self.model]),
+                w.HBox([self.slider, self.position, self.envelope, self.model]),
                 self.readout,
                 self.message,
                 self._figure.live.widget,
@@ -197,14 +210,15 @@ class Explorer:
         self._load_changed()
         self._set_section(at if at is not None else self._default_location(quantity), side, strict=True)
         assert self.line is not None
-        self._set_quietly(self.position, float(self.line.quantity.at))  # the unit load starts at the section
+        self._place_at(float(self.line.quantity.at))  # the unit load starts at the section
         self._update_value()
         self.quantity.observe(self._on_quantity, "value")
         self.location.observe(self._on_location, "value")
         self.side.observe(self._on_side, "value")
         self.load.observe(self._on_load, "value")
         self.direction.observe(self._on_move, "value")
-        self.position.observe(self._on_move, "value")
+        self.slider.observe(self._on_slider, "value")
+        self.position.observe(self._on_position, "value")
         self.largest.on_click(lambda _: self.jump("max"))
         self.smallest.on_click(lambda _: self.jump("min"))
         self.envelope.observe(self._on_envelope, "value")
@@ -221,7 +235,7 @@ class Explorer:
 
     def __repr__(self) -> str:
         line = self.line.quantity.label if self.line is not None else "no line"
-        return f"<ilkit explorer: {line}, {self.load.value} at x={self.position.value:.6g}>"
+        return f"<ilkit explorer: {line}, {self.load.value} at x={self.x:.6g}>"
 
     def still(self) -> Any:
         """The figure as it is now, as an image for the notebook (e.g. for the calculation record)."""
@@ -339,20 +353,48 @@ class Explorer:
             self._show_message(str(err), error=True)
             return False
         step = _nice_step(length / 400)
-        lo, hi = math.floor(-extent / step) * step, math.ceil((length + extent) / step) * step
+        first, last = math.floor(-extent / step), math.ceil((length + extent) / step)
+        self._x0, self._step = first * step, step
+        self._set_quietly(self.slider, 0)
         self._quiet = True
         try:
-            slider = self.position
-            if hi > slider.min:  # keep min <= max at every moment
-                slider.max, slider.min = hi, lo
-            else:
-                slider.min, slider.max = lo, hi
-            slider.step = step
-            slider.value = min(max(slider.value, lo), hi)
-            self.direction.disabled = load is None
+            self.slider.max = last - first
         finally:
             self._quiet = False
+        self.direction.disabled = load is None
+        self._place_at(min(max(self.x, self._x0), self._x0 + self.slider.max * step))
         return True
+
+    def _place_at(self, x: float) -> None:
+        """Put the load at ``x`` exactly: the position box shows it, the slider the step nearest to it."""
+        self.x = x
+        self._set_quietly(self.position, x)
+        self._set_quietly(self.slider, min(max(round((x - self._x0) / self._step), 0), self.slider.max))
+
+    def _on_slider(self, change: dict[str, Any]) -> None:
+        if self._quiet:
+            return
+        x = round(self._x0 + change["new"] * self._step, 12)
+        self.x = x
+        self._set_quietly(self.position, x)
+        self._on_move(change)
+
+    def _on_position(self, change: dict[str, Any]) -> None:
+        if self._quiet:
+            return
+        x = float(change["new"])
+        top = self._x0 + self.slider.max * self._step
+        if not (math.isfinite(x) and self._x0 <= x <= top):
+            self._show_message(
+                f"load position: x={x:g} is outside the load's travel; give a position from "
+                f"{self._x0:g} to {top:g} (the front of the load, in the beam's length unit).",
+                error=True,
+            )
+            self._set_quietly(self.position, self.x)
+            return
+        self._place_at(x)
+        self._show_message("")
+        self._on_move(change)
 
     def _on_move(self, change: dict[str, Any]) -> None:
         if self._quiet:
@@ -366,7 +408,7 @@ class Explorer:
         line = self.line
         if line is None:
             return
-        x = float(self.position.value)
+        x = self.x
         load = self._travelling[self.load.value]
         try:
             if load is None:
@@ -418,12 +460,8 @@ class Explorer:
         except IlkitError as err:
             self._show_message(str(err), error=True)
             return
-        self._quiet = True
-        try:
-            self.direction.value = direction
-            self.position.value = min(max(front, self.position.min), self.position.max)
-        finally:
-            self._quiet = False
+        self._set_quietly(self.direction, direction)
+        self._place_at(min(max(front, self._x0), self._x0 + self.slider.max * self._step))
         self._limit, self._worst = limit, worst
         self._worst_value = found.value
         self._show_message("")
@@ -459,7 +497,7 @@ class Explorer:
         q = line.quantity
         length_unit = f" {line.units.length}" if line.units else ""
         load_name = self.load.value
-        x = float(self.position.value)
+        x = self.x
         where = (
             f"{html.escape(load_name)} at x = "
             f"<span class='ilkit-at' data-x='{x!r}'>{x:.2f}</span>{html.escape(length_unit)}"

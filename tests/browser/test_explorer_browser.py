@@ -77,7 +77,7 @@ def drive_explorer(page, screenshot) -> None:
     assert float(where.get_attribute("data-x")) == 45.0
 
     # move the vehicle with the keyboard: three steps to the right
-    handle = explorer.locator(".ilkit-position .noUi-handle")
+    handle = explorer.locator(".ilkit-slider .noUi-handle")
     handle.focus()
     for _ in range(3):
         handle.press("ArrowRight")
@@ -154,11 +154,11 @@ def test_explorer_with_ipympl_updates_the_canvas_in_place(page, tmp_path, artifa
             return last
 
         before = picture()
-        handle = explorer.locator(".ilkit-position .noUi-handle")
+        handle = explorer.locator(".ilkit-slider .noUi-handle")
         handle.focus()
         for _ in range(40):
             handle.press("ArrowRight")
-        x = _wait_for(explorer.locator(".ilkit-position .widget-readout").inner_text, 4.0)
+        x = _wait_for(lambda: explorer.locator(".ilkit-readout .ilkit-at").get_attribute("data-x"), 4.0)
         _wait_for(explorer.locator(".ilkit-readout .ilkit-value").inner_text, float(SMALL.shear(10)(x)))
         after = picture()
         assert after != before
