@@ -122,40 +122,34 @@ def eliminate(rows: list[Row], ncols: int) -> tuple[list[Row], list[int]]:
     work = [dict(r) for r in rows if r]
     pivots: list[int] = []
     reduced: list[Row] = []
-    # index rows by their columns for fast lookup
     for col in range(ncols):
-        pivot_index = None
-        for i, r in enumerate(work):
-            if r.get(col):
-                pivot_index = i
-                break
+        pivot_index = next((i for i, r in enumerate(work) if r.get(col)), None)
         if pivot_index is None:
             continue
         prow = work.pop(pivot_index)
         inv = 1 / prow[col]
         prow = {c: v * inv for c, v in prow.items() if v}
         for r in work:
-            factor = r.get(col)
-            if factor:
-                for c, v in prow.items():
-                    nv = r.get(c, 0) - factor * v
-                    if nv:
-                        r[c] = nv
-                    else:
-                        r.pop(c, None)
+            _subtract(r, prow, col)
         for r in reduced:
-            factor = r.get(col)
-            if factor:
-                for c, v in prow.items():
-                    nv = r.get(c, 0) - factor * v
-                    if nv:
-                        r[c] = nv
-                    else:
-                        r.pop(c, None)
+            _subtract(r, prow, col)
         reduced.append(prow)
         pivots.append(col)
         work = [r for r in work if r]
     return reduced, pivots
+
+
+def _subtract(row: Row, pivot_row: Row, col: int) -> None:
+    """Eliminate ``col`` from ``row`` with the normalised ``pivot_row`` (in place)."""
+    factor = row.get(col)
+    if not factor:
+        return
+    for c, v in pivot_row.items():
+        nv = row.get(c, 0) - factor * v
+        if nv:
+            row[c] = nv
+        else:
+            row.pop(c, None)
 
 
 def nullspace(rows: list[Row], ncols: int) -> tuple[int, list[list[Fraction]]]:
