@@ -478,3 +478,10 @@ def test_the_slider_moves_by_steps_and_the_box_takes_an_exact_position(moving, c
     assert moving.value == ilkit.stand(moving.line, VEHICLE, 61.234, direction=moving.direction.value).effect
     moving.position.value = 1e4  # beyond the load's travel: a message, the load stays
     assert "outside the load's travel" in message(moving) and moving.x == 61.234
+
+
+def test_close_closes_every_control(girder):
+    explorer = Explorer(girder, backend="inline")
+    controls = [explorer.quantity, explorer.location, explorer.slider, explorer.position, explorer.readout]
+    explorer.close()
+    assert all(c.comm is None for c in controls)

@@ -251,9 +251,15 @@ class Explorer:
             self._render()
 
     def close(self) -> None:
-        """Close the widgets and release the figure."""
+        """Close the widgets (every control and box) and release the figure."""
         self._figure.live.close()
-        self.widget.close()
+
+        def close_tree(widget: Any) -> None:
+            for child in getattr(widget, "children", ()):
+                close_tree(child)
+            widget.close()
+
+        close_tree(self.widget)
 
     # ---------------------------------------------------------------- section
     def _offers(self, kind: str) -> bool:
