@@ -7,8 +7,9 @@
 * a chooser for the quantity and a box for its location (reactions snap to
   the supports, hinge shears to the hinges; where the quantity jumps the
   explorer asks for the face);
-* a load chooser (a unit load and the load models given), a slider for the
-  load's position and a travel direction; the axles are drawn on the beam and
+* a load chooser (a unit load and the load models given), a slider that
+  moves the load by steps, a box for its exact position and a travel
+  direction; the axles are drawn on the beam and
   on the line, and the current value of the quantity is read out with units;
 * buttons that jump to the worst placement (largest, smallest), and an
   envelope view of a chosen load model.
