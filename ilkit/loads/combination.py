@@ -13,9 +13,19 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 from typing import Literal, get_args
 
+from ilkit._check import choice, listed
 from ilkit._exact import fmt
 from ilkit.errors import LoadInputError
-from ilkit.loads.primitives import AxleTrain, KnifeEdge, Load, UniformBlocks, UniformLoad, number, read_units
+from ilkit.loads.primitives import (
+    AxleTrain,
+    KnifeEdge,
+    Load,
+    UniformBlocks,
+    UniformLoad,
+    number,
+    read_name,
+    read_units,
+)
 from ilkit.units import UnitSystem
 
 __all__ = ["AppliesTo", "Combination", "LoadModel", "as_model"]
@@ -67,9 +77,10 @@ class Combination:
         factor: float = 1.0,
         applies_to: AppliesTo = "all",
     ) -> None:
+        name = read_name(name, "Combination")
         if isinstance(parts, _PRIMITIVES):
             parts = (parts,)
-        if not isinstance(parts, Sequence) or not parts:
+        if not isinstance(parts, Sequence) or isinstance(parts, str) or not parts:
             raise LoadInputError(f"{name}: give the parts as a list of loads, got {parts!r}.", field="parts")
         for p in parts:
             if not isinstance(p, _PRIMITIVES):
@@ -89,7 +100,13 @@ class Combination:
             )
         if isinstance(dynamic_on, str):
             dynamic_on = (dynamic_on,)
-        unknown = [n for n in dynamic_on if n not in names]
+        dynamic_on = listed(
+            dynamic_on,
+            wanted=f"{name}: dynamic_on: give the names of the parts that get the dynamic allowance, e.g. {names[:1]}",
+            field="dynamic_on",
+            error=LoadInputError,
+        )
+        unknown = [n for n in dynamic_on if not isinstance(n, str) or n not in names]
         if unknown:
             raise LoadInputError(
                 f"{name}: dynamic_on names {unknown}, which are not parts; the parts are {names}.",
@@ -103,14 +120,9 @@ class Combination:
                 f"name the parts it applies to, from {names}.",
                 field="dynamic_on",
             )
-        if applies_to not in get_args(AppliesTo):
-            raise LoadInputError(
-                f"{name}: applies_to must be one of {list(get_args(AppliesTo))}, got {applies_to!r}.",
-                field="applies_to",
-                value=applies_to,
-            )
+        choice(applies_to, get_args(AppliesTo), what=f"{name}: applies_to", field="applies_to", error=LoadInputError)
         units = parts[0].units
-        object.__setattr__(self, "name", str(name))
+        object.__setattr__(self, "name", name)
         object.__setattr__(self, "parts", tuple(p.converted(units) for p in parts))
         object.__setattr__(self, "dynamic_allowance", allowance)
         object.__setattr__(self, "dynamic_on", tuple(dynamic_on))
@@ -167,10 +179,18 @@ class LoadModel:
     notes: str = ""
 
     def __init__(self, name: str, cases: Sequence[Combination], *, source: str = "", notes: str = "") -> None:
+        name = read_name(name, "LoadModel")
         if isinstance(cases, Combination):
             cases = (cases,)
-        if not isinstance(cases, Sequence) or not cases or not all(isinstance(c, Combination) for c in cases):
-            raise LoadInputError(f"{name}: give the cases as a list of Combination objects, got {cases!r}.")
+        if (
+            not isinstance(cases, Sequence)
+            or isinstance(cases, str)
+            or not cases
+            or not all(isinstance(c, Combination) for c in cases)
+        ):
+            raise LoadInputError(
+                f"{name}: give the cases as a list of Combination objects, got {cases!r}.", field="cases", value=cases
+            )
         if not any(c.applies_to == "all" for c in cases):
             raise LoadInputError(
                 f"{name}: every case is limited to {cases[0].applies_to!r}; add a case with applies_to='all'.",
@@ -180,7 +200,7 @@ class LoadModel:
         if len(set(names)) != len(names):
             raise LoadInputError(f"{name}: cases must have distinct names, got {names}.", field="cases")
         units = cases[0].units
-        object.__setattr__(self, "name", str(name))
+        object.__setattr__(self, "name", name)
         object.__setattr__(self, "cases", tuple(c.converted(units) for c in cases))
         object.__setattr__(self, "source", str(source))
         object.__setattr__(self, "notes", str(notes))
