@@ -239,7 +239,7 @@ class InfluenceLine(RichDisplay):
         readable = xs.dtype.kind in "fiuU" or (xs.dtype.kind == "O" and not any(v is None for v in xs.flat))
         if readable:
             try:
-                xs = xs.astype(float)
+                xs = xs.astype(float, copy=False)
             except (TypeError, ValueError, OverflowError, ArithmeticError):
                 readable = False
         if not readable:

@@ -447,6 +447,15 @@ def test_table_cell_holding_an_array_is_a_typed_error_not_a_raw_item_error():
         AxleTrain.from_frame(frame, units="kN-m")
 
 
+def test_stand_position_may_be_a_length_quantity_like_a_line_position():
+    pint = pytest.importorskip("pint")
+    ureg = pint.UnitRegistry()
+    # unit knife-edge load at midspan of a 10 m simple span: M = L/4 = 2.5 kN·m (closed form)
+    assert stand(SPAN.moment(5), KNIFE, 500 * ureg.cm).effect == pytest.approx(2.5)
+    with pytest.raises(ilkit.UnitsError, match="stand: position at: 5 kilonewton is a force"):
+        stand(SPAN.moment(5), KNIFE, 5 * ureg.kN)
+
+
 def test_train_length_of_something_that_is_not_a_load_is_a_typed_error():
     with load_error("train_length: 5 does not travel as one load"):
         train_length(5)  # type: ignore[arg-type]

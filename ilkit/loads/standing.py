@@ -22,19 +22,17 @@ from __future__ import annotations
 
 import math
 from collections.abc import Sequence
-from typing import TYPE_CHECKING, get_args
+from typing import get_args
 
 import numpy as np
 
 from ilkit._check import choice, finite, listed
-from ilkit._exact import fmt
+from ilkit._exact import fmt, is_quantity
 from ilkit.errors import LoadInputError, UnitsError
 from ilkit.influence import InfluenceLine
 from ilkit.loads.primitives import OVERFLOW, AxleTrain, KnifeEdge, UniformBlocks, number
 from ilkit.loads.results import AxlePosition, Direction, LoadPlacement, Patch
-
-if TYPE_CHECKING:  # pragma: no cover
-    from ilkit.units import UnitSystem
+from ilkit.units import LENGTH, UnitSystem, magnitude_in
 
 __all__ = ["stand", "train_length", "Travelling"]
 
@@ -63,8 +61,8 @@ def stand(
         converted to the line's units.
     at:
         Position of the front of the load (beam length unit, from the left end
-        of the beam); any finite value: parts of the load off the beam carry
-        nothing.
+        of the beam); any finite value (or a pint length when the beam declares
+        units): parts of the load off the beam carry nothing.
     direction:
         ``"left to right"`` (the front is the rightmost axle) or
         ``"right to left"``.
@@ -88,6 +86,8 @@ def stand(
         )
     _travelling(load, "stand")
     choice(direction, DIRECTIONS, what="stand: direction", field="direction", error=LoadInputError)
+    if is_quantity(at):  # a position on the beam, in the beam's length unit
+        at = magnitude_in(at, dims=LENGTH, system=line.units, field="stand: position at")
     front = number(at, "stand: position at", minimum=-math.inf, strict=False)
     load = load.converted(units_for(load, line.units, line.quantity.label))
     gaps = _spacings(load, spacings)
