@@ -1,0 +1,38 @@
+"""The README's Python examples run as written, and print what their comments say."""
+
+from __future__ import annotations
+
+import re
+from pathlib import Path
+
+import pytest
+
+README = Path(__file__).resolve().parents[1] / "README.md"
+
+
+def blocks() -> list[str]:
+    return re.findall(r"```python\n(.*?)```", README.read_text(encoding="utf-8"), flags=re.S)
+
+
+def test_readme_examples_run(tmp_path, monkeypatch):
+    pytest.importorskip("matplotlib")
+    import matplotlib
+
+    matplotlib.use("Agg")
+    monkeypatch.chdir(tmp_path)
+    namespace: dict = {}
+    found = blocks()
+    assert len(found) >= 4
+    for code in found:
+        exec(compile(code, str(README), "exec"), namespace)
+    # the numbers quoted in the comments
+    assert namespace["beam"].is_determinate and namespace["beam"].degree == 0
+    if "best" in namespace:
+        assert round(namespace["best"].value, 1) == -2218.3
+    if "explorer" in namespace:
+        import ilkit
+
+        explorer = namespace["explorer"]
+        girder, vehicle = namespace["girder"], namespace["vehicle"]
+        assert explorer.value == pytest.approx(ilkit.stand(girder.moment(28), vehicle, 45.0).effect)
+        explorer.close()
