@@ -157,16 +157,31 @@ class Combination:
 class LoadModel:
     """A published (or user) load model: alternative combinations, the worst of which governs.
 
-    ``source`` names the document and clause; ``notes`` says which values are
-    recalled from memory rather than read in the standard.
+    Where the model comes from, as plain data (calculation sheets print it):
+    ``source`` names the document and its clauses; ``edition`` the edition
+    the values were checked against (empty: not recorded, and the licensed
+    current edition governs); ``from_memory`` lists the values recalled
+    rather than read in a copy of the standard, each with its clause, to be
+    checked before use; ``notes`` holds any further remark.
     """
 
     name: str
     cases: tuple[Combination, ...]
     source: str = ""
     notes: str = ""
+    edition: str = ""
+    from_memory: tuple[str, ...] = ()
 
-    def __init__(self, name: str, cases: Sequence[Combination], *, source: str = "", notes: str = "") -> None:
+    def __init__(
+        self,
+        name: str,
+        cases: Sequence[Combination],
+        *,
+        source: str = "",
+        notes: str = "",
+        edition: str = "",
+        from_memory: Sequence[str] = (),
+    ) -> None:
         if isinstance(cases, Combination):
             cases = (cases,)
         if not isinstance(cases, Sequence) or not cases or not all(isinstance(c, Combination) for c in cases):
@@ -184,6 +199,10 @@ class LoadModel:
         object.__setattr__(self, "cases", tuple(c.converted(units) for c in cases))
         object.__setattr__(self, "source", str(source))
         object.__setattr__(self, "notes", str(notes))
+        object.__setattr__(self, "edition", str(edition))
+        if isinstance(from_memory, str):
+            from_memory = (from_memory,)
+        object.__setattr__(self, "from_memory", tuple(str(item) for item in from_memory))
 
     @property
     def units(self) -> UnitSystem:
@@ -199,7 +218,14 @@ class LoadModel:
         system = read_units(units, self.name)
         if system == self.units:
             return self
-        return LoadModel(self.name, [c.converted(system) for c in self.cases], source=self.source, notes=self.notes)
+        return LoadModel(
+            self.name,
+            [c.converted(system) for c in self.cases],
+            source=self.source,
+            notes=self.notes,
+            edition=self.edition,
+            from_memory=self.from_memory,
+        )
 
 
 def as_model(load: Load | Combination | LoadModel) -> LoadModel:

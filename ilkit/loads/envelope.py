@@ -16,6 +16,7 @@ from dataclasses import dataclass, field
 from fractions import Fraction
 from typing import TYPE_CHECKING, Any, Literal
 
+from ilkit._display import RichDisplay
 from ilkit._exact import fmt, to_exact
 from ilkit.errors import LoadInputError, UnitsError
 from ilkit.loads.combination import Combination, LoadModel, as_model
@@ -36,7 +37,7 @@ _GOLDEN = (math.sqrt(5.0) - 1.0) / 2.0
 
 
 @dataclass(frozen=True)
-class Envelope:
+class Envelope(RichDisplay):
     """Envelope of a load model on a beam.
 
     ``sections``: one row per section (two at interior supports and

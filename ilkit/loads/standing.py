@@ -123,7 +123,7 @@ def stand(
     patches.sort(key=lambda p: p.start)
     effect = float(sum(a.load * a.ordinate for a in axles if a.counted) + sum(p.effect for p in patches))
     shown = None if isinstance(load, KnifeEdge) else direction
-    return LoadPlacement(load.name, effect, 1.0, shown, tuple(gaps), axles, tuple(patches), front)
+    return LoadPlacement(load.name, effect, 1.0, shown, tuple(gaps), axles, tuple(patches), front, line)
 
 
 def train_length(load: Travelling, spacings: Sequence[float] | None = None) -> float:
