@@ -94,17 +94,18 @@ def _shape(line: InfluenceLine) -> tuple[np.ndarray, np.ndarray, np.ndarray, np.
     return xs, ys, bx, by
 
 
-def draw_line(ax: Axes, line: InfluenceLine) -> dict[str, Any]:
+def draw_line(ax: Axes, line: InfluenceLine, *, labels: bool = True) -> dict[str, Any]:
     """Draw the line with its shaded parts on ``ax``; returns the artists by role.
 
     Keys: ``"positive"`` and ``"negative"`` (fills), ``"shape"`` (the line),
-    ``"labels"`` (the ordinate labels).
+    ``"labels"`` (the key ordinates' labels; none with ``labels=False``).
     """
     xs, ys, bx, by = _shape(line)
     positive = ax.fill_between(xs, ys, 0, where=ys >= 0, interpolate=True, gid="positive", zorder=1, **style.POSITIVE)
     negative = ax.fill_between(xs, ys, 0, where=ys <= 0, interpolate=True, gid="negative", zorder=1, **style.NEGATIVE)
     (shape,) = ax.plot(bx, by, color=style.INK, linewidth=1.8, gid="shape", zorder=3)
-    return {"positive": positive, "negative": negative, "shape": shape, "labels": label_ordinates(ax, line)}
+    return {"positive": positive, "negative": negative, "shape": shape,
+            "labels": label_ordinates(ax, line) if labels else []}
 
 
 def plot_line(line: InfluenceLine, ax: Axes | None = None, *, title: str | None = None) -> Axes:

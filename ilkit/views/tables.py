@@ -5,7 +5,9 @@
 * :class:`~ilkit.InfluenceLine`: position and the ordinates just left and
   right of every breakpoint (``line.ordinates()``);
 * :class:`~ilkit.Beam`: its supports and releases by position;
-* a DataFrame is returned as it is.
+* a DataFrame is returned as it is;
+* moving-load results (placements, envelopes): see
+  :mod:`ilkit.views.moving_records`.
 
 Further result types add their form with ``table.register(TheirType)``.
 
@@ -101,8 +103,13 @@ def beam_facts(beam: Beam) -> list[tuple[str, str]]:
 
 
 def _cell(value: Any, digits: int) -> str:
+    """A table cell: numbers to ``digits`` significant figures; a missing value (None, NaN) is empty."""
+    if value is None:
+        return ""
     if isinstance(value, float) or hasattr(value, "dtype"):
         as_float = float(value)
+        if math.isnan(as_float):
+            return ""
         return short(as_float, digits) if math.isfinite(as_float) else str(as_float)
     return str(value)
 
@@ -167,7 +174,7 @@ def _latex_text(text: str) -> str:
 
 def _latex_cell(value: Any, digits: int) -> str:
     text = _cell(value, digits)
-    if isinstance(value, (int, float)) or hasattr(value, "dtype"):
+    if text and (isinstance(value, (int, float)) or hasattr(value, "dtype")):
         return f"${text}$"
     return _latex_text(text)
 
