@@ -54,7 +54,9 @@ def plot_envelope(
     """Plot the largest and smallest ``kind`` of an envelope along the beam; returns the axes.
 
     Moments and shears are drawn at the envelope's sections, the band between
-    the two curves shaded; reactions as bars at the supports.  The vertical
+    the two curves shaded, with the absolute maximum moment marked; reactions
+    as bars at the supports, from the smallest to the largest value, both
+    written.  The vertical
     axis carries the unit of the envelope's columns (positive up: sagging
     moment, shear positive as in :mod:`ilkit.model`, reaction upward).
     """
@@ -82,12 +84,25 @@ def plot_envelope(
         if kind == "reaction":
             for x, a, b in zip(xs, lo, hi):
                 ax.plot([x, x], [a, b], color=style.INK, linewidth=4, solid_capstyle="butt", gid=f"reaction:{x:g}")
+                for value, where, gid in ((b, 1, "max"), (a, -1, "min")):
+                    ax.annotate(short(value), xy=(x, value), xytext=(0, 3 * where), textcoords="offset points",
+                                ha="center", va="bottom" if where > 0 else "top", fontsize=7,
+                                gid=f"reaction-{gid}:{x:g}", annotation_clip=False)
+            ax.margins(y=0.18)
         else:
             order = np.lexsort((_face_order(table), xs))
             xs, hi, lo = xs[order], hi[order], lo[order]
             ax.fill_between(xs, lo, hi, facecolor="#dfe3e8", edgecolor="none", zorder=1, gid="band")
             ax.plot(xs, hi, color=style.INK, linewidth=1.6, gid="largest")
             ax.plot(xs, lo, color=style.INK, linewidth=1.0, linestyle=(0, (5, 2)), gid="smallest")
+            if kind == "moment":
+                best = envelope.absolute_maximum_moment
+                at = float(best.quantity.at)
+                ax.plot([at], [best.value], "o", color=style.INK, markersize=4, gid="absolute-maximum")
+                ax.annotate(f"absolute maximum {short(best.value)} at x = {short(at, 5)}", xy=(at, best.value),
+                            xytext=(0, 5), textcoords="offset points", ha="center", va="bottom", fontsize=7,
+                            gid="absolute-maximum-words", annotation_clip=False)
+                ax.margins(y=0.15)
         length_unit = x_col[x_col.find("[") + 1 : x_col.find("]")] if "[" in x_col else ""
         ax.set_xlabel(f"section x [{length_unit}]" if length_unit else "section x")
         ax.set_ylabel(f"{symbol} [{unit}]" if unit else symbol)

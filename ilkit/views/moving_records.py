@@ -36,7 +36,7 @@ from ilkit.views.display import mimebundle
 from ilkit.views.moving import ENVELOPE_KINDS, placement_title, plot_envelope, plot_placement
 from ilkit.views.plot import short
 from ilkit.views.report import report_section
-from ilkit.views.tables import table
+from ilkit.views.tables import doc_table, table, without_noise
 
 if TYPE_CHECKING:  # pragma: no cover
     import pandas as pd
@@ -100,36 +100,35 @@ def _bracket(unit: str) -> str:
 def placement_table(result: Extreme | LoadPlacement) -> Table:
     """One row per axle and loaded stretch and a total: position, load, ordinate, factor, effect.
 
-    The rows are those of ``result.to_frame()`` (the core's table); the total
-    is ``result.value`` (factored) for an extreme, ``result.effect`` for one load.
+    The rows are those of ``result.to_frame()`` (the core's table, rounding
+    noise shown as 0); the total is ``result.value`` (factored) for an
+    extreme, ``factor x effect`` for one load.
     """
-    frame = result.to_frame()
+    frame = without_noise(result.to_frame())
     if frame.empty:
         return Table(("load", "effect"), (("nothing on the beam", "0"),), "lr")
     x, to_x = _column(frame, "x"), _column(frame, "to x")
     load = next(c for c in frame.columns if c.startswith("load [") or c == "axle load")
-    intensity = _column(frame, "intensity")
+    intensity, effect = _column(frame, "intensity"), _column(frame, "effect")
     factored = _column(frame, "factored effect")
-    length = _unit(x)
-    force_unit, line_unit = _unit(load), _unit(intensity)
     header = (
-        "load", "item", f"x{_bracket(length)}", f"P{_bracket(force_unit)} or q{_bracket(line_unit)}", "ordinate",
+        "load", f"x{_bracket(_unit(x))}", f"P{_bracket(_unit(load))}, q{_bracket(_unit(intensity))}", "ordinate",
         "counted", "factor", f"factored effect{_bracket(_unit(factored))}",
     )
     rows: list[tuple[str, ...]] = []
     for _, r in frame.iterrows():
         patch = not _missing(r[to_x])
-        where = f"{short(r[x], 6)} to {short(r[to_x], 6)}" if patch else short(r[x], 6) + (
-            f" ({r['side']})" if r["side"] else "")
+        side = f" ({r['side']})" if r["side"] else ""
         rows.append((
-            str(r["load"]), str(r["item"]), where,
+            f"{r['load']}, {r['item']}",
+            f"{short(r[x], 6)} to {short(r[to_x], 6)}" if patch else short(r[x], 6) + side,
             short(r[intensity] if patch else r[load], 5),
-            "area " + short(r[_column(frame, "effect")] / r[intensity], 5) if patch else short(r["ordinate"], 4),
+            f"area {short(r[effect] / r[intensity], 5)}" if patch else short(r["ordinate"], 4),
             "yes" if r["counted"] else "no", short(r["factor"], 4), short(r[factored], 5),
         ))
     total = result.value if isinstance(result, Extreme) else result.factored
-    rows.append(("total", "", "", "", "", "", "", short(total, 5)))
-    return Table(header, tuple(rows), "llrrrlrr")
+    rows.append(("total", "", "", "", "", "", short(total, 5)))
+    return Table(header, tuple(rows), "lrrrlrr")
 
 
 def _missing(value: Any) -> bool:
@@ -191,12 +190,7 @@ def _(result: Extremes, number: str) -> list[Block]:
 def _envelope_table(frame: pd.DataFrame, symbol: str, where: tuple[str, ...]) -> Table:
     cols = [*where, _column(frame, f"{symbol} max"), f"{symbol} max case", _column(frame, f"{symbol} min"),
             f"{symbol} min case"]
-    rows = tuple(
-        tuple(short(v, 5) if isinstance(v, float) else str(v) for v in row)
-        for row in frame[cols].itertuples(index=False)
-    )
-    align = "".join("r" if frame[c].dtype.kind in "fiu" else "l" for c in cols)
-    return Table(tuple(cols), rows, align)
+    return doc_table(frame[cols], digits=5)
 
 
 def envelope_blocks(envelope: Envelope, number: str = "") -> list[Block]:

@@ -229,6 +229,8 @@ h3 { font-size: 1.1rem; margin-top: 1.8rem; }
 h4, h5 { font-size: 1rem; margin-bottom: .3rem; }
 table { border-collapse: collapse; margin: .6rem 0; font: 13px/1.4 'DejaVu Sans', sans-serif; }
 th, td { padding: .15rem .7rem; border-bottom: 1px solid #cfcac0; vertical-align: top; }
+td[style*="right"], th[style*="right"] { white-space: nowrap; }
+tbody th, td:first-child { min-width: 6rem; }
 thead th { border-bottom: 1.5px solid #1c1c1c; }
 figure { margin: 1rem 0; } figure img { width: 100%; }
 figcaption { font-size: 13px; font-style: italic; }

@@ -34,7 +34,7 @@ from ilkit.views.plot import short
 if TYPE_CHECKING:  # pragma: no cover
     import pandas as pd
 
-__all__ = ["table", "beam_facts", "to_csv", "to_excel", "to_latex", "doc_table"]
+__all__ = ["table", "beam_facts", "to_csv", "to_excel", "to_latex", "doc_table", "without_noise", "NOISE"]
 
 
 @singledispatch
@@ -119,9 +119,31 @@ def _align(frame: pd.DataFrame) -> str:
     return "".join("r" if frame[c].dtype.kind in "fiu" else "l" for c in frame.columns)
 
 
+NOISE = 1e-10
+"""A float smaller than this fraction of the largest magnitude in its column is rounding noise (shown as 0)."""
+
+
+def without_noise(frame: pd.DataFrame) -> pd.DataFrame:
+    """A copy of ``frame`` with rounding noise in its float columns set to 0 (see :data:`NOISE`).
+
+    Float results carry noise where the exact value is 0 (a moment at a
+    simple support: 1e-13 kip·ft); printed to four figures it would read as a
+    value.  Only what is shown is cleaned; the results keep their numbers.
+    """
+    out = frame.copy()
+    for column in out.columns:
+        if out[column].dtype.kind == "f":
+            values = out[column]
+            size = values.abs().max()
+            if size > 0:
+                out[column] = values.where((values.abs() > NOISE * size) | values.isna(), 0.0)
+    return out
+
+
 def doc_table(frame: pd.DataFrame, digits: int = 4) -> _doc.Table:
-    """A DataFrame as a document table (numbers to ``digits`` significant figures)."""
-    rows = tuple(tuple(_cell(v, digits) for v in row) for row in frame.itertuples(index=False))
+    """A DataFrame as a document table (numbers to ``digits`` significant figures, noise shown as 0)."""
+    clean = without_noise(frame)
+    rows = tuple(tuple(_cell(v, digits) for v in row) for row in clean.itertuples(index=False))
     return _doc.Table(tuple(str(c) for c in frame.columns), rows, _align(frame))
 
 
