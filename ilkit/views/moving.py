@@ -25,7 +25,7 @@ from ilkit.loads.results import Extreme, LoadPlacement, effect_unit
 from ilkit.views import style
 from ilkit.views.derive import quantity_title
 from ilkit.views.loaddraw import ARROW_BASE, LoadArtists, Loading, arrow_tip
-from ilkit.views.plot import draw_line, short
+from ilkit.views.plot import LABEL_BOX, breakpoint_ticks, draw_line, free_offsets, short, text_width
 
 if TYPE_CHECKING:  # pragma: no cover
     from matplotlib.axes import Axes
@@ -179,14 +179,15 @@ def plot_placement(
         _draw_beam(strip, beam, length)
         LoadArtists(strip, ax).update(loading, line)
         ax.set_xlim(-0.03 * length, 1.03 * length)
+        for side in ("top", "right"):
+            ax.spines[side].set_visible(False)  # the band of the loads takes the top of the axes
         _share_height(ax, strip, line, loading)
-        points = _points_per_unit(ax)
-        _label_axles(strip, ax, loading, points, units.force if units else "")
-        _label_patches(strip, loading, points, units.line_load if units else "")
+        _label_axles(strip, ax, loading, units.force if units else "")
+        _label_patches(strip, loading, _points_per_unit(ax), units.line_load if units else "")
         direction = next((p.direction for p in placements if p.direction), None)
         if direction is not None:
             _travel_arrow(strip, direction)
-        ax.set_xticks(line.breakpoints, [fmt(b) for b in line.breakpoints])
+        breakpoint_ticks(ax, line)
         ax.set_xlabel(f"x [{units.length}]" if units else "x")
         ax.set_ylabel(f"ordinate [{line.unit}]" if line.unit else "ordinate")
         ax.yaxis.label.set_y((1 - _BAND) / 2)  # beside the line, not the band
@@ -236,38 +237,25 @@ def _draw_beam(strip: Axes, beam: Beam | None, length: float) -> None:
         strip.plot([0, length], [0, 0], color=style.INK, linewidth=2.6, solid_capstyle="butt", gid="beam")
 
 
-def _levels(xs: list[float], width: float) -> list[int]:
-    """Label rows for labels at ``xs`` (sorted) of the given width: a label that would touch the one before
-    it goes one row further out (three rows, then back to the first)."""
-    out: list[int] = []
-    last: dict[int, float] = {}
-    for x in xs:
-        level = next((k for k in range(3) if x - last.get(k, -np.inf) >= width), len(out) % 3)
-        last[level] = x
-        out.append(level)
-    return out
-
-
-def _label_axles(strip: Axes, ax: Axes, loading: Loading, points: float, force: str) -> None:
+def _label_axles(strip: Axes, ax: Axes, loading: Loading, force: str) -> None:
     """The load above every counted axle's arrow and the ordinate under it on the line
-    (labels that would overlap are set on staggered rows)."""
+    (labels that would overlap are moved out)."""
     counted = sorted((a for a in loading.axles if a.counted), key=lambda a: a.x)
     heaviest = max((a.load for a in loading.axles), default=1.0)
     unit = f" {force}" if force else ""
-    loads = [short(a.load) for a in counted]
+    loads = [short(a.load) + (unit if k == 0 else "") for k, a in enumerate(counted)]
     ordinates = [short(a.ordinate) for a in counted]
-    xs = [a.x for a in counted]
-    load_rows = _levels(xs, (5.0 * max(map(len, loads), default=1) + 4) / points)
-    ordinate_rows = _levels(xs, (5.0 * max(map(len, ordinates), default=1) + 4) / points)
+    tips = [(a.x, arrow_tip(a.load, heaviest)) for a in counted]
+    lifts = free_offsets(strip, tips, [text_width(t, 6.5) for t in loads], [True] * len(counted), first=5.0)
+    drops = free_offsets(ax, [(a.x, a.ordinate) for a in counted], [text_width(t, 7.0) + 1 for t in ordinates],
+                         [a.ordinate >= 0 for a in counted], first=5.0)
     for k, a in enumerate(counted):
-        strip.annotate(loads[k] + (unit if k == 0 else ""), xy=(a.x, arrow_tip(a.load, heaviest)),
-                       xytext=(0, 2 + 8 * load_rows[k]), textcoords="offset points", ha="center", va="bottom",
-                       fontsize=6.5, gid=f"load:{fmt(a.x)}", annotation_clip=False)
-        sign = 1 if a.ordinate >= 0 else -1
-        ax.annotate(ordinates[k], xy=(a.x, a.ordinate), xytext=(0, sign * (5 + 9 * ordinate_rows[k])),
-                    textcoords="offset points", ha="center", va="bottom" if sign > 0 else "top", fontsize=7,
-                    gid=f"axle-ordinate:{fmt(a.x)}", annotation_clip=False,
-                    bbox={"boxstyle": "square,pad=0.1", "facecolor": "white", "edgecolor": "none", "alpha": 0.85})
+        strip.annotate(loads[k], xy=tips[k], xytext=(0, lifts[k] - 3), textcoords="offset points", ha="center",
+                       va="bottom", fontsize=6.5, gid=f"load:{fmt(a.x)}", annotation_clip=False,
+                       bbox={"boxstyle": "square,pad=0.05", "facecolor": "white", "edgecolor": "none"})
+        ax.annotate(ordinates[k], xy=(a.x, a.ordinate), xytext=(0, drops[k]), textcoords="offset points",
+                    ha="center", va="bottom" if drops[k] > 0 else "top", fontsize=7,
+                    gid=f"axle-ordinate:{fmt(a.x)}", annotation_clip=False, bbox=LABEL_BOX)
 
 
 def _label_patches(strip: Axes, loading: Loading, points: float, line_load: str) -> None:
