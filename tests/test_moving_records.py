@@ -17,6 +17,7 @@ import ilkit
 from ilkit import loads
 from ilkit.views import plot_envelope, plot_placement, table, to_csv, to_latex, write_calculation_sheet
 from ilkit.views.demo import highway_girder, highway_lines
+from ilkit.views.derive import quantity_title
 from ilkit.views.loaddraw import LoadArtists
 from ilkit.views.moving_records import model_blocks, placement_table
 from ilkit.views.plot import short
@@ -242,6 +243,10 @@ def test_sheet_with_a_load_model_holds_model_placements_and_envelope(highway_she
             word = "Largest" if found.extreme == "max" else "Smallest"
             assert re.search(rf"### 4\.{i}{tag} {word} .*: {re.escape(short(found.value, 5))} ", markdown)
             assert f"| total |  |  |  |  |  | {short(found.value, 5)} |" in markdown
+        # the summary row at the head of the chapter
+        hi, lo = both.maximum, both.minimum
+        assert (f"| 4.{i} | {quantity_title(line.quantity, 'ft')} | {short(hi.value, 5)} {hi.unit} | {hi.case} | "
+                f"{short(lo.value, 5)} {lo.unit} | {lo.case} |") in markdown
     # the envelope: its tables hold the core's values, and the absolute maximum is placed
     env = loads.envelope(girder, hl93, divisions=6)
     for _, row in env.sections.iterrows():

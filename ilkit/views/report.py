@@ -34,8 +34,9 @@ from ilkit.model import Beam
 from ilkit.quantity import KINDS
 from ilkit.views import _doc, style
 from ilkit.views._doc import Block, Callout, Figure, Heading, Para, Table
-from ilkit.views.derive import SIGN_CONVENTIONS, derivation
+from ilkit.views.derive import SIGN_CONVENTIONS, derivation, quantity_title
 from ilkit.views.display import beam_figure, line_facts, line_figure
+from ilkit.views.plot import short
 from ilkit.views.tables import beam_facts, doc_table
 
 __all__ = ["CAUTION", "CalculationSheet", "write_calculation_sheet", "sheet_blocks", "report_section", "default_lines"]
@@ -151,7 +152,8 @@ def sheet_blocks(
             Heading(f"{chapter}. Governing placements", 2),
             Para((f"For every influence line above, where the loads of {moving.model.name} must stand for the "
                   "largest and for the smallest value, and what each load contributes. Loads act downward; "
-                  "values follow the sign conventions of the inputs.",)),
+                  "values follow the sign conventions of the inputs. In short:",)),
+            extremes_summary(moving.placements, f"{chapter}."),
         ]
         for i, found in enumerate(moving.placements, start=1):
             blocks += report_section(found, f"{chapter}.{i}")
@@ -189,6 +191,20 @@ _PLACEMENT_METHOD = (
     "between breakpoints are found in closed form, so the extreme is exact to rounding. The envelope takes the "
     "extremes at the sections listed and refines the absolute maximum moment between them."
 )
+
+
+def extremes_summary(found: Sequence[Extremes], prefix: str = "") -> Table:
+    """One row per quantity: the largest and the smallest value with their governing cases (core values,
+    five significant figures) and the section of the sheet that shows each placement."""
+    rows = []
+    for i, both in enumerate(found, start=1):
+        hi, lo = both.maximum, both.minimum
+        units = hi.line.units if hi.line is not None else None
+        what = quantity_title(hi.quantity, units.length if units else "")
+        rows.append((f"{prefix}{i}", what, f"{short(hi.value, 5)} {hi.unit}", hi.case,
+                     f"{short(lo.value, 5)} {lo.unit}", lo.case))
+    return Table(("section", "quantity", "largest", "governing case", "smallest", "governing case"), tuple(rows),
+                 "llrlrl")
 
 
 @dataclass(frozen=True)
