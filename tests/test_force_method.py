@@ -158,3 +158,24 @@ def test_determinate_beams_have_no_redundants_and_bad_methods_are_named() -> Non
     # the stiffness write-up stays available for indeterminate beams
     continuous = ilkit.Beam(20, {0: "pin", 10: "roller", 20: "roller"}, EI=3)
     assert "Nodal displacements" in derivation(continuous.moment(5), method="stiffness").to_text()
+
+
+@pytest.mark.parametrize(
+    ("beam", "quantities"),
+    [
+        # an interior fixed support (a clamp in the beam): its moment is a redundant, and the moment and
+        # the shear jump there
+        (ilkit.Beam(20, {0: "pin", 10: "fixed", 20: "roller"}, EI=3),
+         [("moment", 5, None), ("moment", 10, "left"), ("moment", 10, "right"), ("shear", 10, "right")]),
+        # fixed ends, rotational springs (one on a settling bearing), a hinge and two stiffnesses
+        (ilkit.Beam(24, {0: "fixed", 8: ilkit.Spring(rotational=5), 16: ilkit.Spring(vertical=2, rotational=7),
+                         24: "fixed"}, hinges=[4], EI=[(0, 12, 3), (12, 24, 5)]),
+         [("moment", 5, None), ("moment_reaction", 16, None), ("reaction", 24, None), ("hinge_shear", 4, None)]),
+    ],
+)
+def test_fixities_and_rotational_springs_become_moment_redundants(beam, quantities) -> None:
+    for kind, at, side in quantities:
+        line = beam.line(kind, at, side, exact=True)
+        fm = force_method(beam, line.quantity, exact=True)
+        assert any(r.kind == "moment_reaction" for r in fm.redundants)
+        assert same_pieces(fm.line, line), (kind, at, side)

@@ -215,6 +215,11 @@ def test_model_section_lists_definition_source_and_memory_items(girder) -> None:
     assert "kN-m; converted exactly to the beam's kip-ft" in text and "Every value of this model was read" in text
     truck = to_text(model_blocks(loads.LoadModel("my truck", [loads.Combination("t", [loads.design_truck()])])))
     assert "not recorded (a load defined for this study)" in truck
+    # a notebook shows a model with the same section
+    data, _ = DisplayFormatter().format(loads.lm71())
+    assert data["text/plain"] == repr(loads.lm71())
+    assert "EN 1991-2 (Eurocode 1, traffic loads on bridges), 6.3.2" in data["text/html"]
+    assert "the values of α (6.3.2)" in data["text/html"]
 
 
 # ------------------------------------------------------------------ the sheet

@@ -13,6 +13,7 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 from typing import Literal, get_args
 
+from ilkit._display import RichDisplay
 from ilkit._exact import fmt
 from ilkit.errors import LoadInputError
 from ilkit.loads.primitives import AxleTrain, KnifeEdge, Load, UniformBlocks, UniformLoad, number, read_units
@@ -154,7 +155,7 @@ class Combination:
 
 
 @dataclass(frozen=True, repr=False)
-class LoadModel:
+class LoadModel(RichDisplay):
     """A published (or user) load model: alternative combinations, the worst of which governs.
 
     Where the model comes from, as plain data (calculation sheets print it):

@@ -5,9 +5,9 @@ with the clause in its docstring.  Where a value was recalled rather than
 read in a copy of the standard, the docstring says **from memory**; every
 such value is an argument you can override.  Each model also carries this as
 plain data, for calculation sheets: ``model.source`` (document and clauses)
-and ``model.from_memory`` (the values recalled, each with its clause).  The licensed current edition of
-each standard (and its National Annex, for the Eurocodes) governs: check the
-values against it.
+and ``model.from_memory`` (the values recalled, each with its clause).  The
+licensed current edition of each standard (and its National Annex, for the
+Eurocodes) governs: check the values against it.
 
 Units: AASHTO and AREMA models are in kip and ft (``"kip-ft"``), EN 1991-2
 models in kN and m (``"kN-m"``).  They are converted when applied to a beam

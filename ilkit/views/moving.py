@@ -25,7 +25,15 @@ from ilkit.loads.results import Extreme, LoadPlacement, effect_unit
 from ilkit.views import style
 from ilkit.views.derive import quantity_title
 from ilkit.views.loaddraw import ARROW_BASE, LoadArtists, Loading, arrow_tip
-from ilkit.views.plot import LABEL_BOX, breakpoint_ticks, draw_line, free_offsets, short, text_width
+from ilkit.views.plot import (
+    LABEL_BOX,
+    breakpoint_ticks,
+    draw_line,
+    free_offsets,
+    points_per_unit,
+    short,
+    text_width,
+)
 
 if TYPE_CHECKING:  # pragma: no cover
     from matplotlib.axes import Axes
@@ -56,9 +64,9 @@ def plot_envelope(
     Moments and shears are drawn at the envelope's sections, the band between
     the two curves shaded, with the absolute maximum moment marked; reactions
     as bars at the supports, from the smallest to the largest value, both
-    written.  The vertical
-    axis carries the unit of the envelope's columns (positive up: sagging
-    moment, shear positive as in :mod:`ilkit.model`, reaction upward).
+    written.  The vertical axis carries the unit of the envelope's columns
+    (positive up: sagging moment, shear positive as in :mod:`ilkit.model`,
+    reaction upward).
     """
     if kind not in ENVELOPE_KINDS:
         raise BeamInputError(
@@ -183,7 +191,7 @@ def plot_placement(
             ax.spines[side].set_visible(False)  # the band of the loads takes the top of the axes
         _share_height(ax, strip, line, loading)
         _label_axles(strip, ax, loading, units.force if units else "")
-        _label_patches(strip, loading, _points_per_unit(ax), units.line_load if units else "")
+        _label_patches(strip, loading, points_per_unit(ax), units.line_load if units else "")
         direction = next((p.direction for p in placements if p.direction), None)
         if direction is not None:
             _travel_arrow(strip, direction)
@@ -220,13 +228,6 @@ def _share_height(ax: Axes, strip: Axes, line: InfluenceLine, loading: Loading) 
     strip.set_axis_off()
 
 
-def _points_per_unit(ax: Axes) -> float:
-    """Typographic points per beam length unit along x (from the axes' current size)."""
-    width = ax.get_window_extent().width * 72.0 / ax.figure.dpi
-    lo, hi = ax.get_xlim()
-    return width / (hi - lo)
-
-
 def _draw_beam(strip: Axes, beam: Beam | None, length: float) -> None:
     """The beam axis with its supports and releases (a plain axis for a line without its beam)."""
     from ilkit.views.draw import draw_beam
@@ -251,8 +252,7 @@ def _label_axles(strip: Axes, ax: Axes, loading: Loading, force: str) -> None:
                          [a.ordinate >= 0 for a in counted], first=5.0)
     for k, a in enumerate(counted):
         strip.annotate(loads[k], xy=tips[k], xytext=(0, lifts[k] - 3), textcoords="offset points", ha="center",
-                       va="bottom", fontsize=6.5, gid=f"load:{fmt(a.x)}", annotation_clip=False,
-                       bbox={"boxstyle": "square,pad=0.05", "facecolor": "white", "edgecolor": "none"})
+                       va="bottom", fontsize=6.5, gid=f"load:{fmt(a.x)}", annotation_clip=False, bbox=LABEL_BOX)
         ax.annotate(ordinates[k], xy=(a.x, a.ordinate), xytext=(0, drops[k]), textcoords="offset points",
                     ha="center", va="bottom" if drops[k] > 0 else "top", fontsize=7,
                     gid=f"axle-ordinate:{fmt(a.x)}", annotation_clip=False, bbox=LABEL_BOX)
@@ -264,15 +264,14 @@ def _label_patches(strip: Axes, loading: Loading, points: float, line_load: str)
     axles = [a.x for a in loading.axles if a.counted]
     for s, e, q in loading.patches:
         text = f"{short(q)}{unit}"
-        half = (5.0 * len(text) + 6) / 2 / points
+        half = (text_width(text, 6.5) + 4) / 2 / points
         lo, hi = max(s, 0.0), e
         if hi - lo < 2 * half:
             continue  # too short to carry its label; the table gives it
         spots = np.linspace(lo + half, hi - half, 9)
         x = max(spots, key=lambda c: min((abs(c - a) for a in axles), default=np.inf))
         strip.annotate(text, xy=(float(x), ARROW_BASE + 0.15), ha="center", va="center", fontsize=6.5,
-                       gid=f"patch:{fmt(s)}", annotation_clip=False,
-                       bbox={"boxstyle": "square,pad=0.15", "facecolor": "white", "edgecolor": "none"})
+                       gid=f"patch:{fmt(s)}", annotation_clip=False, bbox=LABEL_BOX)
 
 
 def _travel_arrow(strip: Axes, direction: str) -> None:

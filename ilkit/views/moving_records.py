@@ -8,7 +8,7 @@ Registers, for the results of :mod:`ilkit.loads`:
   stretch (``to_frame()``); an :class:`~ilkit.Envelope` its section table;
 * :func:`ilkit.views.display.mimebundle`: a notebook shows a placement with
   its plot (:func:`ilkit.views.plot_placement`) and its table, an envelope
-  with its plots and tables;
+  with its plots and tables, a load model with its definition and sources;
 * :func:`ilkit.views.report.report_section`: the same as sections of a
   calculation sheet, and a load model's definition and sources
   (:func:`model_blocks`).
@@ -222,7 +222,7 @@ def envelope_blocks(envelope: Envelope, number: str = "") -> list[Block]:
         Para((f"Reactions{_bracket(_unit(_column(envelope.reactions, 'R max')))}:",)),
         _envelope_table(envelope.reactions, "R", (_column(envelope.reactions, "x"), "support")),
     ]
-    blocks += placement_blocks(best, f"{number}.1".lstrip("."))
+    blocks += placement_blocks(best, f"{number}.1" if number else "")
     return blocks
 
 
@@ -335,6 +335,11 @@ def _(result: Extreme | LoadPlacement, include: Any = None, exclude: Any = None)
 @mimebundle.register(Extremes)
 def _(result: Extremes, include: Any = None, exclude: Any = None) -> dict[str, Any]:
     return _html(placement_blocks(result.maximum) + placement_blocks(result.minimum))
+
+
+@mimebundle.register(LoadModel)
+def _(model: LoadModel, include: Any = None, exclude: Any = None) -> dict[str, Any]:
+    return _html([Heading(f"Load model: {model.name}", 3), *model_blocks(model)])
 
 
 @mimebundle.register(Envelope)

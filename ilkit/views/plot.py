@@ -33,6 +33,8 @@ __all__ = [
     "breakpoint_ticks",
     "free_offsets",
     "text_width",
+    "points_per_unit",
+    "LABEL_BOX",
     "short",
 ]
 
@@ -129,6 +131,12 @@ def text_width(text: str, size: float = 7.5) -> float:
     return 0.6 * size * len(text) + 2.0
 
 
+def points_per_unit(ax: Axes) -> float:
+    """Typographic points per data unit along x, from the axes' current size and limits."""
+    lo, hi = ax.get_xlim()
+    return ax.get_window_extent().width * 72.0 / ax.figure.dpi / (hi - lo)
+
+
 def label_ordinates(ax: Axes, line: InfluenceLine) -> list[Artist]:
     """Write the key ordinates (:func:`key_ordinates`) next to the line, clear of each other.
 
@@ -163,8 +171,7 @@ def breakpoint_ticks(ax: Axes, line: InfluenceLine, *, size: float = 7.5) -> Non
     if beam is not None:
         first |= {float(s.at) for s in beam.supports}
     order = sorted(points, key=lambda b: (b not in first, points.index(b)))
-    lo, hi = ax.get_xlim()
-    per_unit = ax.get_window_extent().width * 72.0 / ax.figure.dpi / (hi - lo)
+    per_unit = points_per_unit(ax)
     shown: list[float] = []
     for b in order:
         room = (text_width(fmt(b), size) + 3.0) / per_unit

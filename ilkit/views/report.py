@@ -32,6 +32,7 @@ from ilkit.loads.envelope import Envelope
 from ilkit.loads.results import Extremes
 from ilkit.model import Beam
 from ilkit.quantity import KINDS
+from ilkit.stiffness import UnitShape
 from ilkit.views import _doc, style
 from ilkit.views._doc import Block, Callout, Figure, Heading, Para, Table
 from ilkit.views.derive import SIGN_CONVENTIONS, derivation, quantity_title
@@ -167,7 +168,7 @@ def sheet_blocks(
         chapter += 1
     origins = {type(line.origin).__name__ for line in chosen}
     methods = [text for kind, text in _METHODS.items() if kind in origins]
-    if any(type(line.origin).__name__ == "UnitShape" and line.origin.beam.degree > 0  # type: ignore[attr-defined]
+    if any(isinstance(line.origin, UnitShape) and line.origin.beam is not None and line.origin.beam.degree > 0
            for line in chosen):
         methods.append(_METHODS["ForceMethod"])
     if moving is not None:
