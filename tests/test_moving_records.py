@@ -67,8 +67,8 @@ def test_placement_plot_draws_the_core_positions_ordinates_and_patches(pier_mome
     corners = [(min(v[:, 0]), max(v[:, 0])) for v in (p.vertices for p in band.get_paths())]
     assert corners == [(p.start, p.end) for p in lane.patches]
     # the direction of travel
-    (words,) = gid_artists(ax, "travel-words")
-    assert words.get_text() == f"travelling {pier_moment.placements[0].direction}"
+    (words,) = gid_artists(ax, "travel")
+    assert words.get_text() == "travelling left to right →" == f"travelling {pier_moment.placements[0].direction} →"
     assert "Smallest bending moment M at x = 90 ft: -2218.3 kip·ft" in ax.get_title("left")
     plt.close(ax.figure)
 

@@ -167,7 +167,8 @@ def plot_placement(
     loads is drawn in a band above it, on axes twinned with ``ax``: an arrow
     per axle, its length growing with the load and its load written above it,
     axles that do not count in grey, loaded stretches hatched with their
-    intensity, and the direction of travel.  On the line, the ordinate under
+    intensity, and the direction of travel (in words with an arrow, under the
+    beam in its widest span; gid ``"travel"``).  On the line, the ordinate under
     every counted axle is marked and labelled, and the loaded areas are
     dotted.  Positions in the beam's length unit; ordinates positive up (the
     line's sign convention).
@@ -194,7 +195,7 @@ def plot_placement(
         _label_patches(strip, loading, points_per_unit(ax), units.line_load if units else "")
         direction = next((p.direction for p in placements if p.direction), None)
         if direction is not None:
-            _travel_arrow(strip, direction)
+            _travel_words(strip, direction, beam, length)
         breakpoint_ticks(ax, line)
         ax.set_xlabel(f"x [{units.length}]" if units else "x")
         ax.set_ylabel(f"ordinate [{line.unit}]" if line.unit else "ordinate")
@@ -274,13 +275,11 @@ def _label_patches(strip: Axes, loading: Loading, points: float, line_load: str)
                        gid=f"patch:{fmt(s)}", annotation_clip=False, bbox=LABEL_BOX)
 
 
-def _travel_arrow(strip: Axes, direction: str) -> None:
-    """An arrow in the band's upper corner pointing the way the loads travel, with words."""
-    left_to_right = direction == "left to right"
-    x0, x1 = (0.0, 0.06) if left_to_right else (1.0, 0.94)
-    strip.annotate("", xy=(x1, 0.97), xytext=(x0, 0.97), xycoords="axes fraction", gid="travel",
-                   arrowprops={"arrowstyle": "-|>", "color": style.INK, "linewidth": 1.0, "mutation_scale": 9})
-    strip.annotate(f"travelling {direction}", xy=(x1, 0.97), xycoords="axes fraction",
-                   xytext=(4 if left_to_right else -4, 0), textcoords="offset points",
-                   ha="left" if left_to_right else "right", va="center", fontsize=7, fontstyle="italic",
-                   gid="travel-words")
+def _travel_words(strip: Axes, direction: str, beam: Beam | None, length: float) -> None:
+    """The direction of travel in words with an arrow, under the beam in its widest span (clear of the
+    loads above the beam and of the supports)."""
+    stops = sorted({0.0, length, *(float(s.at) for s in beam.supports)} if beam is not None else {0.0, length})
+    a, b = max(zip(stops[:-1], stops[1:]), key=lambda ab: ab[1] - ab[0])
+    words = f"travelling {direction} →" if direction == "left to right" else f"← travelling {direction}"
+    strip.annotate(words, xy=((a + b) / 2, -0.28), ha="center", va="center", fontsize=7.5, fontstyle="italic",
+                   gid="travel", annotation_clip=False)
