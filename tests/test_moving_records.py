@@ -138,6 +138,7 @@ def test_tables_are_the_core_frames_and_export(girder, hl93, pier_moment, tmp_pa
     assert back["factored effect [kip·ft]"].sum() == pytest.approx(pier_moment.value, rel=1e-12)
     latex = to_latex(pier_moment)
     assert "nan" not in latex and r"factored effect [kip\ensuremath{\cdot}ft]" in latex
+    assert "& yes &" in latex and "True" not in latex  # the counted column in words, not in math mode
     assert r"M max [kip\ensuremath{\cdot}ft]" in to_latex(env)
 
 

@@ -102,10 +102,17 @@ def beam_facts(beam: Beam) -> list[tuple[str, str]]:
     return facts
 
 
+def _is_bool(value: Any) -> bool:
+    return isinstance(value, bool) or getattr(getattr(value, "dtype", None), "kind", "") == "b"
+
+
 def _cell(value: Any, digits: int) -> str:
-    """A table cell: numbers to ``digits`` significant figures; a missing value (None, NaN) is empty."""
+    """A table cell: numbers to ``digits`` significant figures, truth values as yes or no; a missing value
+    (None, NaN) is empty."""
     if value is None:
         return ""
+    if _is_bool(value):
+        return "yes" if value else "no"
     if isinstance(value, float) or hasattr(value, "dtype"):
         as_float = float(value)
         if math.isnan(as_float):
@@ -196,7 +203,7 @@ def _latex_text(text: str) -> str:
 
 def _latex_cell(value: Any, digits: int) -> str:
     text = _cell(value, digits)
-    if text and (isinstance(value, (int, float)) or hasattr(value, "dtype")):
+    if text and not _is_bool(value) and (isinstance(value, (int, float)) or hasattr(value, "dtype")):
         return f"${text}$"
     return _latex_text(text)
 
