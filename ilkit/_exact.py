@@ -13,20 +13,46 @@ import numbers
 from decimal import Decimal, InvalidOperation
 from fractions import Fraction
 
+import numpy as np
+
 from ilkit.errors import BeamInputError
 
 Row = dict[int, Fraction]
 
 
-def to_exact(value: object, *, field: str) -> Fraction:
+def to_exact(
+    value: object, *, field: str, error: type[BeamInputError] = BeamInputError, units: str = "the beam's units"
+) -> Fraction:
     """Return ``value`` as an exact :class:`Fraction`.
 
     Accepts ints, :class:`Fraction`, :class:`Decimal`, decimal or ratio strings
     (``"12.5"``, ``"3/4"``), floats (by their decimal text), sympy rationals and
-    numpy scalars.  Raises :class:`BeamInputError` naming ``field`` otherwise.
+    numpy scalars (0-d arrays too).  Refuses booleans, complex numbers,
+    arrays, NaN, infinities and numbers beyond the range of floats (every
+    result is evaluated in float arithmetic), with ``error`` (a
+    :class:`BeamInputError` unless the caller says otherwise) naming
+    ``field``.  ``units`` says, for a pint quantity given where a plain number
+    is wanted, which units the number is taken in.
     """
-    if isinstance(value, bool):
-        raise BeamInputError(
+    exact = _read_exact(value, field, error, units)
+    try:
+        as_float = float(exact)
+    except OverflowError:
+        as_float = math.inf
+    if math.isinf(as_float) or (exact and not as_float):
+        size = "large" if math.isinf(as_float) else "small"
+        raise error(
+            f"{field}: the value given ({fmt_precise(exact)}) is too {size} for float arithmetic (magnitudes "
+            "from about 1e-300 to 1e300 work); check the value, or give it in other units.",
+            field=field,
+            value=value,
+        )
+    return exact
+
+
+def _read_exact(value: object, field: str, error: type[BeamInputError], units: str) -> Fraction:
+    if isinstance(value, (bool, np.bool_)):
+        raise error(
             f"{field}: got the boolean {value!r}; give a number such as 12 or '12.5'.",
             field=field,
             value=value,
@@ -37,7 +63,7 @@ def to_exact(value: object, *, field: str) -> Fraction:
         return Fraction(int(value))
     if isinstance(value, Decimal):
         if not value.is_finite():
-            raise _not_finite(field, value)
+            raise _not_finite(field, value, error)
         return Fraction(value)
     if isinstance(value, str):
         text = value.strip().replace("_", "")
@@ -49,34 +75,41 @@ def to_exact(value: object, *, field: str) -> Fraction:
             except InvalidOperation:
                 dec = None
             if dec is not None and not dec.is_finite():
-                raise _not_finite(field, value) from None
-            raise BeamInputError(
+                raise _not_finite(field, value, error) from None
+            raise error(
                 f"{field}: cannot read {value!r} as a number; write it like 12, '12.5' or '25/2'.",
                 field=field,
                 value=value,
             ) from None
     if isinstance(value, numbers.Rational):  # sympy Rational, other rationals
         return Fraction(int(value.numerator), int(value.denominator))
-    if isinstance(value, numbers.Real) or hasattr(value, "__float__"):
-        if is_quantity(value):
-            raise BeamInputError(
-                f"{field}: got the quantity {value!r}, but this value takes a plain number; give it in "
-                "the beam's units (value.to(...).magnitude).",
-                field=field,
-                value=value,
-            )
+    if is_quantity(value):
+        raise error(
+            f"{field}: got the quantity {value!r}, but this value takes a plain number; give it in "
+            f"{units} (value.to(...).magnitude).",
+            field=field,
+            value=value,
+        )
+    if getattr(value, "ndim", 0) != 0:
+        raise error(
+            f"{field}: got {type(value).__name__} {value!r}; give one number, not an array or a list.",
+            field=field,
+            value=value,
+        )
+    complex_type = isinstance(value, numbers.Complex) and not isinstance(value, numbers.Real)
+    if not complex_type and (isinstance(value, numbers.Real) or hasattr(value, "__float__")):
+        if getattr(getattr(value, "dtype", None), "kind", "f") not in "fiu":  # a 0-d array of text, objects ...
+            return _read_exact(value.item(), field, error, units)  # type: ignore[attr-defined]
         try:
             as_float = float(value)  # type: ignore[arg-type]
         except (TypeError, ValueError):
             as_float = None
         if as_float is None:
-            raise BeamInputError(
-                f"{field}: {value!r} is not a number.", field=field, value=value
-            )
+            raise error(f"{field}: {value!r} is not a number.", field=field, value=value)
         if not math.isfinite(as_float):
-            raise _not_finite(field, value)
+            raise _not_finite(field, value, error)
         return Fraction(repr(as_float))
-    raise BeamInputError(
+    raise error(
         f"{field}: expected a number, got {type(value).__name__} {value!r}.",
         field=field,
         value=value,
@@ -88,8 +121,8 @@ def is_quantity(value: object) -> bool:
     return hasattr(value, "magnitude") and hasattr(value, "unit_items")
 
 
-def _not_finite(field: str, value: object) -> BeamInputError:
-    return BeamInputError(
+def _not_finite(field: str, value: object, error: type[BeamInputError] = BeamInputError) -> BeamInputError:
+    return error(
         f"{field}: {value!r} is not a finite number; give a finite value.",
         field=field,
         value=value,
@@ -107,6 +140,20 @@ def fmt(value: Fraction | float) -> str:
     if float(value).is_integer() and abs(value) < 1e15:
         return str(int(value))
     return f"{value:.6g}"
+
+
+def fmt_precise(value: Fraction | float) -> str:
+    """Text for a number in a message that compares it with another: every digit a float keeps
+    (``20.0000000001``, not ``20``), integers without a point; ``about 1e+400`` beyond the floats."""
+    if isinstance(value, Fraction) and value.denominator == 1 and abs(value) < 10**15:
+        return str(value.numerator)
+    try:
+        as_float = float(value)
+    except OverflowError:
+        as_float = math.inf
+    if isinstance(value, Fraction) and (math.isinf(as_float) or (value and not as_float)):
+        return f"about 1e{len(str(abs(value.numerator))) - len(str(value.denominator)):+d}"
+    return str(int(as_float)) if as_float.is_integer() and abs(as_float) < 1e15 else repr(as_float)
 
 
 class SingularSystemError(ArithmeticError):

@@ -21,8 +21,10 @@ from typing import TYPE_CHECKING, Any, Literal
 
 import numpy as np
 
+from ilkit._check import choice, whole
 from ilkit._display import RichDisplay
-from ilkit._exact import fmt
+from ilkit._exact import fmt, fmt_precise, to_exact
+from ilkit.errors import BeamInputError, IlkitError
 from ilkit.quantity import Quantity
 from ilkit.units import LENGTH, UnitSystem, factor_to, is_quantity
 
@@ -114,24 +116,39 @@ class InfluenceLine(RichDisplay):
         units: UnitSystem | None = None,
         origin: object = None,
     ) -> None:
-        if len(coefficients) != len(knots) - 1 or len(knots) < 2:
-            raise ValueError("an influence line needs one coefficient tuple per piece")
+        if not isinstance(quantity, Quantity):
+            raise BeamInputError(
+                f"InfluenceLine: quantity must be an ilkit.Quantity, got {quantity!r}; build lines with the "
+                "beam's methods (beam.moment(x) ...).",
+                field="quantity",
+                value=quantity,
+            )
+        if len(knots) < 2 or len(coefficients) != len(knots) - 1:
+            raise BeamInputError(
+                f"InfluenceLine: {len(knots)} knots need {max(len(knots) - 1, 1)} pieces of coefficients, "
+                f"got {len(coefficients)}; give knots from 0 to L and one coefficient tuple per piece.",
+                field="coefficients",
+                value=coefficients,
+            )
         exact = all(isinstance(k, Fraction) for k in knots) and all(
             isinstance(c, Fraction) for cs in coefficients for c in cs
         )
         self.quantity = quantity
         self._knots_exact = tuple(knots) if exact else None
         self._coef_exact = tuple(tuple(cs) for cs in coefficients) if exact else None
-        self._knots = np.array([float(k) for k in knots])
-        if np.any(np.diff(self._knots) <= 0):
-            raise ValueError("knots must increase strictly")
+        self._knots = _finite_floats(knots, "knots")
+        if self._knots[0] != 0.0 or np.any(np.diff(self._knots) <= 0):
+            raise BeamInputError(
+                f"InfluenceLine: the knots must run from 0 (the left end) upward, strictly increasing; got {knots!r}.",
+                field="knots",
+                value=knots,
+            )
         degree = max((len(cs) for cs in coefficients), default=1) - 1
         self._degree = max(degree, 0)
         width = self._degree + 1
         table = np.zeros((width, len(coefficients)))
         for j, cs in enumerate(coefficients):
-            for p, c in enumerate(cs):
-                table[p, j] = float(c)
+            table[: len(cs), j] = _finite_floats(cs, f"coefficients of piece {j + 1}")
         self._c = table
         self._knot_list = self._knots.tolist()
         self.length = float(self._knots[-1])
@@ -210,16 +227,47 @@ class InfluenceLine(RichDisplay):
         """Right-hand limit of the ordinate at ``x`` (0 at and right of the right end)."""
         return self._evaluate(x, "right_strict")
 
-    def _evaluate(self, x: Any, mode: str) -> Any:
+    def _positions(self, x: Any) -> float | np.ndarray:
+        """Load positions ``x`` as floats in the beam's length unit: a number, an array of numbers or a
+        pint quantity.  NaN is refused; ``±inf`` is a position off the beam."""
+        if type(x) is float and x == x:
+            return x
+        given = x
         if is_quantity(x):
             x = x.magnitude * float(factor_to(x, dims=LENGTH, system=self.units, field="load position"))
-        if np.ndim(x) == 0:
-            return self._scalar(float(x), mode)
-        xs = np.asarray(x, dtype=float)
+        xs = np.asarray(x)
+        readable = xs.dtype.kind in "fiuU" or (xs.dtype.kind == "O" and not any(v is None for v in xs.flat))
+        if readable:
+            try:
+                xs = xs.astype(float, copy=False)
+            except (TypeError, ValueError, OverflowError, ArithmeticError):
+                readable = False
+        if not readable:
+            raise BeamInputError(
+                f"load position: cannot read {given!r} as positions; give a number or an array of numbers in the "
+                "beam's length unit, from 0 to the beam's length.",
+                field="x",
+                value=given,
+            )
         if np.isnan(xs).any():
-            from ilkit.errors import BeamInputError
+            raise BeamInputError(
+                "load position: NaN is not a position on the beam; give numbers from 0 to the beam's length.",
+                field="x",
+                value=given,
+            )
+        return float(xs) if xs.ndim == 0 else xs
 
-            raise BeamInputError("load position: NaN is not a position on the beam.", field="x")
+    def _position(self, x: Any, what: str) -> float:
+        """One load position (see :meth:`_positions`)."""
+        out = self._positions(x)
+        if isinstance(out, np.ndarray):
+            raise BeamInputError(f"{what}: give one position, got {x!r}.", field=what, value=x)
+        return out
+
+    def _evaluate(self, x: Any, mode: str) -> Any:
+        xs = self._positions(x)
+        if isinstance(xs, float):
+            return self._scalar(xs, mode)
         knots = self._knots
         npieces = knots.size - 1
         if mode == "left":
@@ -231,7 +279,7 @@ class InfluenceLine(RichDisplay):
             if mode == "right_strict":
                 off |= xs >= self.length
         np.clip(idx, 0, npieces - 1, out=idx)
-        t = xs - knots[idx]
+        t = np.where(off, 0.0, xs - knots[idx])  # no polynomial is evaluated far off the beam
         c = self._c
         y = c[self._degree][idx]
         for p in range(self._degree - 1, -1, -1):
@@ -239,10 +287,6 @@ class InfluenceLine(RichDisplay):
         return np.where(off, 0.0, y)
 
     def _scalar(self, x: float, mode: str) -> float:
-        if x != x:
-            from ilkit.errors import BeamInputError
-
-            raise BeamInputError("load position: NaN is not a position on the beam.", field="x")
         length = self.length
         if x < 0.0 or x > length:
             return 0.0
@@ -268,7 +312,8 @@ class InfluenceLine(RichDisplay):
 
         Units: the ordinate's unit per length unit of the beam.
         """
-        xs = np.atleast_1d(np.asarray(x, dtype=float))
+        choice(side, ("left", "right"), what="slope: side", field="side")
+        xs = np.atleast_1d(self._positions(x))
         knots = self._knots
         if side == "left":
             idx = np.searchsorted(knots, xs, side="left") - 1
@@ -277,7 +322,7 @@ class InfluenceLine(RichDisplay):
             idx = np.searchsorted(knots, xs, side="right") - 1
             off = (xs < 0.0) | (xs >= self.length)
         np.clip(idx, 0, knots.size - 2, out=idx)
-        t = xs - knots[idx]
+        t = np.where(off, 0.0, xs - knots[idx])
         c = self._c
         y = np.zeros_like(t)
         for p in range(self._degree, 0, -1):
@@ -298,7 +343,7 @@ class InfluenceLine(RichDisplay):
         beyond the right end (the whole net area), 0 left of the left end.
         ``x`` may be ``±inf``.
         """
-        xs = np.clip(np.atleast_1d(np.asarray(x, dtype=float)), 0.0, self.length)
+        xs = np.clip(np.atleast_1d(self._positions(x)), 0.0, self.length)
         knots = self._knots
         idx = np.clip(np.searchsorted(knots, xs, side="right") - 1, 0, knots.size - 2)
         t = xs - knots[idx]
@@ -317,10 +362,7 @@ class InfluenceLine(RichDisplay):
         it adds to the wanted extreme.  Zero crossings inside pieces become
         knots; exact piecewise-linear lines stay exact.
         """
-        if sign not in ("positive", "negative"):
-            from ilkit.errors import IlkitError
-
-            raise IlkitError(f"part: sign must be 'positive' or 'negative', got {sign!r}.")
+        choice(sign, ("positive", "negative"), what="part: sign", field="sign")
         cache: dict[str, InfluenceLine] = self.__dict__.setdefault("_signed_parts", {})
         if sign not in cache:
             want = 1 if sign == "positive" else -1
@@ -376,6 +418,7 @@ class InfluenceLine(RichDisplay):
         (``"positive"``) or smallest (``"negative"``) effect.  Adjacent
         stretches are merged; a stretch where the line is 0 is not included.
         """
+        choice(sign, ("positive", "negative"), what="intervals: sign", field="sign")
         clipped = self.part(sign)
         out: list[list[float]] = []
         for j, piece in enumerate(clipped.pieces):
@@ -413,13 +456,10 @@ class InfluenceLine(RichDisplay):
     def ordinate_exact(self, x: Number, side: Literal["left", "right"] | None = None) -> Fraction:
         """Exact ordinate at ``x`` of an exact line (one-sided if ``side`` is given)."""
         if self._knots_exact is None or self._coef_exact is None:
-            from ilkit.errors import IlkitError
-
             raise IlkitError(
                 f"{self.quantity.label}: this line is numeric; use line(x) for a float ordinate."
             )
-        from ilkit._exact import to_exact
-
+        choice(side, ("left", "right"), what="ordinate_exact: side", field="side", optional=True)
         xe = to_exact(x, field="x")
         knots = self._knots_exact
         if xe < 0 or xe > knots[-1] or (side == "left" and xe == 0) or (side == "right" and xe == knots[-1]):
@@ -471,9 +511,12 @@ class InfluenceLine(RichDisplay):
 
     def sample(self, points_per_piece: int = 41) -> tuple[np.ndarray, np.ndarray]:
         """Points for drawing: each piece sampled with both one-sided values at jumps."""
+        points = whole(
+            points_per_piece, what="sample: points_per_piece", field="points_per_piece", minimum=2, maximum=100_000
+        )
         xs: list[np.ndarray] = []
         ys: list[np.ndarray] = []
-        n = 2 if self._degree <= 1 else max(points_per_piece, 2)
+        n = 2 if self._degree <= 1 else points
         for j in range(len(self._knot_list) - 1):
             a, b = self._knot_list[j], self._knot_list[j + 1]
             t = np.linspace(0.0, b - a, n)
@@ -520,7 +563,8 @@ class InfluenceLine(RichDisplay):
         return total
 
     def integral(self, a: float, b: float) -> float:
-        """Integral of the line from ``a`` to ``b`` (a uniform unit load over [a, b])."""
+        """Integral of the line from ``a`` to ``b`` (a uniform unit load over [a, b]; ``±inf`` allowed)."""
+        a, b = self._position(a, "integral: a"), self._position(b, "integral: b")
         if b < a:
             return -self.integral(b, a)
         a = max(a, 0.0)
@@ -536,19 +580,22 @@ class InfluenceLine(RichDisplay):
     @cached_property
     def _signed_areas(self) -> tuple[float, float]:
         if self._coef_exact is not None and self._degree <= 1:
-            pos_e, neg_e = self.exact_areas()
-            return float(pos_e), float(neg_e)
-        pos = neg = 0.0
-        for j in range(len(self._knot_list) - 1):
-            h = self._knot_list[j + 1] - self._knot_list[j]
-            cuts = [0.0, *self._piece_roots(j), h]
-            for t0, t1 in zip(cuts[:-1], cuts[1:]):
-                part = self._piece_integral(j, t0, t1)
-                if part > 0:
-                    pos += part
-                else:
-                    neg += part
-        return pos, neg
+            areas: tuple[Any, Any] = self.exact_areas()
+        else:
+            pos = neg = 0.0
+            with np.errstate(over="ignore", invalid="ignore"):  # an overflow is refused below
+                for j in range(len(self._knot_list) - 1):
+                    h = self._knot_list[j + 1] - self._knot_list[j]
+                    cuts = [0.0, *self._piece_roots(j), h]
+                    for t0, t1 in zip(cuts[:-1], cuts[1:]):
+                        part = self._piece_integral(j, t0, t1)
+                        if part > 0:
+                            pos += part
+                        else:
+                            neg += part
+            areas = (pos, neg)
+        pos_f, neg_f = _finite_floats(areas, "areas")
+        return float(pos_f), float(neg_f)
 
     @property
     def positive_area(self) -> float:
@@ -568,8 +615,6 @@ class InfluenceLine(RichDisplay):
     def exact_areas(self) -> tuple[Fraction, Fraction]:
         """Exact ``(positive, negative)`` areas of an exact piecewise-linear line."""
         if self._knots_exact is None or self._coef_exact is None or self._degree > 1:
-            from ilkit.errors import IlkitError
-
             raise IlkitError(
                 f"{self.quantity.label}: exact areas need an exact piecewise-linear line; "
                 "use positive_area / negative_area for floats."
@@ -629,6 +674,24 @@ class InfluenceLine(RichDisplay):
     def minimum(self) -> Ordinate:
         """Smallest ordinate with its position (and side, at a jump)."""
         return min(self._candidates(), key=lambda o: o.value)
+
+
+def _finite_floats(values: Any, what: str) -> np.ndarray:
+    """``values`` as a 1-d array of finite floats (an exact number beyond the float range is refused too)."""
+    try:
+        out = np.array([float(v) for v in values], dtype=float)
+    except (TypeError, ValueError, OverflowError):
+        out = None
+    if out is None or not np.all(np.isfinite(out)):
+        raise BeamInputError(
+            f"InfluenceLine: the {what} must be finite numbers within the range of floats, got "
+            f"{', '.join(fmt_precise(v) if isinstance(v, (Fraction, float)) else repr(v) for v in values)}. "
+            "For a line of a beam: give its lengths, EI and springs in units that keep them nearer to 1 "
+            "(e.g. m and kN·m² rather than mm and N·mm²).",
+            field=what.split()[0],
+            value=values,
+        )
+    return out
 
 
 def _taylor_shift(coefficients: tuple[float, ...], shift: float) -> tuple[float, ...]:

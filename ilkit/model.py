@@ -26,8 +26,9 @@ from fractions import Fraction
 from functools import cached_property
 from typing import TYPE_CHECKING, Any, Literal
 
+from ilkit._check import choice, flag, listed
 from ilkit._display import RichDisplay
-from ilkit._exact import fmt, is_quantity, to_exact
+from ilkit._exact import fmt, fmt_precise, is_quantity, to_exact
 from ilkit.errors import BeamInputError, SideRequiredError, UnitsError
 from ilkit.quantity import KINDS, Quantity, QuantityKind, Side
 from ilkit.units import FLEXURAL_STIFFNESS, LENGTH, QuantityLike, UnitSystem, conversion, magnitude_in, unit_system
@@ -142,6 +143,18 @@ class Support:
     at: Fraction
     kind: SupportKind
     spring: Spring | None = None
+
+    def __post_init__(self) -> None:
+        object.__setattr__(self, "at", to_exact(self.at, field="Support.at"))
+        choice(self.kind, (*SUPPORT_KINDS, "spring"), what="Support: kind", field="Support.kind")
+        if (self.kind == "spring") != isinstance(self.spring, Spring):
+            raise BeamInputError(
+                f"Support: kind={self.kind!r} with spring={self.spring!r}; a 'spring' support needs "
+                "spring=ilkit.Spring(...), and only a 'spring' support takes one. In a Beam, write the kind "
+                "('pin') or the Spring itself.",
+                field="Support.spring",
+                value=self.spring,
+            )
 
     @property
     def restrains_rotation(self) -> bool:
@@ -570,7 +583,7 @@ class Beam(RichDisplay):
         return Explorer(self, loads, **options)
 
     def _method(self, kind: str) -> Any:
-        if kind not in KINDS or not hasattr(self, kind):
+        if not isinstance(kind, str) or kind not in KINDS or not hasattr(self, kind):
             choices = ", ".join(repr(k) for k in KINDS if hasattr(self, k))
             raise BeamInputError(
                 f"quantity: unknown kind {kind!r}; choose one of {choices}.", field="kind", value=kind
@@ -579,10 +592,7 @@ class Beam(RichDisplay):
 
     # --------------------------------------------------------------------- helpers
     def _line(self, kind: QuantityKind, pos: Fraction, side: Side | None, exact: bool) -> InfluenceLine:
-        if not isinstance(exact, bool):
-            raise BeamInputError(
-                f"exact: give True or False, got {exact!r}.", field="exact", value=exact
-            )
+        exact = flag(exact, what="exact", field="exact")
         key = (kind, pos, side, exact)
         cache: dict[Any, InfluenceLine] = self._lines  # type: ignore[attr-defined]
         line = cache.get(key)
@@ -597,7 +607,7 @@ class Beam(RichDisplay):
         pos = magnitude_in(at, dims=LENGTH, system=self.units, field=f"{what} position")
         if pos < 0 or pos > self.length:
             raise BeamInputError(
-                f"{what}: x={fmt(pos)} is off the beam; give a position from 0 to {fmt(self.length)}.",
+                f"{what}: x={fmt_precise(pos)} is off the beam; give a position from 0 to {fmt(self.length)}.",
                 field="at",
                 value=at,
             )
@@ -618,10 +628,7 @@ class Beam(RichDisplay):
         return any(s.at == pos for s in self.supports)
 
     def _side(self, pos: Fraction, side: Side | None, what: str, *, jumps: bool) -> Side | None:
-        if side is not None and side not in ("left", "right"):
-            raise BeamInputError(
-                f"{what}: side must be 'left' or 'right', got {side!r}.", field="side", value=side
-            )
+        choice(side, ("left", "right"), what=f"{what}: side", field="side", optional=True)
         if pos == 0 or pos == self.length:
             inner: Side = "right" if pos == 0 else "left"
             if side is not None and side != inner:
@@ -661,6 +668,13 @@ def _read_supports(
             )
         spring: Spring | None = None
         if isinstance(raw_kind, Support):
+            if raw_kind.at != pos:
+                raise BeamInputError(
+                    f"supports: the Support at key x={fmt_precise(pos)} says at={fmt_precise(raw_kind.at)}; "
+                    "give the same position, or write the kind alone ({position: 'pin'}).",
+                    field="supports",
+                    value=raw_kind,
+                )
             kind, spring = raw_kind.kind, raw_kind.spring
         elif isinstance(raw_kind, Spring):
             kind, spring = "spring", raw_kind
@@ -698,13 +712,10 @@ def _read_supports(
 def _read_releases(
     values: Iterable[Number], L: Fraction, field: str, supports: list[Support], system: UnitSystem | None
 ) -> list[Fraction]:
-    if isinstance(values, (str, bytes)) or not isinstance(values, Iterable):
-        raise BeamInputError(
-            f"{field}: give a list of positions, e.g. [12.5].", field=field, value=values
-        )
+    positions = listed(values, wanted=f"{field}: give a list of positions, e.g. [12.5]", field=field, ordered=False)
     name = "hinge" if field == "hinges" else "shear release"
     out: list[Fraction] = []
-    for raw in values:
+    for raw in positions:
         pos = magnitude_in(raw, dims=LENGTH, system=system, field=f"{field} position")
         if pos <= 0 or pos >= L:
             fixed_end = any(s.at == pos and s.restrains_rotation for s in supports)
@@ -776,11 +787,12 @@ def _read_ei(EI: object, L: Fraction, system: UnitSystem | None) -> Fraction | t
             field="EI",
             value=EI,
         )
-    if is_quantity(EI) or isinstance(EI, (str, bytes)) or not isinstance(EI, Iterable):
+    if is_quantity(EI) or isinstance(EI, (str, bytes)) or not isinstance(EI, Iterable) or getattr(EI, "ndim", 1) == 0:
         return _positive_ei(EI, EI, system)
     ranges: list[StiffnessRange] = []
     for item in EI:
-        triple = list(item) if isinstance(item, Iterable) and not isinstance(item, (str, bytes)) else []
+        listlike = isinstance(item, Iterable) and not isinstance(item, (str, bytes)) and getattr(item, "ndim", 1) == 1
+        triple = list(item) if listlike else []
         if len(triple) != 3:
             raise BeamInputError(
                 f"EI: each range must be (start, end, EI), got {item!r}; e.g. [(0, 18, 2.1e6), (18, 40, 3.4e6)].",

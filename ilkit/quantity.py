@@ -6,7 +6,8 @@ from dataclasses import dataclass
 from fractions import Fraction
 from typing import Literal
 
-from ilkit._exact import fmt
+from ilkit._check import choice
+from ilkit._exact import fmt, to_exact
 
 __all__ = ["Quantity", "QuantityKind", "Side", "KINDS"]
 
@@ -39,6 +40,11 @@ class Quantity:
     kind: QuantityKind
     at: Fraction
     side: Side | None = None
+
+    def __post_init__(self) -> None:
+        choice(self.kind, tuple(KINDS), what="Quantity: kind", field="kind")
+        object.__setattr__(self, "at", to_exact(self.at, field="Quantity: at"))
+        choice(self.side, ("left", "right"), what="Quantity: side", field="side", optional=True)
 
     @property
     def symbol(self) -> str:

@@ -35,6 +35,7 @@ scaled stiffness matrix is too ill-conditioned for double precision.
 from __future__ import annotations
 
 import bisect
+import math
 from dataclasses import dataclass, field
 from fractions import Fraction
 from typing import TYPE_CHECKING, Any
@@ -42,7 +43,7 @@ from typing import TYPE_CHECKING, Any
 import numpy as np
 
 from ilkit import _exact
-from ilkit._exact import fmt
+from ilkit._exact import fmt, fmt_precise
 from ilkit.elements import ACTIONS, Action, clamped_response, hermite, shift, stiffness_matrix
 from ilkit.errors import IllConditionedError, StiffnessRequiredError
 from ilkit.influence import InfluenceLine
@@ -153,7 +154,7 @@ class ElasticModel:
             entries[(r, c)] = entries.get((r, c), 0) + value
 
         for j, dofs in enumerate(self.element_dofs):
-            k = stiffness_matrix(self.h[j], self.EI[j])
+            k = self._element_stiffness(j)
             for r in range(4):
                 for c in range(4):
                     add(int(dofs[r]), int(dofs[c]), k[r][c])
@@ -172,6 +173,27 @@ class ElasticModel:
                 fixed.append(r)
         self.fixed = sorted(fixed)
         return entries
+
+    def _element_stiffness(self, j: int) -> list[list[Any]]:
+        """Stiffness matrix of element ``j``; in floats, refused when its terms leave the float range."""
+        if self.exact:
+            return stiffness_matrix(self.h[j], self.EI[j])
+        try:
+            k = stiffness_matrix(self.h[j], self.EI[j])
+        except (OverflowError, ZeroDivisionError):
+            k = [[math.inf]]
+        terms = [abs(v) for row in k for v in row]
+        if all(math.isfinite(v) and v > 0 for v in terms):
+            return k
+        a, b = self.nodes[j], self.nodes[j + 1]
+        raise IllConditionedError(
+            f"the element from x={fmt_precise(a)} to x={fmt_precise(b)} (length {fmt(self.h[j])}, EI="
+            f"{fmt(self.EI[j])}) has stiffness terms EI/h³ beyond the range of float arithmetic. Give the beam's "
+            "lengths, EI and springs in units that keep them nearer to 1 (e.g. m and kN·m² rather than mm and "
+            "N·mm²), or merge points that close.",
+            condition=math.inf,
+            limit=CONDITION_LIMIT,
+        )
 
     def _prepare_exact(self, entries: dict[tuple[int, int], Any]) -> None:
         """Sparse rational rows of the free system and the coupling to each restrained degree of freedom."""
@@ -330,11 +352,12 @@ class ElasticModel:
         )
         h = [float(v) for v in self.h]
         short, long = int(np.argmin(h)), int(np.argmax(h))
+        closer = h[long] / h[short]
         causes.append(
             (
-                (h[long] / h[short]) ** 3,
-                f"the points x={fmt(self.nodes[short])} and x={fmt(self.nodes[short + 1])} (supports, releases "
-                f"or EI changes) are {h[long] / h[short]:.1e} times closer together than the longest "
+                closer**3 if closer < 1e100 else math.inf,
+                f"the points x={fmt_precise(self.nodes[short])} and x={fmt_precise(self.nodes[short + 1])} "
+                f"(supports, releases or EI changes) are {closer:.1e} times closer together than the longest "
                 "element; merge points that close",
             )
         )

@@ -74,6 +74,26 @@ class UnitSystem:
     metres_per_length: Fraction
     newtons_per_force: Fraction
 
+    def __post_init__(self) -> None:
+        for label in ("name", "length", "force"):
+            text = getattr(self, label)
+            if not isinstance(text, str) or not text.strip():
+                raise BeamInputError(
+                    f"UnitSystem: {label} must be a non-empty text such as 'm' or 'kN', got {text!r}.",
+                    field=f"UnitSystem.{label}",
+                    value=text,
+                )
+        for label, unit in (("metres_per_length", "metres"), ("newtons_per_force", "newtons")):
+            factor = to_exact(getattr(self, label), field=f"UnitSystem.{label}")
+            if factor <= 0:
+                raise BeamInputError(
+                    f"UnitSystem: {label} must be greater than 0, got {getattr(self, label)!r}; give how many "
+                    f"{unit} one {self.length if unit == 'metres' else self.force} is.",
+                    field=f"UnitSystem.{label}",
+                    value=getattr(self, label),
+                )
+            object.__setattr__(self, label, factor)
+
     @property
     def moment(self) -> str:
         """Label of a moment unit, e.g. ``"kN·m"``."""
@@ -130,7 +150,8 @@ def _dimension_words(dims: Dimension) -> str:
 def _dimension_unit(dims: Dimension, system: UnitSystem) -> str:
     """A unit text pint understands for ``dims`` in ``system``, e.g. ``"kN * m ** 2"``."""
     parts = []
-    for unit, power in ((_PINT_NAMES[system.force], dims[1]), (_PINT_NAMES[system.length], dims[0])):
+    force, length = (_PINT_NAMES.get(u, u) for u in (system.force, system.length))
+    for unit, power in ((force, dims[1]), (length, dims[0])):
         if power == 1:
             parts.append(unit)
         elif power:

@@ -34,7 +34,7 @@ def bad(match):
         ({"loads": "8,32", "spacings": []}, "give the axle loads"),
         ({"loads": [8, -32], "spacings": [14]}, r"axle 2: must be greater than 0, got -32"),
         ({"loads": [8, float("nan")], "spacings": [14]}, "not a finite number"),
-        ({"loads": [8, True], "spacings": [14]}, "expected a number, got bool"),
+        ({"loads": [8, True], "spacings": [14]}, "axle 2: got the boolean True"),
         ({"loads": [8, "heavy"], "spacings": [14]}, "cannot read 'heavy'"),
         ({"loads": [8, 32, 32], "spacings": [14]}, "3 axles need 2 spacings, got 1"),
         ({"loads": [8, 32], "spacings": [0]}, r"spacing 1 \(axle 1 to 2\): must be greater than 0"),
@@ -146,7 +146,7 @@ def test_combination_errors():
         Combination("c", [a, b], dynamic_allowance=0.2, dynamic_on=["z"])
     with bad("name the parts it applies to"):
         Combination("c", [a, b], dynamic_allowance=0.2)
-    with bad("applies_to must be one of"):
+    with bad("applies_to must be 'all' or 'negative moment and interior reactions'"):
         Combination("c", [a], applies_to="piers")
     with bad("a part must be"):
         Combination("c", [a, 5])

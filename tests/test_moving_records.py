@@ -201,6 +201,9 @@ def test_published_models_carry_their_sources_and_what_is_from_memory() -> None:
     custom = loads.LoadModel("mine", [loads.Combination("mine", [loads.design_tandem()])], edition="2020",
                              from_memory="tandem spacing")
     assert custom.from_memory == ("tandem spacing",) and custom.edition == "2020"
+    for bad in (3, [1.2], {"spacing": "1.2 m"}):
+        with pytest.raises(ilkit.LoadInputError, match="from_memory"):
+            loads.LoadModel("mine", [loads.Combination("mine", [loads.design_tandem()])], from_memory=bad)
 
 
 def test_model_section_lists_definition_source_and_memory_items(girder) -> None:

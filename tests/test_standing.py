@@ -141,7 +141,7 @@ def test_a_breakable_uniform_load_does_not_stand(span):
 
 def test_bad_direction_position_or_spacing(span):
     line = span.moment(A)
-    with pytest.raises(ilkit.LoadInputError, match="direction must be one of 'left to right', 'right to left'"):
+    with pytest.raises(ilkit.LoadInputError, match="direction must be 'left to right' or 'right to left'"):
         stand(line, TRAIN, 3.0, direction="east")
     with pytest.raises(ilkit.LoadInputError, match="not a finite number"):
         stand(line, TRAIN, math.nan)

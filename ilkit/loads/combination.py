@@ -13,10 +13,20 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 from typing import Literal, get_args
 
+from ilkit._check import choice, listed
 from ilkit._display import RichDisplay
 from ilkit._exact import fmt
 from ilkit.errors import LoadInputError
-from ilkit.loads.primitives import AxleTrain, KnifeEdge, Load, UniformBlocks, UniformLoad, number, read_units
+from ilkit.loads.primitives import (
+    AxleTrain,
+    KnifeEdge,
+    Load,
+    UniformBlocks,
+    UniformLoad,
+    number,
+    read_name,
+    read_units,
+)
 from ilkit.units import UnitSystem
 
 __all__ = ["AppliesTo", "Combination", "LoadModel", "as_model"]
@@ -68,9 +78,10 @@ class Combination:
         factor: float = 1.0,
         applies_to: AppliesTo = "all",
     ) -> None:
+        name = read_name(name, "Combination")
         if isinstance(parts, _PRIMITIVES):
             parts = (parts,)
-        if not isinstance(parts, Sequence) or not parts:
+        if not isinstance(parts, Sequence) or isinstance(parts, str) or not parts:
             raise LoadInputError(f"{name}: give the parts as a list of loads, got {parts!r}.", field="parts")
         for p in parts:
             if not isinstance(p, _PRIMITIVES):
@@ -90,7 +101,13 @@ class Combination:
             )
         if isinstance(dynamic_on, str):
             dynamic_on = (dynamic_on,)
-        unknown = [n for n in dynamic_on if n not in names]
+        dynamic_on = listed(
+            dynamic_on,
+            wanted=f"{name}: dynamic_on: give the names of the parts that get the dynamic allowance, e.g. {names[:1]}",
+            field="dynamic_on",
+            error=LoadInputError,
+        )
+        unknown = [n for n in dynamic_on if not isinstance(n, str) or n not in names]
         if unknown:
             raise LoadInputError(
                 f"{name}: dynamic_on names {unknown}, which are not parts; the parts are {names}.",
@@ -104,14 +121,9 @@ class Combination:
                 f"name the parts it applies to, from {names}.",
                 field="dynamic_on",
             )
-        if applies_to not in get_args(AppliesTo):
-            raise LoadInputError(
-                f"{name}: applies_to must be one of {list(get_args(AppliesTo))}, got {applies_to!r}.",
-                field="applies_to",
-                value=applies_to,
-            )
+        choice(applies_to, get_args(AppliesTo), what=f"{name}: applies_to", field="applies_to", error=LoadInputError)
         units = parts[0].units
-        object.__setattr__(self, "name", str(name))
+        object.__setattr__(self, "name", name)
         object.__setattr__(self, "parts", tuple(p.converted(units) for p in parts))
         object.__setattr__(self, "dynamic_allowance", allowance)
         object.__setattr__(self, "dynamic_on", tuple(dynamic_on))
@@ -183,10 +195,18 @@ class LoadModel(RichDisplay):
         edition: str = "",
         from_memory: Sequence[str] = (),
     ) -> None:
+        name = read_name(name, "LoadModel")
         if isinstance(cases, Combination):
             cases = (cases,)
-        if not isinstance(cases, Sequence) or not cases or not all(isinstance(c, Combination) for c in cases):
-            raise LoadInputError(f"{name}: give the cases as a list of Combination objects, got {cases!r}.")
+        if (
+            not isinstance(cases, Sequence)
+            or isinstance(cases, str)
+            or not cases
+            or not all(isinstance(c, Combination) for c in cases)
+        ):
+            raise LoadInputError(
+                f"{name}: give the cases as a list of Combination objects, got {cases!r}.", field="cases", value=cases
+            )
         if not any(c.applies_to == "all" for c in cases):
             raise LoadInputError(
                 f"{name}: every case is limited to {cases[0].applies_to!r}; add a case with applies_to='all'.",
@@ -196,14 +216,24 @@ class LoadModel(RichDisplay):
         if len(set(names)) != len(names):
             raise LoadInputError(f"{name}: cases must have distinct names, got {names}.", field="cases")
         units = cases[0].units
-        object.__setattr__(self, "name", str(name))
+        object.__setattr__(self, "name", name)
         object.__setattr__(self, "cases", tuple(c.converted(units) for c in cases))
         object.__setattr__(self, "source", str(source))
         object.__setattr__(self, "notes", str(notes))
         object.__setattr__(self, "edition", str(edition))
-        if isinstance(from_memory, str):
-            from_memory = (from_memory,)
-        object.__setattr__(self, "from_memory", tuple(str(item) for item in from_memory))
+        recalled = listed(
+            (from_memory,) if isinstance(from_memory, str) else from_memory,
+            wanted=f"{name}: give from_memory as texts, e.g. ['tandem spacing 1.2 m (4.3.2)']",
+            field="from_memory",
+            error=LoadInputError,
+        )
+        if not all(isinstance(item, str) for item in recalled):
+            raise LoadInputError(
+                f"{name}: from_memory lists texts (the values recalled, with their clauses), got {recalled!r}.",
+                field="from_memory",
+                value=from_memory,
+            )
+        object.__setattr__(self, "from_memory", tuple(recalled))
 
     @property
     def units(self) -> UnitSystem:

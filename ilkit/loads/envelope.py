@@ -16,24 +16,28 @@ from dataclasses import dataclass, field
 from fractions import Fraction
 from typing import TYPE_CHECKING, Any, Literal
 
+from ilkit._check import choice, listed, whole
 from ilkit._display import RichDisplay
-from ilkit._exact import fmt, to_exact
+from ilkit._exact import fmt, fmt_precise
 from ilkit.errors import LoadInputError, UnitsError
 from ilkit.loads.combination import Combination, LoadModel, as_model
 from ilkit.loads.placement import _Study
 from ilkit.loads.primitives import Load
 from ilkit.loads.results import Extreme, Extremes
+from ilkit.model import Beam
 from ilkit.quantity import Side
+from ilkit.units import LENGTH, magnitude_in
 
 if TYPE_CHECKING:  # pragma: no cover
     import pandas as pd
 
     from ilkit.influence import InfluenceLine
-    from ilkit.model import Beam
 
 __all__ = ["Envelope", "envelope"]
 
 _GOLDEN = (math.sqrt(5.0) - 1.0) / 2.0
+MAX_DIVISIONS = 1000
+"""Most parts per span: each section is two placement searches, so more would run for hours."""
 
 
 @dataclass(frozen=True)
@@ -79,24 +83,23 @@ class Envelope(RichDisplay):
         section or support of the tables; ``side`` picks the face where there
         are two (the left one if not given).
         """
-        if quantity not in ("moment", "shear", "reaction"):
-            raise LoadInputError(
-                f"extreme: quantity must be 'moment', 'shear' or 'reaction', got {quantity!r}.",
-                field="quantity",
-                value=quantity,
-            )
-        pos = to_exact(at, field="at")
-        keys = [k for k in self._found if k[0] == quantity and k[1] == pos and (side is None or k[2] == side)]
+        kinds = ("moment", "shear", "reaction")
+        choice(quantity, kinds, what="extreme: quantity", field="quantity", error=LoadInputError)
+        choice(extreme, ("max", "min"), what="extreme: extreme", field="extreme", error=LoadInputError)
+        choice(side, ("left", "right"), what="extreme: side", field="side", error=LoadInputError, optional=True)
+        pos = magnitude_in(at, dims=LENGTH, system=self.beam.units, field="at")
+        # a section given as a float (20/3 written 6.666666666666667) is the section within rounding of it
+        tol = Fraction(1, 10**9) * self.beam.length
+        near = [k for k in self._found if k[0] == quantity and abs(k[1] - pos) <= tol and (side in (None, k[2]))]
+        keys = sorted(near, key=lambda k: (abs(k[1] - pos), k[2] != "left"))
         if not keys:
-            listed = [fmt(p) for p in sorted({k[1] for k in self._found if k[0] == quantity})]
+            sections = [fmt(p) for p in sorted({k[1] for k in self._found if k[0] == quantity})]
             raise LoadInputError(
-                f"extreme: no {quantity} at x={fmt(pos)}{f' ({side})' if side else ''} in this envelope; "
-                f"it has x = {', '.join(listed[:12])}{' ...' if len(listed) > 12 else ''}.",
+                f"extreme: no {quantity} at x={fmt_precise(pos)}{f' ({side})' if side else ''} in this envelope; "
+                f"it has x = {', '.join(sections[:12])}{' ...' if len(sections) > 12 else ''}.",
                 field="at",
                 value=at,
             )
-        if extreme not in ("max", "min"):
-            raise LoadInputError(f"extreme must be 'max' or 'min', got {extreme!r}.", field="extreme")
         found = self._found[keys[0]]
         return found.maximum if extreme == "max" else found.minimum
 
@@ -116,6 +119,10 @@ def envelope(
     """
     import pandas as pd
 
+    if not isinstance(beam, Beam):
+        raise LoadInputError(
+            f"envelope: give a Beam, got {type(beam).__name__} {beam!r}.", field="beam", value=beam
+        )
     model = as_model(load)
     if beam.units is None:
         raise UnitsError(
@@ -123,12 +130,15 @@ def envelope(
             f"Declare them: Beam(..., units={model.units.name!r}) or units='kN-m'.",
             field="units",
         )
-    if isinstance(divisions, bool) or not isinstance(divisions, int) or divisions < 1:
-        raise LoadInputError(
-            f"divisions: give a whole number of parts per span (>= 1), got {divisions!r}.",
-            field="divisions",
-            value=divisions,
-        )
+    divisions = whole(
+        divisions,
+        what="divisions: the parts per span",
+        field="divisions",
+        minimum=1,
+        maximum=MAX_DIVISIONS,
+        error=LoadInputError,
+        hint="; for a closer look at one stretch add its sections with at=[...]",
+    )
     model = model.converted(beam.units)
     u = beam.units
     L = beam.length
@@ -138,11 +148,11 @@ def envelope(
     points: set[Fraction] = set(releases)
     for a, b in zip(stations[:-1], stations[1:]):
         points.update(a + (b - a) * Fraction(k, divisions) for k in range(divisions + 1))
-    for raw in at:
-        pos = to_exact(raw, field="at")
+    for raw in listed(at, wanted="at: give a list of section positions, e.g. [12.5]", field="at", ordered=False):
+        pos = magnitude_in(raw, dims=LENGTH, system=u, field="at")
         if not 0 <= pos <= L:
             raise LoadInputError(
-                f"at: x={fmt(pos)} is off the beam; give sections from 0 to {fmt(L)}.", field="at", value=raw
+                f"at: x={fmt_precise(pos)} is off the beam; give sections from 0 to {fmt(L)}.", field="at", value=raw
             )
         points.add(pos)
     faces = set(supports) | set(releases)

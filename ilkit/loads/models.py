@@ -18,12 +18,14 @@ a line load along the girder line.
 from __future__ import annotations
 
 import math
+import numbers
 from typing import Literal
 
+from ilkit._check import choice, flag, whole
 from ilkit._exact import fmt
 from ilkit.errors import LoadInputError
 from ilkit.loads.combination import Combination, LoadModel
-from ilkit.loads.primitives import AxleTrain, TrainUniform, UniformBlocks, UniformLoad, number
+from ilkit.loads.primitives import AxleTrain, TrainUniform, UniformBlocks, UniformLoad, number, numbers_of
 
 __all__ = [
     "design_truck",
@@ -106,13 +108,10 @@ def multiple_presence(lanes: int) -> float:
     1.20 for one loaded lane, 1.00 for two, 0.85 for three, 0.65 for more.
     Not applied for fatigue.
     """
-    if isinstance(lanes, bool) or not isinstance(lanes, int) or lanes < 1:
-        raise LoadInputError(
-            f"multiple_presence: give the number of loaded lanes as a whole number >= 1, got {lanes!r}.",
-            field="lanes",
-            value=lanes,
-        )
-    return {1: 1.20, 2: 1.00, 3: 0.85}.get(lanes, 0.65)
+    n = whole(
+        lanes, what="multiple_presence: the number of loaded lanes", field="lanes", minimum=1, error=LoadInputError
+    )
+    return {1: 1.20, 2: 1.00, 3: 0.85}.get(n, 0.65)
 
 
 def hl93(
@@ -225,7 +224,9 @@ def lm1(
     are 1.0 unless the National Annex sets them (seen).  Dynamic
     amplification is included in the values.  kN, m.
     """
-    if lane not in _LM1:
+    if isinstance(lane, numbers.Integral) and not isinstance(lane, bool) and int(lane) in _LM1:
+        lane = int(lane)  # type: ignore[assignment]
+    elif not isinstance(lane, str) or lane != "other":
         raise LoadInputError(f"lm1: lane must be one of 1, 2, 3 or 'other', got {lane!r}.", field="lane", value=lane)
     Q, q = _LM1[lane]
     width = number(lane_width, "lane_width")
@@ -260,7 +261,8 @@ def lm2(beta_Q: float = 1.0) -> LoadModel:
 
 def _alpha(alpha: float, any_alpha: bool) -> float:
     a = number(alpha, "alpha")
-    if not any_alpha and not any(abs(a - v) < 1e-12 for v in ALPHA_VALUES):
+    listed_value = any(abs(a - v) < 1e-12 for v in ALPHA_VALUES)
+    if not flag(any_alpha, what="any_alpha", field="any_alpha", error=LoadInputError) and not listed_value:
         raise LoadInputError(
             f"alpha: {fmt(a)} is not one of the values of EN 1991-2 6.3.2 ({', '.join(fmt(v) for v in ALPHA_VALUES)}, "
             "from memory); pass any_alpha=True to use another value.",
@@ -377,9 +379,7 @@ _COOPER_SPACINGS = (8.0, 5.0, 5.0, 5.0, 9.0, 5.0, 6.0, 5.0)
 
 
 def _per(per: str) -> float:
-    if per not in ("track", "rail"):
-        raise LoadInputError(f"per: give 'track' or 'rail', got {per!r}.", field="per", value=per)
-    return 1.0 if per == "track" else 0.5
+    return 1.0 if choice(per, ("track", "rail"), what="per", field="per", error=LoadInputError) == "track" else 0.5
 
 
 def cooper_train(
@@ -405,6 +405,12 @@ def cooper_train(
     kip, ft.
     """
     scale = number(n, "n") / 80.0 * _per(per)
+    axles = numbers_of(axles, what="axles", item="axle", wanted="axles: give the axle loads of a locomotive as a list")
+    if not axles:
+        raise LoadInputError("cooper_train: axles is empty; give the axle loads of a locomotive.", field="axles")
+    spacings = numbers_of(
+        spacings, what="spacings", item="spacing", wanted="spacings: give the axle spacings of a locomotive as a list"
+    )
     if len(spacings) != len(axles) - 1:
         raise LoadInputError(
             f"cooper_train: {len(axles)} axles per locomotive need {len(axles) - 1} spacings, got {len(spacings)}.",
@@ -432,6 +438,9 @@ def alternate_live_load(
     Scaled by n/80; ``per="rail"`` halves the loads.  kip, ft.
     """
     scale = number(n, "n") / 80.0 * _per(per)
+    spacings = numbers_of(
+        spacings, what="spacings", item="spacing", wanted="spacings: give the axle spacings as a list"
+    )
     loads = [number(axle, "axle") * scale] * (len(spacings) + 1)
     return AxleTrain(loads, list(spacings), units="kip-ft", name="alternate live load")
 

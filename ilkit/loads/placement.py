@@ -18,20 +18,19 @@ from __future__ import annotations
 import functools
 from collections.abc import Callable
 from dataclasses import dataclass, field
-from typing import TYPE_CHECKING, Literal
+from typing import Literal
 
 import numpy as np
 
+from ilkit._check import choice, finite
 from ilkit._exact import fmt
 from ilkit.errors import LoadInputError, UnitsError
 from ilkit.influence import InfluenceLine
 from ilkit.loads import _search
 from ilkit.loads.combination import Combination, LoadModel, as_model
-from ilkit.loads.primitives import AxleTrain, KnifeEdge, Load, UniformBlocks, UniformLoad
+from ilkit.loads.primitives import OVERFLOW, AxleTrain, KnifeEdge, Load, UniformBlocks, UniformLoad
 from ilkit.loads.results import AxlePosition, Direction, Extreme, Extremes, LoadPlacement, Patch
-
-if TYPE_CHECKING:  # pragma: no cover
-    from ilkit.model import Beam
+from ilkit.model import Beam
 
 __all__ = ["place", "extremes"]
 
@@ -55,8 +54,7 @@ def place(
     apply to interior reactions (AASHTO's two-truck rule) when the support is
     not at an end of the beam.
     """
-    if extreme not in ("max", "min"):
-        raise LoadInputError(f"extreme must be 'max' or 'min', got {extreme!r}.", field="extreme", value=extreme)
+    choice(extreme, ("max", "min"), what="extreme", field="extreme", error=LoadInputError)
     return _Study(line, load, beam).extreme(1 if extreme == "max" else -1)
 
 
@@ -86,6 +84,13 @@ class _Study:
         if not isinstance(self.line, InfluenceLine):
             raise LoadInputError(
                 f"expected an InfluenceLine (e.g. beam.moment(12)), got {type(self.line).__name__}.", field="line"
+            )
+        if self.beam is not None and not isinstance(self.beam, Beam):
+            raise LoadInputError(
+                f"beam: give the Beam the line belongs to (or leave it out), got {type(self.beam).__name__} "
+                f"{self.beam!r}.",
+                field="beam",
+                value=self.beam,
             )
         model = as_model(self.load)
         if self.line.units is None:
@@ -138,6 +143,13 @@ class _Study:
 
     # ------------------------------------------------------------- extremes
     def extreme(self, sense: int) -> Extreme:
+        with np.errstate(over="ignore", invalid="ignore"):  # an overflow is reported below, as the effect
+            found = self._extreme(sense)
+        what = f"the {'largest' if sense > 0 else 'smallest'} effect of {self.model.name} on {self.line.quantity.label}"
+        finite(found.value, what=what, why=OVERFLOW, field="load", error=LoadInputError)
+        return found
+
+    def _extreme(self, sense: int) -> Extreme:
         cases = [case for case in self.model.cases if self.applies(case, sense)]
         wanted = [
             (block, isinstance(part, AxleTrain) and part.drop_adverse_axles)
@@ -176,6 +188,12 @@ class _Study:
         at = self.line.quantity.at
         if self.beam is not None:
             positions = [s.at for s in self.beam.supports]
+            if at not in positions:
+                raise LoadInputError(
+                    f"{self.line.quantity.label}: the beam given has no support at x={fmt(at)} (supports at "
+                    f"x={', '.join(fmt(p) for p in positions)}); pass the beam the line belongs to.",
+                    field="beam",
+                )
             return positions[0] < at < positions[-1]
         if at == 0 or float(at) == self.line.length:
             return False

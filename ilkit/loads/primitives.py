@@ -21,7 +21,8 @@ from fractions import Fraction
 from pathlib import Path
 from typing import TYPE_CHECKING, Any
 
-from ilkit._exact import fmt
+from ilkit._check import flag, listed
+from ilkit._exact import fmt, to_exact
 from ilkit.errors import LoadInputError
 from ilkit.loads._search import Chain, Group, Segment
 from ilkit.units import UnitSystem, conversion, unit_system
@@ -31,30 +32,55 @@ if TYPE_CHECKING:  # pragma: no cover
 
 __all__ = ["AxleTrain", "TrainUniform", "UniformLoad", "UniformBlocks", "KnifeEdge", "Load", "read_units"]
 
+OVERFLOW = (
+    "loads times ordinates overflow float arithmetic. Check the load's numbers and units, and the beam's "
+    "(a length, EI or spring far from 1 in its units)."
+)
+"""Why an effect is not finite (for :func:`ilkit._check.finite`)."""
+
 SpacingInput = float | int | str | Fraction | tuple[Any, Any] | list[Any]
 
 
 # ------------------------------------------------------------------ helpers
 def number(value: object, what: str, *, minimum: float = 0.0, strict: bool = True, allow_inf: bool = False) -> float:
-    """``value`` as a float, checked to be finite and above ``minimum`` (at or above if not ``strict``)."""
-    if isinstance(value, Decimal):
-        value = float(value)
-    if isinstance(value, bool) or not isinstance(value, (numbers.Real, str)):
-        raise LoadInputError(
-            f"{what}: expected a number, got {type(value).__name__} {value!r}.", field=what, value=value
-        )
-    try:
-        out = float(Fraction(value.strip())) if isinstance(value, str) and "/" in value else float(value)
-    except (TypeError, ValueError, ZeroDivisionError):
-        raise LoadInputError(
-            f"{what}: cannot read {value!r} as a number; write it like 32 or '14.5'.", field=what, value=value
-        ) from None
-    if math.isnan(out) or (math.isinf(out) and not (allow_inf and out > 0)):
-        raise LoadInputError(f"{what}: {value!r} is not a finite number; give a finite value.", field=what, value=value)
+    """``value`` as a float, checked to be finite and above ``minimum`` (at or above if not ``strict``).
+
+    Read like every number of ilkit (:func:`ilkit._exact.to_exact`: ints,
+    floats, fractions, decimals, decimal strings; no booleans, NaN or
+    arrays); ``allow_inf`` lets ``+inf`` through (an open upper bound).
+    """
+    if allow_inf and _positive_infinity(value):
+        return math.inf
+    out = float(to_exact(value, field=what, error=LoadInputError, units="the load's units"))
     if out < minimum or (strict and out == minimum):
         bound = "greater than" if strict else "at least"
         raise LoadInputError(f"{what}: must be {bound} {fmt(minimum)}, got {value!r}.", field=what, value=value)
     return out
+
+
+def _positive_infinity(value: object) -> bool:
+    if isinstance(value, bool) or not isinstance(value, (numbers.Real, str, Decimal)):
+        return False
+    try:
+        return float(value) == math.inf
+    except (TypeError, ValueError, OverflowError):
+        return False
+
+
+def numbers_of(values: object, *, what: str, item: str, wanted: str, **limits: Any) -> tuple[float, ...]:
+    """A list of numbers (list, tuple, 1-d array or Series), item ``k`` read by :func:`number` as
+    ``"{what}: {item} k"``; ``wanted`` is the message for something that is not a list."""
+    items = listed(values, wanted=wanted, field=what, error=LoadInputError)
+    return tuple(number(v, f"{what}: {item} {k}", **limits) for k, v in enumerate(items, start=1))
+
+
+def read_name(name: object, what: str) -> str:
+    """The name of a load, a combination or a model: a non-empty string."""
+    if isinstance(name, str) and name.strip():
+        return name
+    raise LoadInputError(
+        f"{what}: the name must be a non-empty string such as 'crane', got {name!r}.", field="name", value=name
+    )
 
 
 def read_units(units: object, what: str) -> UnitSystem:
@@ -101,8 +127,8 @@ class TrainUniform:
     def __post_init__(self) -> None:
         object.__setattr__(self, "intensity", number(self.intensity, "intensity"))
         object.__setattr__(self, "clearance", number(self.clearance, "clearance", strict=False))
-        if not isinstance(self.breakable, bool):
-            raise LoadInputError(f"breakable: give True or False, got {self.breakable!r}.", field="breakable")
+        breakable = flag(self.breakable, what="breakable", field="breakable", error=LoadInputError)
+        object.__setattr__(self, "breakable", breakable)
 
     def __repr__(self) -> str:
         return (
@@ -154,42 +180,39 @@ class AxleTrain:
         behind: TrainUniform | None = None,
         drop_adverse_axles: bool = False,
     ) -> None:
-        if isinstance(loads, (str, bytes)) or not isinstance(loads, Sequence) or len(loads) == 0:
+        wanted = "loads: give the axle loads as a list from the lead axle, e.g. [8, 32, 32]"
+        axle_loads = numbers_of(loads, what="loads", item="axle", wanted=wanted)
+        if not axle_loads:
+            raise LoadInputError(f"{wanted}; got {loads!r}.", field="loads", value=loads)
+        gaps = listed(
+            spacings,
+            wanted="spacings: give the distances between consecutive axles as a list, e.g. [14, 14]",
+            field="spacings",
+            error=LoadInputError,
+        )
+        if len(gaps) != len(axle_loads) - 1:
             raise LoadInputError(
-                f"loads: give the axle loads as a list from the lead axle, e.g. [8, 32, 32]; got {loads!r}.",
-                field="loads",
-                value=loads,
-            )
-        axle_loads = tuple(number(v, f"loads: axle {i + 1}") for i, v in enumerate(loads))
-        if isinstance(spacings, (str, bytes)) or not isinstance(spacings, Sequence):
-            raise LoadInputError(
-                f"spacings: give the distances between consecutive axles as a list, got {spacings!r}.",
+                f"spacings: {len(axle_loads)} axles need {len(axle_loads) - 1} spacings, got {len(gaps)} "
+                f"({gaps!r}).",
                 field="spacings",
                 value=spacings,
             )
-        if len(spacings) != len(axle_loads) - 1:
-            raise LoadInputError(
-                f"spacings: {len(axle_loads)} axles need {len(axle_loads) - 1} spacings, got {len(spacings)} "
-                f"({list(spacings)!r}).",
-                field="spacings",
-                value=spacings,
-            )
-        ranges = tuple(_spacing(s, i) for i, s in enumerate(spacings))
-        system = read_units(units, name)
-        for label, extra in (("ahead", ahead), ("behind", behind)):
+        ranges = tuple(_spacing(s, i) for i, s in enumerate(gaps))
+        label = read_name(name, "AxleTrain")
+        system = read_units(units, label)
+        for which, extra in (("ahead", ahead), ("behind", behind)):
             if extra is not None and not isinstance(extra, TrainUniform):
                 raise LoadInputError(
-                    f"{label}: give a TrainUniform(intensity, clearance) or None, got {extra!r}.", field=label
+                    f"{which}: give a TrainUniform(intensity, clearance) or None, got {extra!r}.", field=which
                 )
-        if not isinstance(drop_adverse_axles, bool):
-            raise LoadInputError(f"drop_adverse_axles: give True or False, got {drop_adverse_axles!r}.")
+        drop = flag(drop_adverse_axles, what="drop_adverse_axles", field="drop_adverse_axles", error=LoadInputError)
         object.__setattr__(self, "loads", axle_loads)
         object.__setattr__(self, "spacings", ranges)
         object.__setattr__(self, "units", system)
-        object.__setattr__(self, "name", str(name))
+        object.__setattr__(self, "name", label)
         object.__setattr__(self, "ahead", ahead)
         object.__setattr__(self, "behind", behind)
-        object.__setattr__(self, "drop_adverse_axles", drop_adverse_axles)
+        object.__setattr__(self, "drop_adverse_axles", drop)
 
     # ------------------------------------------------------------ reading tables
     @classmethod
@@ -216,7 +239,16 @@ class AxleTrain:
                 "use AxleTrain.from_csv for a file.",
                 field="frame",
             )
+        name = read_name(name, "from_frame")
+        read_units(units, name)
         columns = [str(c).strip().lower() for c in frame.columns]
+        repeated = sorted({c for c in columns if columns.count(c) > 1})
+        if repeated:
+            raise LoadInputError(
+                f"{name}: the table has more than one column named {repeated[0]!r} (columns: {list(frame.columns)}; "
+                "names are read without case and spaces); keep one, or rename the others.",
+                field=repeated[0],
+            )
         table = frame.set_axis(columns, axis=1)
         for needed in ("load", "spacing"):
             if needed not in columns:
@@ -228,7 +260,7 @@ class AxleTrain:
         if len(table) == 0:
             raise LoadInputError(f"{name}: the table has no rows; give one row per axle.", field="load")
         loads = [_cell(table, "load", i, name) for i in range(len(table))]
-        first = table["spacing"].iloc[0]
+        first = _item(table["spacing"].iloc[0])
         if not _blank(first) and _cell(table, "spacing", 0, name, minimum=0.0, strict=False) != 0.0:
             raise LoadInputError(
                 f"{name}: row 1 (the lead axle) has spacing {first!r}; leave it empty or 0 "
@@ -238,6 +270,14 @@ class AxleTrain:
             )
         spacings: list[SpacingInput] = []
         has_max = "spacing_max" in columns
+        first_max = _item(table["spacing_max"].iloc[0]) if has_max else None
+        if not _blank(first_max):
+            raise LoadInputError(
+                f"{name}: row 1 (the lead axle) has spacing_max {first_max!r}; leave it empty "
+                "(a varying spacing belongs to the row of the axle it leads to).",
+                field="spacing_max",
+                value=first_max,
+            )
         for i in range(1, len(table)):
             lo = _cell(table, "spacing", i, name)
             hi_raw = table["spacing_max"].iloc[i] if has_max else None
@@ -263,6 +303,12 @@ class AxleTrain:
         """An axle train from a CSV file with the columns of :meth:`from_frame`."""
         import pandas as pd
 
+        if not isinstance(path, (str, Path)):
+            raise LoadInputError(
+                f"from_csv: give the path of a CSV file as a string or a pathlib.Path, got {path!r}.",
+                field="path",
+                value=path,
+            )
         file = Path(path)
         if not file.is_file():
             raise LoadInputError(
@@ -272,7 +318,7 @@ class AxleTrain:
             )
         try:
             frame = pd.read_csv(file)
-        except (pd.errors.ParserError, pd.errors.EmptyDataError, UnicodeDecodeError) as err:
+        except (pd.errors.ParserError, pd.errors.EmptyDataError, UnicodeDecodeError, OSError) as err:
             raise LoadInputError(
                 f"from_csv: cannot read {str(file)!r} as CSV ({err}); save it as comma-separated text with a "
                 "header row 'load,spacing'.",
@@ -384,18 +430,23 @@ def _spacing(value: SpacingInput, index: int) -> tuple[float, float]:
 
 
 def _blank(value: object) -> bool:
+    """True for an empty table cell: None, NaN, pandas NA or blank text."""
     if value is None:
         return True
     if isinstance(value, str):
         return value.strip() == ""
-    try:
-        return math.isnan(float(value))  # type: ignore[arg-type]
-    except (TypeError, ValueError):
-        return False
+    if isinstance(value, numbers.Real):
+        return value != value  # NaN (no float conversion: a huge integer is a value, not a blank)
+    return type(value).__name__ in ("NAType", "NaTType")
+
+
+def _item(raw: Any) -> Any:
+    """A table cell as a plain Python value (``4.0``, not ``np.float64(4.0)``), for reading and for messages."""
+    return raw.item() if getattr(raw, "ndim", None) == 0 else raw
 
 
 def _cell(table: Any, column: str, row: int, name: str, **limits: Any) -> float:
-    raw = table[column].iloc[row]
+    raw = _item(table[column].iloc[row])
     if _blank(raw):
         raise LoadInputError(
             f"{name}: row {row + 1} has no {column!r}; fill it in (one row per axle, lead axle first).",
@@ -403,7 +454,7 @@ def _cell(table: Any, column: str, row: int, name: str, **limits: Any) -> float:
             value=raw,
         )
     try:
-        return number(raw.item() if hasattr(raw, "item") else raw, column, **limits)
+        return number(raw, column, **limits)
     except LoadInputError as err:
         raise LoadInputError(f"{name}: row {row + 1}, {err}", field=column, value=raw) from None
 
@@ -421,9 +472,10 @@ class UniformLoad:
     name: str = "uniform load"
 
     def __init__(self, intensity: float, *, units: str | UnitSystem, name: str = "uniform load") -> None:
+        label = read_name(name, "UniformLoad")
         object.__setattr__(self, "intensity", number(intensity, "intensity"))
-        object.__setattr__(self, "units", read_units(units, name))
-        object.__setattr__(self, "name", str(name))
+        object.__setattr__(self, "units", read_units(units, label))
+        object.__setattr__(self, "name", label)
 
     def __repr__(self) -> str:
         return f"UniformLoad({fmt(self.intensity)}, units={self.units.name!r}, name={self.name!r})"
@@ -458,19 +510,23 @@ class UniformBlocks:
         units: str | UnitSystem,
         name: str = "uniform blocks",
     ) -> None:
-        if isinstance(lengths, (str, bytes)) or not isinstance(lengths, Sequence) or not lengths:
+        wanted = "lengths: give the block lengths as a list, e.g. [15, 15]"
+        blocks = numbers_of(lengths, what="lengths", item="block", wanted=wanted)
+        if not blocks:
+            raise LoadInputError(f"{wanted}; got {lengths!r}.", field="lengths", value=lengths)
+        between = numbers_of(
+            gaps, what="gaps", item="gap", wanted="gaps: give the gaps between the blocks as a list", strict=False
+        )
+        if len(between) != len(blocks) - 1:
             raise LoadInputError(
-                f"lengths: give the block lengths as a list, e.g. [15, 15]; got {lengths!r}.", field="lengths"
+                f"gaps: {len(blocks)} blocks need {len(blocks) - 1} gaps between them, got {gaps!r}.", field="gaps"
             )
-        if isinstance(gaps, (str, bytes)) or not isinstance(gaps, Sequence) or len(gaps) != len(lengths) - 1:
-            raise LoadInputError(
-                f"gaps: {len(lengths)} blocks need {len(lengths) - 1} gaps between them, got {gaps!r}.", field="gaps"
-            )
+        label = read_name(name, "UniformBlocks")
         object.__setattr__(self, "intensity", number(intensity, "intensity"))
-        object.__setattr__(self, "lengths", tuple(number(v, "lengths") for v in lengths))
-        object.__setattr__(self, "gaps", tuple(number(v, "gaps", strict=False) for v in gaps))
-        object.__setattr__(self, "units", read_units(units, name))
-        object.__setattr__(self, "name", str(name))
+        object.__setattr__(self, "lengths", blocks)
+        object.__setattr__(self, "gaps", between)
+        object.__setattr__(self, "units", read_units(units, label))
+        object.__setattr__(self, "name", label)
 
     def __repr__(self) -> str:
         lengths = ", ".join(fmt(v) for v in self.lengths)
@@ -512,9 +568,10 @@ class KnifeEdge:
     name: str = "knife-edge load"
 
     def __init__(self, load: float, *, units: str | UnitSystem, name: str = "knife-edge load") -> None:
+        label = read_name(name, "KnifeEdge")
         object.__setattr__(self, "load", number(load, "load"))
-        object.__setattr__(self, "units", read_units(units, name))
-        object.__setattr__(self, "name", str(name))
+        object.__setattr__(self, "units", read_units(units, label))
+        object.__setattr__(self, "name", label)
 
     def __repr__(self) -> str:
         return f"KnifeEdge({fmt(self.load)}, units={self.units.name!r}, name={self.name!r})"

@@ -22,18 +22,17 @@ from __future__ import annotations
 
 import math
 from collections.abc import Sequence
-from typing import TYPE_CHECKING, get_args
+from typing import get_args
 
 import numpy as np
 
-from ilkit._exact import fmt
+from ilkit._check import choice, finite, listed
+from ilkit._exact import fmt, is_quantity
 from ilkit.errors import LoadInputError, UnitsError
 from ilkit.influence import InfluenceLine
-from ilkit.loads.primitives import AxleTrain, KnifeEdge, UniformBlocks, number
+from ilkit.loads.primitives import OVERFLOW, AxleTrain, KnifeEdge, UniformBlocks, number
 from ilkit.loads.results import AxlePosition, Direction, LoadPlacement, Patch
-
-if TYPE_CHECKING:  # pragma: no cover
-    from ilkit.units import UnitSystem
+from ilkit.units import LENGTH, UnitSystem, magnitude_in
 
 __all__ = ["stand", "train_length", "Travelling"]
 
@@ -62,8 +61,8 @@ def stand(
         converted to the line's units.
     at:
         Position of the front of the load (beam length unit, from the left end
-        of the beam); any finite value: parts of the load off the beam carry
-        nothing.
+        of the beam); any finite value (or a pint length when the beam declares
+        units): parts of the load off the beam carry nothing.
     direction:
         ``"left to right"`` (the front is the rightmost axle) or
         ``"right to left"``.
@@ -85,43 +84,33 @@ def stand(
         raise LoadInputError(
             f"stand: expected an InfluenceLine (e.g. beam.moment(12)), got {type(line).__name__}.", field="line"
         )
-    if not isinstance(load, (AxleTrain, KnifeEdge, UniformBlocks)):
-        hint = (
-            "a breakable uniform load stands where the line has the wanted sign; use ilkit.place(line, load)"
-            if type(load).__name__ == "UniformLoad"
-            else "for a combination or a load model, stand each travelling part (e.g. model.cases[0].parts)"
-        )
-        raise LoadInputError(
-            f"stand: {load!r} does not travel as one load; give an AxleTrain, KnifeEdge or UniformBlocks ({hint}).",
-            field="load",
-            value=load,
-        )
-    if direction not in DIRECTIONS:
-        raise LoadInputError(
-            f"stand: direction must be one of {', '.join(repr(d) for d in DIRECTIONS)}, got {direction!r}.",
-            field="direction",
-            value=direction,
-        )
+    _travelling(load, "stand")
+    choice(direction, DIRECTIONS, what="stand: direction", field="direction", error=LoadInputError)
+    if is_quantity(at):  # a position on the beam, in the beam's length unit
+        at = magnitude_in(at, dims=LENGTH, system=line.units, field="stand: position at")
     front = number(at, "stand: position at", minimum=-math.inf, strict=False)
     load = load.converted(units_for(load, line.units, line.quantity.label))
     gaps = _spacings(load, spacings)
     offsets, weights, segments = _layout(load, gaps)
     sign = -1.0 if direction == "left to right" else 1.0  # offsets run behind the front
 
-    xs = front + sign * np.asarray(offsets)
-    ordinates = np.asarray(line(xs), dtype=float) if xs.size else np.zeros(0)
-    axles = tuple(
-        AxlePosition(k + 1, p, float(x), None, float(y), bool(0.0 <= x <= line.length))
-        for k, (x, p, y) in enumerate(zip(xs, weights, ordinates))
-    )
-    patches = []
-    for start, end, intensity in segments:
-        lo, hi = sorted((front + sign * start, front + sign * end))
-        a, b = max(lo, 0.0), min(hi, line.length)
-        if b > a:
-            patches.append(Patch(a, b, intensity, intensity * line.integral(a, b)))
-    patches.sort(key=lambda p: p.start)
-    effect = float(sum(a.load * a.ordinate for a in axles if a.counted) + sum(p.effect for p in patches))
+    with np.errstate(over="ignore", invalid="ignore"):  # an overflow is reported below, as the effect
+        xs = front + sign * np.asarray(offsets)
+        ordinates = np.asarray(line(xs), dtype=float) if xs.size else np.zeros(0)
+        axles = tuple(
+            AxlePosition(k + 1, p, float(x), None, float(y), bool(0.0 <= x <= line.length))
+            for k, (x, p, y) in enumerate(zip(xs, weights, ordinates))
+        )
+        patches = []
+        for start, end, intensity in segments:
+            lo, hi = sorted((front + sign * start, front + sign * end))
+            a, b = max(lo, 0.0), min(hi, line.length)
+            if b > a:
+                patches.append(Patch(a, b, intensity, float(intensity * line.integral(a, b))))
+        patches.sort(key=lambda p: p.start)
+        effect = float(sum(a.load * a.ordinate for a in axles if a.counted) + sum(p.effect for p in patches))
+    what = f"stand: the effect of {load.name} on {line.quantity.label}"
+    finite(effect, what=what, why=OVERFLOW, field="load", error=LoadInputError)
     shown = None if isinstance(load, KnifeEdge) else direction
     return LoadPlacement(load.name, effect, 1.0, shown, tuple(gaps), axles, tuple(patches), front, line)
 
@@ -129,6 +118,7 @@ def stand(
 def train_length(load: Travelling, spacings: Sequence[float] | None = None) -> float:
     """Distance from the front of ``load`` to its last axle or the far end of its last block
     (length unit of the load; uniform parts of unlimited length not included)."""
+    _travelling(load, "train_length")
     gaps = _spacings(load, spacings)
     offsets, _, segments = _layout(load, gaps)
     ends = [*offsets, *(e for s, e, _ in segments if math.isfinite(e))]
@@ -136,6 +126,22 @@ def train_length(load: Travelling, spacings: Sequence[float] | None = None) -> f
 
 
 # -------------------------------------------------------------------- helpers
+def _travelling(load: object, what: str) -> None:
+    """Refuse anything but a load that travels as one (an axle train, a knife-edge load, blocks)."""
+    if isinstance(load, (AxleTrain, KnifeEdge, UniformBlocks)):
+        return
+    hint = (
+        "a breakable uniform load stands where the line has the wanted sign; use ilkit.place(line, load)"
+        if type(load).__name__ == "UniformLoad"
+        else "for a combination or a load model, stand each travelling part (e.g. model.cases[0].parts)"
+    )
+    raise LoadInputError(
+        f"{what}: {load!r} does not travel as one load; give an AxleTrain, KnifeEdge or UniformBlocks ({hint}).",
+        field="load",
+        value=load,
+    )
+
+
 def units_for(load: Travelling, system: UnitSystem | None, what: str) -> UnitSystem:
     """The unit system ``load`` is applied in: the beam's ``system``; a beam without one is an error."""
     if system is None:
@@ -149,7 +155,8 @@ def units_for(load: Travelling, system: UnitSystem | None, what: str) -> UnitSys
 
 def _spacings(load: Travelling, spacings: Sequence[float] | None) -> list[float]:
     if not isinstance(load, AxleTrain):
-        if spacings:
+        empty = getattr(spacings, "size", None) == 0 or (isinstance(spacings, (list, tuple)) and not spacings)
+        if spacings is not None and not empty:
             raise LoadInputError(
                 f"stand: {load.name} has no axle spacings; leave spacings out.", field="spacings", value=spacings
             )
@@ -157,15 +164,12 @@ def _spacings(load: Travelling, spacings: Sequence[float] | None) -> list[float]
     ranges = load.spacings
     if spacings is None:
         return [lo for lo, _ in ranges]
-    if isinstance(spacings, (str, bytes)) or not isinstance(spacings, Sequence) or len(spacings) != len(ranges):
-        raise LoadInputError(
-            f"stand: {load.name} has {len(ranges) + 1} axles, so give {len(ranges)} spacings (lead axle first), "
-            f"got {spacings!r}.",
-            field="spacings",
-            value=spacings,
-        )
+    wanted = f"stand: {load.name} has {len(ranges) + 1} axles, so give {len(ranges)} spacings (lead axle first)"
+    given = listed(spacings, wanted=wanted, field="spacings", error=LoadInputError)
+    if len(given) != len(ranges):
+        raise LoadInputError(f"{wanted}; got {spacings!r}.", field="spacings", value=spacings)
     out = []
-    for k, (raw, (lo, hi)) in enumerate(zip(spacings, ranges)):
+    for k, (raw, (lo, hi)) in enumerate(zip(given, ranges)):
         value = number(raw, f"stand: spacing {k + 1}", strict=False)
         tol = 1e-9 * max(1.0, lo, hi if math.isfinite(hi) else lo)
         if not lo - tol <= value <= hi + tol:
