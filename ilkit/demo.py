@@ -112,13 +112,19 @@ def _page_exporter() -> Any:
 
 
 def _extra_outputs(out: Path) -> list[tuple[str, str, int]]:
-    """Further demo outputs written by the views layer: the calculation sheet of the notebook girder."""
-    from ilkit.views.demo import write_demo_sheet
+    """Further demo outputs written by the views layer: calculation sheets of two notebook girders."""
+    from ilkit.views.demo import write_demo_sheet, write_highway_sheet
 
-    sheet = write_demo_sheet(out)
-    print(f"wrote {sheet.html.name} and {sheet.markdown.name} ...", flush=True)
-    return [(sheet.html.name, "Calculation sheet of the suspended-span girder (Markdown version: "
-             f"{sheet.markdown.name})", 0)]
+    entries = []
+    for write, title in (
+        (write_demo_sheet, "Calculation sheet of the suspended-span girder"),
+        (write_highway_sheet, "Calculation sheet of the continuous highway girder under HL-93 (placements, "
+                              "envelope)"),
+    ):
+        sheet = write(out)
+        print(f"wrote {sheet.html.name} and {sheet.markdown.name} ...", flush=True)
+        entries.append((sheet.html.name, f"{title} (Markdown version: {sheet.markdown.name})", 0))
+    return entries
 
 
 def main(argv: list[str] | None = None) -> int:

@@ -275,11 +275,11 @@ def test_slider_steps_redraw_only_the_moving_load(girder, keep_backend):
     canvas = explorer._figure.live.figure.canvas
     full_draws = []
     canvas.mpl_connect("draw_event", lambda event: full_draws.append(1))
-    stems = explorer._figure._stems
+    stems = explorer._figure._load.stems
     explorer.position.value = 20.0
     explorer.position.value = 21.0
     assert full_draws == []
-    assert explorer._figure._stems is stems
+    assert explorer._figure._load.stems is stems
     assert stems.get_xdata()[0] == 21.0
     explorer.quantity.value = "shear"  # a new line is a new background: one full draw
     assert full_draws == [1]

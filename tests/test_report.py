@@ -112,7 +112,7 @@ def test_demo_runner_writes_the_sheet_and_links_it(tmp_path: Path) -> None:
     assert (tmp_path / "out" / "girder.md").is_file() and (tmp_path / "out" / "girder_figures" / "beam.svg").is_file()
 
 
-def test_sheet_of_a_continuous_beam_explains_the_stiffness_method(tmp_path: Path) -> None:
+def test_sheet_of_a_continuous_beam_writes_the_force_method(tmp_path: Path) -> None:
     beam = ilkit.Beam(60, {0: "pin", 20: "roller", 40: "roller", 60: "roller"}, EI=2_000_000, units="kN-m")
     lines = default_lines(beam)
     assert [line.quantity.label for line in lines][:4] == ["R at x=0", "R at x=20", "R at x=40", "R at x=60"]
@@ -121,4 +121,7 @@ def test_sheet_of_a_continuous_beam_explains_the_stiffness_method(tmp_path: Path
     assert "3 (indeterminate)" not in markdown and "2 (indeterminate)" in markdown
     assert "stiffness method with prismatic beam elements" in markdown and "Müller-Breslau principle (virtual" \
         not in markdown
-    assert "Nodal displacements" in markdown and "the bearing at x=20 settles by 1" in markdown
+    # the derivations are the force method's: primary structure, redundants, flexibility coefficients
+    assert "Redundants and primary structure" in markdown and "Flexibility coefficients" in markdown
+    assert "vertical reaction at x=20" in markdown and "supports pin at 0, roller at 60" in markdown
+    assert "force (flexibility) method on a determinate primary structure" in markdown

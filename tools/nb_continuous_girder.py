@@ -38,6 +38,7 @@ import numpy as np
 import pandas as pd
 
 import ilkit
+from ilkit import views
 
 spans = [24, 36, 40, 28]                       # m
 piers = np.cumsum([0, *spans]).tolist()        # bearing positions: 0, 24, 60, 100, 128
@@ -61,6 +62,9 @@ girder = ilkit.Beam(
 print(girder)
 print("degree of indeterminacy:", girder.degree)
 """),
+    ("code", """
+ax = views.draw_beam(girder, title="Four-span girder, haunched over the piers (kN, m)")
+"""),
     ("md", """
 ## The influence lines
 
@@ -78,23 +82,21 @@ lines = {
     "V right of pier x=60 [kN/kN]": girder.shear(pier, side="right"),
     "deflection at x=80 [mm per 100 kN]": girder.deflection(mid),
 }
-scale = {"deflection at x=80 [mm per 100 kN]": 1e5}   # m/kN -> mm per 100 kN
+scale = {"deflection at x=80 [mm per 100 kN]": 1e5}   # m/kN -> mm per 100 kN (for the table below)
 
-fig, axes = plt.subplots(len(lines), 1, figsize=(9, 11), sharex=True)
-for ax, (name, line) in zip(axes, lines.items()):
-    xs, ys = line.sample()
-    ys = ys * scale.get(name, 1)
-    ax.plot(xs, ys, color="black", lw=1.4)
-    ax.fill_between(xs, ys, where=ys > 0, color="tab:red", alpha=0.25, lw=0)
-    ax.fill_between(xs, ys, where=ys < 0, color="tab:blue", alpha=0.25, lw=0)
-    ax.axhline(0, color="grey", lw=0.8)
-    ax.plot(piers, [0] * len(piers), "^", color="dimgrey", ms=8)
-    for p in piers[1:-1]:
-        ax.axvspan(p - haunch, p + haunch, color="goldenrod", alpha=0.12, lw=0)
-    ax.set_ylabel(name, fontsize=8)
-    ax.grid(alpha=0.3)
-axes[-1].set_xlabel("position of the unit load x [m]  (shaded bands: haunches)")
-fig.tight_layout();
+fig, axes = plt.subplots(len(lines), 1, figsize=(7.5, 12), layout="constrained")
+for ax, line in zip(axes, lines.values()):
+    views.plot_line(line, ax=ax)
+    for p in piers[1:-1]:   # the haunches, as light bands behind the line
+        ax.axvspan(p - haunch, p + haunch, color=views.style.MUTED, alpha=0.12, linewidth=0, zorder=0)
+plt.show()
+"""),
+    ("md", """
+The Müller-Breslau picture of the pier moment: the girder's deflected shape
+under a unit kink at the pier, which is the influence line.
+"""),
+    ("code", """
+ax = views.sketch(girder.moment(pier))
 """),
     ("md", """
 ## Key ordinates
@@ -158,17 +160,13 @@ The pier then carries less, and the moment over it relaxes.
     ("code", """
 soft = girder.replace(supports={**{p: ("pin" if p == 0 else "roller") for p in piers},
                                pier: ilkit.Spring(vertical=1.5e5)})
-fig, axes = plt.subplots(1, 2, figsize=(10, 3.2))
+fig, axes = plt.subplots(2, 1, figsize=(7.5, 5.6), layout="constrained")
 for ax, what in zip(axes, ("reaction", "moment")):
-    for beam, style, label in ((girder, "-", "rigid pier"), (soft, "--", "elastic pier, 150 MN/m")):
-        xs, ys = getattr(beam, what)(pier).sample()
-        ax.plot(xs, ys, style, color="black", label=label)
-    ax.axhline(0, color="grey", lw=0.8)
-    ax.set_title(f"{what} at the pier x=60", fontsize=9)
-    ax.set_xlabel("x [m]")
-    ax.grid(alpha=0.3)
-axes[0].legend(fontsize=8)
-fig.tight_layout();
+    views.plot_line(getattr(soft, what)(pier), ax=ax,
+                    title=f"{what} at the pier x=60 on an elastic bearing (rigid bearing dashed)")
+    xs, ys = getattr(girder, what)(pier).sample()
+    ax.plot(xs, ys, color=views.style.INK, linewidth=0.9, linestyle=(0, (4, 2)), label="rigid pier")
+plt.show()
 
 for label, beam in (("rigid pier", girder), ("elastic pier", soft)):
     print(f"{label:13s}: max R = {beam.reaction(pier).maximum.value:.3f},  "
@@ -189,6 +187,19 @@ exact_line = small.moment(8, exact=True)
 print(exact_line.is_exact)
 print(exact_line.expr)
 print("ordinate for the load at x=4:", exact_line.ordinate_exact(4))
+"""),
+    ("md", """
+How that line is obtained, written out for the calculation package by the
+force method: the pier reaction is released, leaving a simple span of 20 m
+(the primary structure); the flexibility coefficient is the primary
+structure's deflection at the pier under a unit force there; compatibility
+gives the redundant for every load position; the pier moment follows by
+statics. The ordinates are set beside those of the stiffness method, which
+computed the line. (`views.derivation(line, method="stiffness")` writes out
+the stiffness method instead.)
+"""),
+    ("code", """
+views.derivation(exact_line)
 """),
 ]
 

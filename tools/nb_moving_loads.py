@@ -32,12 +32,15 @@ an upward resultant.
 """),
     ("code", """
 %matplotlib inline
+import tempfile
+from pathlib import Path
+
 import matplotlib.pyplot as plt
 import numpy as np
 import pandas as pd
 
 import ilkit
-from ilkit import loads
+from ilkit import loads, views
 
 pd.set_option("display.precision", 2)
 
@@ -51,6 +54,9 @@ girder = ilkit.Beam(
 )
 hl93 = loads.hl93()                         # one lane, IM = 33 % on truck and tandem, no multiple presence
 hl93, [case.name for case in hl93.cases]
+"""),
+    ("code", """
+ax = views.draw_beam(girder, title="Three-span continuous girder (kip, ft)")
 """),
     ("md", """
 ## Governing placements at four sections
@@ -85,36 +91,28 @@ def describe(extreme):
 
 pd.DataFrame({name: describe(e) for name, e in found.items()}).T
 """),
+    ("md", """
+Where the loads stand for each of the four extremes: the beam with the axles
+(arrow length growing with the load, load written above), the lane load
+hatched, and the direction of travel; below, the influence line with the
+ordinate under every counted axle and the loaded areas dotted.
+"""),
     ("code", """
-def draw(ax, line, extreme, title, supports):
-    # the influence line, the loaded patches shaded, an arrow for every counted axle
-    xs, ys = line.sample()
-    ax.plot(xs, ys, color="black", lw=1.2)
-    ax.axhline(0, color="black", lw=0.6)
-    for placed in extreme.placements:
-        for patch in placed.patches:
-            inside = (xs > patch.start) & (xs < patch.end)  # the drawn points, both sides of every jump
-            px = np.concatenate(([patch.start], xs[inside], [patch.end]))
-            py = np.concatenate(([line.right(patch.start)], ys[inside], [line.left(patch.end)]))
-            ax.fill_between(px, py, 0, color="0.82", lw=0)
-        for axle in placed.axles:
-            if axle.counted:
-                ax.annotate("", xy=(axle.x, axle.ordinate), xytext=(0, 24), textcoords="offset points",
-                            arrowprops=dict(arrowstyle="-|>", color="black", lw=1.0))
-            else:  # off the beam, or left off because it would reduce the extreme
-                ax.plot(axle.x, 0, marker="v", mfc="white", mec="0.4", ms=5)
-    for p in supports:
-        ax.plot(p, 0, marker="^", color="black", ms=6, clip_on=False)
-    ax.margins(y=0.3)
-    ax.set_title(f"{title}: {extreme.value:.1f} {extreme.unit} ({extreme.case})", fontsize=9, loc="left")
-    ax.set_ylabel(line.unit, fontsize=8)
-
-fig, axes = plt.subplots(len(studies), 1, figsize=(9, 2.4 * len(studies)), sharex=True)
-for ax, (name, (line, _)) in zip(axes, studies.items()):
-    draw(ax, line, found[name], name, piers)
-axes[-1].set_xlabel("load position x [ft]")
-fig.tight_layout()
+fig, axes = plt.subplots(len(studies), 1, figsize=(7.5, 3.4 * len(studies)), layout="constrained")
+for ax, extreme in zip(axes, found.values()):
+    views.plot_placement(extreme, ax=ax)
 plt.show()
+"""),
+    ("md", """
+A placement is shown in a notebook with its plot and its table (the same as
+in a calculation sheet); `views.table` gives its DataFrame, with the units in
+the column names, for CSV, Excel or LaTeX.
+"""),
+    ("code", """
+found["M over pier at x=90, min"]
+"""),
+    ("code", """
+views.table(found["M over pier at x=90, min"])[["load", "item", "x [ft]", "ordinate", "factored effect [kip·ft]"]]
 """),
     ("md", """
 A check by hand of the first table row: the lane load covers the positive
@@ -143,28 +141,18 @@ best = env.absolute_maximum_moment
 round(best.value, 1), round(float(best.quantity.at), 3), best.case
 """),
     ("code", """
-table = env.sections
-x = table["x [ft]"]
-fig, (top, bottom) = plt.subplots(2, 1, figsize=(9, 6), sharex=True)
-top.plot(x, table["M max [kip·ft]"], color="black", lw=1.2, label="largest")
-top.plot(x, table["M min [kip·ft]"], color="black", lw=1.2, ls="--", label="smallest")
-top.plot(float(best.quantity.at), best.value, "o", color="black", ms=4, label="absolute maximum")
-top.set_ylabel("M [kip·ft]")
-bottom.plot(x, table["V max [kip]"], color="black", lw=1.2)
-bottom.plot(x, table["V min [kip]"], color="black", lw=1.2, ls="--")
-bottom.set_ylabel("V [kip]")
-bottom.set_xlabel("section x [ft]")
-for ax in (top, bottom):
-    ax.axhline(0, color="black", lw=0.6)
-    for p in piers:
-        ax.axvline(p, color="0.7", lw=0.6)
-top.legend(fontsize=8, loc="lower right")
-top.set_title("HL-93 envelope, one lane (IM included)", fontsize=9, loc="left")
-fig.tight_layout()
+fig, (top, middle, bottom) = plt.subplots(3, 1, figsize=(7.5, 8), layout="constrained")
+views.plot_envelope(env, "moment", ax=top, title="HL-93 envelope of bending moment, one lane (IM included)")
+views.plot_envelope(env, "shear", ax=middle, title="HL-93 envelope of shear")
+views.plot_envelope(env, "reaction", ax=bottom, title="HL-93 envelope of reactions")
 plt.show()
 """),
     ("code", """
+ax = views.plot_placement(best)
+"""),
+    ("code", """
 # the sections where the two-truck rule governs the smallest moment: around the piers
+table = env.sections
 two_truck = table[table["M min case"].str.startswith("90 %")]
 ", ".join(f"{x:g}" for x in two_truck["x [ft]"].unique())
 """),
@@ -202,12 +190,10 @@ summary.round(1)
 """),
     ("code", """
 mid, end = rail.moment(12), rail.shear(0)
-fig, axes = plt.subplots(3, 1, figsize=(9, 6.6), sharex=True)
-draw(axes[0], mid, loads.place(mid, rail_model), "LM71: M at midspan", [0, 24])
-draw(axes[1], end, loads.place(end, rail_model), "LM71: V at the left end", [0, 24])
-draw(axes[2], mid, loads.place(mid, loads.cooper(80)), "Cooper E80: M at midspan", [0, 24])
-axes[-1].set_xlabel("load position x [m]")
-fig.tight_layout()
+fig, axes = plt.subplots(3, 1, figsize=(7.5, 10), layout="constrained")
+views.plot_placement(loads.place(mid, rail_model), ax=axes[0])
+views.plot_placement(loads.place(end, rail_model), ax=axes[1])
+views.plot_placement(loads.place(mid, loads.cooper(80)), ax=axes[2])
 plt.show()
 """),
     ("md", """
@@ -230,6 +216,22 @@ best = crane.absolute_maximum_moment
 # under the load that stands at L/2 - d/4
 hand, at = 180 * (2 * 12 - 3.2) ** 2 / (8 * 12), 12 / 2 - 3.2 / 4
 round(best.value, 2), round(hand, 2), round(float(best.quantity.at), 4), at
+"""),
+    ("md", """
+## The calculation sheet
+
+One call writes the record of the highway girder for the calculation package,
+as HTML and Markdown: the inputs; HL-93 with its definition, its source and
+the values recalled from memory; the influence lines with their sketches and
+derivations (the force method for this continuous girder); the governing
+placements of every line, plotted and tabulated; the envelope; the method and
+the caution. (`make demo` writes this sheet to `out/demo/highway_girder.html`.)
+"""),
+    ("code", """
+folder = Path(tempfile.mkdtemp())
+lines = [girder.moment(36), girder.moment(90), girder.shear(90, side="right"), girder.reaction(90)]
+sheet = views.write_calculation_sheet(girder, folder / "highway", lines=lines, load=hl93, divisions=10)
+print(sheet.html.name, sheet.markdown.name, len(list(sheet.figures.iterdir())), "figures")
 """),
 ]
 

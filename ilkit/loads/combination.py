@@ -14,6 +14,7 @@ from dataclasses import dataclass
 from typing import Literal, get_args
 
 from ilkit._check import choice, listed
+from ilkit._display import RichDisplay
 from ilkit._exact import fmt
 from ilkit.errors import LoadInputError
 from ilkit.loads.primitives import (
@@ -166,19 +167,34 @@ class Combination:
 
 
 @dataclass(frozen=True, repr=False)
-class LoadModel:
+class LoadModel(RichDisplay):
     """A published (or user) load model: alternative combinations, the worst of which governs.
 
-    ``source`` names the document and clause; ``notes`` says which values are
-    recalled from memory rather than read in the standard.
+    Where the model comes from, as plain data (calculation sheets print it):
+    ``source`` names the document and its clauses; ``edition`` the edition
+    the values were checked against (empty: not recorded, and the licensed
+    current edition governs); ``from_memory`` lists the values recalled
+    rather than read in a copy of the standard, each with its clause, to be
+    checked before use; ``notes`` holds any further remark.
     """
 
     name: str
     cases: tuple[Combination, ...]
     source: str = ""
     notes: str = ""
+    edition: str = ""
+    from_memory: tuple[str, ...] = ()
 
-    def __init__(self, name: str, cases: Sequence[Combination], *, source: str = "", notes: str = "") -> None:
+    def __init__(
+        self,
+        name: str,
+        cases: Sequence[Combination],
+        *,
+        source: str = "",
+        notes: str = "",
+        edition: str = "",
+        from_memory: Sequence[str] = (),
+    ) -> None:
         name = read_name(name, "LoadModel")
         if isinstance(cases, Combination):
             cases = (cases,)
@@ -204,6 +220,20 @@ class LoadModel:
         object.__setattr__(self, "cases", tuple(c.converted(units) for c in cases))
         object.__setattr__(self, "source", str(source))
         object.__setattr__(self, "notes", str(notes))
+        object.__setattr__(self, "edition", str(edition))
+        recalled = listed(
+            (from_memory,) if isinstance(from_memory, str) else from_memory,
+            wanted=f"{name}: give from_memory as texts, e.g. ['tandem spacing 1.2 m (4.3.2)']",
+            field="from_memory",
+            error=LoadInputError,
+        )
+        if not all(isinstance(item, str) for item in recalled):
+            raise LoadInputError(
+                f"{name}: from_memory lists texts (the values recalled, with their clauses), got {recalled!r}.",
+                field="from_memory",
+                value=from_memory,
+            )
+        object.__setattr__(self, "from_memory", tuple(recalled))
 
     @property
     def units(self) -> UnitSystem:
@@ -219,7 +249,14 @@ class LoadModel:
         system = read_units(units, self.name)
         if system == self.units:
             return self
-        return LoadModel(self.name, [c.converted(system) for c in self.cases], source=self.source, notes=self.notes)
+        return LoadModel(
+            self.name,
+            [c.converted(system) for c in self.cases],
+            source=self.source,
+            notes=self.notes,
+            edition=self.edition,
+            from_memory=self.from_memory,
+        )
 
 
 def as_model(load: Load | Combination | LoadModel) -> LoadModel:

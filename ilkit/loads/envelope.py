@@ -17,6 +17,7 @@ from fractions import Fraction
 from typing import TYPE_CHECKING, Any, Literal
 
 from ilkit._check import choice, listed, whole
+from ilkit._display import RichDisplay
 from ilkit._exact import fmt, fmt_precise
 from ilkit.errors import LoadInputError, UnitsError
 from ilkit.loads.combination import Combination, LoadModel, as_model
@@ -40,7 +41,7 @@ MAX_DIVISIONS = 1000
 
 
 @dataclass(frozen=True)
-class Envelope:
+class Envelope(RichDisplay):
     """Envelope of a load model on a beam.
 
     ``sections``: one row per section (two at interior supports and

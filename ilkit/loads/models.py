@@ -3,9 +3,11 @@
 Each function builds a model from the definitions of the standard it names,
 with the clause in its docstring.  Where a value was recalled rather than
 read in a copy of the standard, the docstring says **from memory**; every
-such value is an argument you can override.  The licensed current edition of
-each standard (and its National Annex, for the Eurocodes) governs: check the
-values against it.
+such value is an argument you can override.  Each model also carries this as
+plain data, for calculation sheets: ``model.source`` (document and clauses)
+and ``model.from_memory`` (the values recalled, each with its clause).  The
+licensed current edition of each standard (and its National Annex, for the
+Eurocodes) governs: check the values against it.
 
 Units: AASHTO and AREMA models are in kip and ft (``"kip-ft"``), EN 1991-2
 models in kN and m (``"kN-m"``).  They are converted when applied to a beam
@@ -162,7 +164,13 @@ def hl93(
             ),
         ],
         source=f"{_AASHTO}, 3.6.1.2, 3.6.1.3.1, Table 3.6.2.1-1",
-        notes="Two-truck rule and the neglect of non-contributing axles from memory (3.6.1.3.1). " + _CAUTION,
+        notes=_CAUTION,
+        from_memory=(
+            "two-truck rule: 90 % of two design trucks (lead axle of one at least 50 ft from the rear axle of "
+            "the other, rear spacings 14 ft) plus 90 % of the lane load, for negative moment between points of "
+            "contraflexure and for reactions at interior supports (3.6.1.3.1)",
+            "axles that do not add to the extreme are left off (3.6.1.3.1)",
+        ),
     )
 
 
@@ -185,7 +193,8 @@ def fatigue_truck(dynamic_allowance: float = 0.15, factor: float = 1.0) -> LoadM
             )
         ],
         source=f"{_AASHTO}, 3.6.1.4.1, Table 3.6.2.1-1",
-        notes="IM = 15 % from memory. " + _CAUTION,
+        notes=_CAUTION,
+        from_memory=("dynamic load allowance IM = 15 % for fatigue (Table 3.6.2.1-1)",),
     )
 
 
@@ -236,7 +245,8 @@ def lm1(
         f"LM1 lane {lane}",
         [Combination(f"LM1 lane {lane}", parts)],
         source=f"{_EN}, 4.3.2, Table 4.2",
-        notes="Tandem axle spacing 1.2 m from memory. " + _CAUTION,
+        notes=_CAUTION,
+        from_memory=("tandem axle spacing 1.2 m; only the complete tandem counts (4.3.2)",),
     )
 
 
@@ -288,7 +298,12 @@ def lm71(
         "LM71",
         [Combination("LM71", [train], factor=number(dynamic_factor, "dynamic_factor"))],
         source=f"{_EN}, 6.3.2",
-        notes="Definition from memory. " + _CAUTION,
+        notes=_CAUTION,
+        from_memory=(
+            "the definition: four 250 kN axles at 1.6 m, 80 kN/m beyond 0.8 m from the outer axles, applied "
+            "where unfavourable (6.3.2)",
+            "the values of α (6.3.2)",
+        ),
     )
 
 
@@ -298,7 +313,8 @@ def _sw(name: str, q: float, length: float, gap: float, factor: float) -> LoadMo
         name,
         [Combination(name, [blocks], factor=number(factor, "dynamic_factor"))],
         source=f"{_EN}, 6.3.3, Table 6.1",
-        notes="Values from memory. " + _CAUTION,
+        notes=_CAUTION,
+        from_memory=("intensity, block length and distance between the blocks (6.3.3, Table 6.1)",),
     )
 
 
@@ -458,5 +474,9 @@ def cooper(
             ),
         ],
         source=_AREMA,
-        notes="Axle sequence and alternate live load from memory. " + _CAUTION,
+        notes=_CAUTION,
+        from_memory=(
+            "axle sequence and spacings of the E-n locomotives (Chapter 15)",
+            "alternate live load: four 100 kip axles at 5, 6 and 5 ft (Chapter 15)",
+        ),
     )

@@ -218,7 +218,7 @@ class _Study:
     def placement(self, part: Load, sense: int, factor: float) -> LoadPlacement:
         if isinstance(part, UniformLoad):
             patches = self.patches_on_sign(part.intensity, [(-np.inf, np.inf)], sense)
-            return LoadPlacement(part.name, self.effect(part, sense), factor, None, (), (), patches)
+            return LoadPlacement(part.name, self.effect(part, sense), factor, None, (), (), patches, line=self.line)
         direction, chain, opt = self.best_chain(part, sense)
         drop = isinstance(part, AxleTrain) and part.drop_adverse_axles
         return self.describe(part, None if isinstance(part, KnifeEdge) else direction, chain, opt, sense, drop, factor)
@@ -287,7 +287,7 @@ class _Study:
         last = chain.groups[-1]
         front = opt.positions[-1] + last.extent if direction == "left to right" else opt.positions[0]
         return LoadPlacement(
-            load.name, opt.value, factor, direction, spacings, tuple(axles), tuple(patches), front
+            load.name, opt.value, factor, direction, spacings, tuple(axles), tuple(patches), front, line
         )
 
     def patches_on_sign(self, intensity: float, spans: list[tuple[float, float]], sense: int) -> tuple[Patch, ...]:

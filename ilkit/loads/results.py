@@ -6,15 +6,18 @@ its left end; effects carry the sign conventions of :mod:`ilkit.model`.
 
 from __future__ import annotations
 
-from dataclasses import dataclass
-from typing import TYPE_CHECKING, Literal
+from dataclasses import dataclass, field
+from typing import TYPE_CHECKING, Any, Literal
 
+from ilkit._display import RichDisplay
 from ilkit._exact import fmt
 from ilkit.quantity import Quantity, Side
 from ilkit.units import UnitSystem
 
 if TYPE_CHECKING:  # pragma: no cover
     import pandas as pd
+
+    from ilkit.influence import InfluenceLine
 
 __all__ = ["AxlePosition", "Patch", "LoadPlacement", "Extreme", "Extremes", "Direction", "effect_unit"]
 
@@ -78,7 +81,7 @@ class Patch:
 
 
 @dataclass(frozen=True)
-class LoadPlacement:
+class LoadPlacement(RichDisplay):
     """Where one load stands for an extreme, and its effect.
 
     ``effect`` is unfactored; ``factor`` is the factor on it in the case
@@ -88,7 +91,8 @@ class LoadPlacement:
     as placed (the chosen value where a spacing varies).  ``front`` is the
     position of the front of a travelling load (its lead axle, or the leading
     end of its first block; see :func:`ilkit.loads.stand`), ``None`` for a
-    uniform load placed in patches.
+    uniform load placed in patches.  ``line`` is the influence line the load
+    stands on (for tables with units and drawings).
     """
 
     load: str
@@ -99,11 +103,25 @@ class LoadPlacement:
     axles: tuple[AxlePosition, ...]
     patches: tuple[Patch, ...]
     front: float | None = None
+    line: InfluenceLine | None = field(default=None, repr=False, compare=False)
 
     @property
     def factored(self) -> float:
         """``factor x effect``."""
         return self.factor * self.effect
+
+    def to_frame(self) -> pd.DataFrame:
+        """One row per axle and per loaded patch, with positions, ordinates and effects.
+
+        Column names carry the units of the line the load stands on (none
+        when the placement was built without its line).
+        """
+        import pandas as pd
+
+        line = self.line
+        units = line.units if line is not None else None
+        unit = effect_unit(line.quantity, units) if line is not None and units is not None else None
+        return pd.DataFrame(_rows(self, units, unit))
 
     def __repr__(self) -> str:
         parts = [f"{self.load!r}", f"effect={fmt(self.effect)}"]
@@ -122,7 +140,7 @@ class LoadPlacement:
 
 
 @dataclass(frozen=True)
-class Extreme:
+class Extreme(RichDisplay):
     """The largest (``extreme="max"``) or smallest (``"min"``) effect of a load on one quantity.
 
     ``value`` is the factored total of the governing ``case``;
@@ -147,6 +165,11 @@ class Extreme:
             f"case {self.case!r})"
         )
 
+    @property
+    def line(self) -> InfluenceLine | None:
+        """The influence line the loads were placed on."""
+        return self.placements[0].line if self.placements else None
+
     def to_frame(self) -> pd.DataFrame:
         """One row per axle and per loaded patch, with positions, ordinates and effects.
 
@@ -154,51 +177,37 @@ class Extreme:
         """
         import pandas as pd
 
-        u = self.units
-        eff = self.unit
-        rows = []
-        for p in self.placements:
-            for a in p.axles:
-                rows.append(
-                    {
-                        "load": p.load,
-                        "item": f"axle {a.number}",
-                        f"x [{u.length}]": a.x,
-                        f"to x [{u.length}]": None,
-                        "side": a.side or "",
-                        "direction": p.direction or "",
-                        f"load [{u.force}]": a.load,
-                        f"intensity [{u.line_load}]": None,
-                        "ordinate": a.ordinate,
-                        "counted": a.counted,
-                        f"effect [{eff}]": a.effect,
-                        "factor": p.factor,
-                        f"factored effect [{eff}]": a.effect * p.factor,
-                    }
-                )
-            for k, patch in enumerate(p.patches):
-                rows.append(
-                    {
-                        "load": p.load,
-                        "item": f"patch {k + 1}",
-                        f"x [{u.length}]": patch.start,
-                        f"to x [{u.length}]": patch.end,
-                        "side": "",
-                        "direction": p.direction or "",
-                        f"load [{u.force}]": None,
-                        f"intensity [{u.line_load}]": patch.intensity,
-                        "ordinate": None,
-                        "counted": True,
-                        f"effect [{eff}]": patch.effect,
-                        "factor": p.factor,
-                        f"factored effect [{eff}]": patch.effect * p.factor,
-                    }
-                )
-        return pd.DataFrame(rows)
+        return pd.DataFrame([row for p in self.placements for row in _rows(p, self.units, self.unit)])
+
+
+def _rows(p: LoadPlacement, u: UnitSystem | None, eff: str | None) -> list[dict[str, Any]]:
+    """The table rows of one placement: its axles, then its patches (units in the column names)."""
+
+    def col(name: str, unit: str | None) -> str:
+        return f"{name} [{unit}]" if unit else name
+
+    x, to_x = col("x", u and u.length), col("to x", u and u.length)
+    load = col("load", u.force) if u else "axle load"  # "load" alone names the load
+    intensity = col("intensity", u and u.line_load)
+    effect, factored = col("effect", eff), col("factored effect", eff)
+    rows = []
+    for a in p.axles:
+        rows.append({
+            "load": p.load, "item": f"axle {a.number}", x: a.x, to_x: None, "side": a.side or "",
+            "direction": p.direction or "", load: a.load, intensity: None, "ordinate": a.ordinate,
+            "counted": a.counted, effect: a.effect, "factor": p.factor, factored: a.effect * p.factor,
+        })
+    for k, patch in enumerate(p.patches):
+        rows.append({
+            "load": p.load, "item": f"patch {k + 1}", x: patch.start, to_x: patch.end, "side": "",
+            "direction": p.direction or "", load: None, intensity: patch.intensity, "ordinate": None,
+            "counted": True, effect: patch.effect, "factor": p.factor, factored: patch.effect * p.factor,
+        })
+    return rows
 
 
 @dataclass(frozen=True)
-class Extremes:
+class Extremes(RichDisplay):
     """Both extremes of a load on one quantity."""
 
     maximum: Extreme

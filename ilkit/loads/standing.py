@@ -112,7 +112,7 @@ def stand(
     what = f"stand: the effect of {load.name} on {line.quantity.label}"
     finite(effect, what=what, why=OVERFLOW, field="load", error=LoadInputError)
     shown = None if isinstance(load, KnifeEdge) else direction
-    return LoadPlacement(load.name, effect, 1.0, shown, tuple(gaps), axles, tuple(patches), front)
+    return LoadPlacement(load.name, effect, 1.0, shown, tuple(gaps), axles, tuple(patches), front, line)
 
 
 def train_length(load: Travelling, spacings: Sequence[float] | None = None) -> float:

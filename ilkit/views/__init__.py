@@ -16,7 +16,11 @@ Public names:
 * :func:`table`, :func:`to_csv`, :func:`to_excel`, :func:`to_latex`;
 * :func:`write_calculation_sheet` -> :class:`CalculationSheet`;
 * :class:`Explorer` (``beam.explore()``): the interactive explorer;
+  :func:`plot_placement`: where the loads of a governing placement stand;
   :func:`plot_envelope`: envelopes of moving loads.
+
+Moving-load results (placements, envelopes, load models) have their tables,
+displays and sheet sections in :mod:`ilkit.views.moving_records`.
 
 A new result type joins by registering with the dispatchers
 :func:`ilkit.views.display.mimebundle`, :func:`table`,
@@ -24,10 +28,12 @@ A new result type joins by registering with the dispatchers
 :func:`ilkit.views.derive.derive_origin`.
 """
 
+# tables, displays and sheet sections of the moving-load results register themselves
+from ilkit.views import moving_records  # noqa: F401
 from ilkit.views.derive import Derivation, derivation
 from ilkit.views.draw import draw_beam
 from ilkit.views.explorer import Explorer
-from ilkit.views.moving import plot_envelope
+from ilkit.views.moving import plot_envelope, plot_placement
 from ilkit.views.plot import plot_line
 from ilkit.views.report import CalculationSheet, write_calculation_sheet
 from ilkit.views.sketch import sketch
@@ -47,4 +53,5 @@ __all__ = [
     "CalculationSheet",
     "Explorer",
     "plot_envelope",
+    "plot_placement",
 ]

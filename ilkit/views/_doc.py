@@ -32,6 +32,8 @@ __all__ = [
     "word",
     "paren",
     "sympy_math",
+    "value_math",
+    "rounded_poly",
     "lincomb",
     "to_markdown",
     "to_text",
@@ -125,6 +127,43 @@ def sympy_math(expr: Any) -> Math:
     from sympy.printing.mathml import mathml
 
     return Math(sympy.latex(expr), sympy.sstr(expr), f"<mrow>{mathml(expr, printer='presentation')}</mrow>")
+
+
+def value_math(v: Any, scale: float = 1.0) -> Math:
+    """An exact number as such; a float to six significant figures (rounding noise shown as 0)."""
+    if isinstance(v, Fraction):
+        return num(v)
+    v = float(v)
+    if abs(v) <= 1e-12 * scale:
+        return num(0)
+    text = f"{v:.6g}"
+    if "e" not in text:
+        return Math(text, text, f"<mn>{text}</mn>")
+    mantissa, exponent = text.split("e")
+    power = str(int(exponent))
+    return Math(
+        rf"{mantissa} \times 10^{{{power}}}",
+        text,
+        f"<mrow><mn>{mantissa}</mn><mo>×</mo><msup><mn>10</mn><mn>{power}</mn></msup></mrow>",
+    )
+
+
+def rounded_poly(expr: Any, reach: float) -> Any:
+    """A float polynomial in x for display: six significant figures, rounding noise dropped.
+
+    A term ``c x^p`` is noise when ``|c| reach^p`` is below 1e-12 of the largest term over ``|x| <= reach``.
+    """
+    import sympy
+
+    from ilkit._symbols import x
+
+    terms = sympy.Poly(expr, x).terms()
+    size = {p: abs(float(c)) * reach**p for (p,), c in terms}
+    big = max(size.values(), default=0.0)
+    return sum(
+        (sympy.Float(float(c), 6) * x**p for (p,), c in terms if size[p] > 1e-12 * big),
+        sympy.Integer(0),
+    )
 
 
 def lincomb(terms: Sequence[tuple[Fraction, Math | None]]) -> Math:

@@ -1,23 +1,20 @@
 """The explorer's figure: the beam above, the influence line (or an envelope) below,
 and the travelling load drawn on both (internal).
 
-The beam and the line come from the drawing functions of the views layer;
-this module only arranges them and keeps the few artists that move with the
-load (axle arrows on the beam, ordinates under the axles on the line, loaded
-patches) up to date in place (see :class:`ilkit.views.livefigure.LiveFigure`).
+The beam and the line come from the drawing functions of the views layer,
+the load from :class:`ilkit.views.loaddraw.LoadArtists` (the same drawing as
+the placement plots); this module only arranges them and keeps the load's
+artists up to date in place (see :class:`ilkit.views.livefigure.LiveFigure`).
 """
 
 from __future__ import annotations
 
-from collections.abc import Sequence
-from dataclasses import dataclass
 from typing import TYPE_CHECKING, Any
-
-import numpy as np
 
 from ilkit.views import style
 from ilkit.views.draw import draw_beam
 from ilkit.views.livefigure import Backend, LiveFigure
+from ilkit.views.loaddraw import Axle, LoadArtists, Loading
 from ilkit.views.moving import plot_envelope
 from ilkit.views.plot import plot_line
 
@@ -26,27 +23,6 @@ if TYPE_CHECKING:  # pragma: no cover
     from ilkit.model import Beam
 
 __all__ = ["Axle", "Loading", "ExplorerFigure"]
-
-ARROW_TOP = 0.55
-"""Height of the axle arrows above the beam axis (the beam diagram's data units)."""
-
-
-@dataclass(frozen=True)
-class Axle:
-    """An axle as drawn: position, load (force unit), ordinate under it, and whether it counts."""
-
-    x: float
-    load: float
-    ordinate: float
-    counted: bool = True
-
-
-@dataclass(frozen=True)
-class Loading:
-    """What stands on the beam: axles and uniformly loaded stretches ``(start, end, intensity)``."""
-
-    axles: tuple[Axle, ...] = ()
-    patches: tuple[tuple[float, float, float], ...] = ()
 
 
 class ExplorerFigure:
@@ -98,56 +74,17 @@ class ExplorerFigure:
             ax.set_xlim(*self._xlim)
 
     def _make_moving(self) -> None:
-        from matplotlib.collections import PolyCollection
-
-        ink, muted = style.INK, style.MUTED
-        beam, line = self.ax_beam, self.ax_line
-        self._stems = beam.plot([], [], color=ink, linewidth=1.4, gid="load:stems", clip_on=True)[0]
-        self._heads = beam.plot([], [], "v", color=ink, markersize=6, gid="load:heads")[0]
-        self._idle = beam.plot([], [], color=muted, linewidth=1.2, gid="load:not-counted")[0]
-        self._idle_heads = beam.plot([], [], "v", color=muted, markersize=6, gid="load:not-counted-heads")[0]
-        self._band = PolyCollection([], facecolor="none", edgecolor=ink, hatch="||", linewidth=0.8, gid="load:patches")
-        beam.add_collection(self._band)
-        self._drops = line.plot([], [], color=ink, linewidth=1.0, gid="load:ordinates")[0]
-        self._dots = line.plot([], [], "o", color=ink, markersize=4.5, markerfacecolor="white", gid="load:dots",
-                               zorder=6)[0]
-        self._under = PolyCollection([], facecolor="none", edgecolor=ink, hatch="..", linewidth=0.0,
-                                     gid="load:area")
-        line.add_collection(self._under)
-        self._moving = [self._band, self._stems, self._heads, self._idle, self._idle_heads, self._under,
-                        self._drops, self._dots]
+        self._load = LoadArtists(self.ax_beam, self.ax_line)
+        self._moving = self._load.artists
         self.live.animate(*self._moving)
-        self._apply(self._loading)
+        self._load.update(self._loading, self._line)
 
     # ----------------------------------------------------------------- the load
     def set_loading(self, loading: Loading) -> None:
         """Move the drawn load (call :meth:`refresh` to show it)."""
         self._loading = loading
         if self._moving:
-            self._apply(loading)
-
-    def _apply(self, loading: Loading) -> None:
-        counted = [a for a in loading.axles if a.counted]
-        idle = [a for a in loading.axles if not a.counted]
-        heaviest = max((a.load for a in loading.axles), default=1.0) or 1.0
-        top = ARROW_TOP
-
-        def tip(a: Axle) -> float:  # arrow length grows with the axle load
-            return 0.2 + (top - 0.2) * a.load / heaviest
-
-        self._stems.set_data(*_segments([(a.x, 0.08, a.x, tip(a)) for a in counted]))
-        self._heads.set_data([a.x for a in counted], [0.1] * len(counted))
-        self._idle.set_data(*_segments([(a.x, 0.08, a.x, tip(a)) for a in idle]))
-        self._idle_heads.set_data([a.x for a in idle], [0.1] * len(idle))
-        self._band.set_verts([[(s, 0.08), (e, 0.08), (e, top * 0.7), (s, top * 0.7)] for s, e, _ in loading.patches])
-        if self._line is not None:
-            self._drops.set_data(*_segments([(a.x, 0.0, a.x, a.ordinate) for a in counted]))
-            self._dots.set_data([a.x for a in counted], [a.ordinate for a in counted])
-            self._under.set_verts([_area(self._line, s, e) for s, e, _ in loading.patches])
-        else:
-            self._drops.set_data([], [])
-            self._dots.set_data([], [])
-            self._under.set_verts([])
+            self._load.update(loading, self._line)
 
     # ------------------------------------------------------------------ showing
     def draw(self) -> None:
@@ -158,26 +95,4 @@ class ExplorerFigure:
     def refresh(self) -> None:
         """Redraw the moving load only."""
         self.live.refresh()
-
-
-def _segments(rows: Sequence[tuple[float, float, float, float]]) -> tuple[list[float], list[float]]:
-    """Vertical or sloping segments as one polyline broken by NaN."""
-    xs: list[float] = []
-    ys: list[float] = []
-    for x0, y0, x1, y1 in rows:
-        xs += [x0, x1, np.nan]
-        ys += [y0, y1, np.nan]
-    return xs, ys
-
-
-def _area(line: InfluenceLine, start: float, end: float) -> list[tuple[float, float]]:
-    """Outline of the area under ``line`` from ``start`` to ``end`` (for a loaded patch)."""
-    a, b = max(start, 0.0), min(end, line.length)
-    if b <= a:
-        return []
-    inner = [x for x in line.breakpoints if a < x < b]
-    xs = np.array([a, *inner, b])
-    xs = np.concatenate([np.linspace(p, q, 12) for p, q in zip(xs[:-1], xs[1:])])
-    ys = np.asarray(line(xs), dtype=float)
-    return [(a, 0.0), *zip(xs.tolist(), ys.tolist()), (b, 0.0)]
 

@@ -1,11 +1,16 @@
-"""Demo calculation sheet (a scenario of our own, invented numbers).
+"""Demo calculation sheets (scenarios of our own, invented numbers).
 
-The girder of the notebook ``notebooks/hinged_girder.ipynb``: anchor spans of
-32 m and a 44 m centre span made of two 9 m cantilevers carrying a 26 m
-suspended span on hinges at 41 m and 67 m (kN, m); a statically determinate
-girder line (common practice in older road bridges).  :func:`write_demo_sheet`
-writes its calculation sheet; the demo runner (``python -m ilkit.demo``)
-calls it.
+* The girder of ``notebooks/hinged_girder.ipynb``: anchor spans of 32 m and a
+  44 m centre span made of two 9 m cantilevers carrying a 26 m suspended
+  span on hinges at 41 m and 67 m (kN, m); a statically determinate girder
+  line (common practice in older road bridges).  :func:`write_demo_sheet`
+  writes its influence-line sheet.
+* The highway girder of ``notebooks/moving_loads.ipynb``: three continuous
+  spans of 90, 115 and 90 ft (kip, ft) under the AASHTO LRFD HL-93 live load
+  of one lane.  :func:`write_highway_sheet` writes its sheet with the load
+  model, the governing placements and the envelope.
+
+The demo runner (``python -m ilkit.demo``) calls both.
 """
 
 from __future__ import annotations
@@ -16,7 +21,14 @@ from ilkit.influence import InfluenceLine
 from ilkit.model import Beam
 from ilkit.views.report import CalculationSheet, write_calculation_sheet
 
-__all__ = ["suspended_span_girder", "demo_lines", "write_demo_sheet"]
+__all__ = [
+    "suspended_span_girder",
+    "demo_lines",
+    "write_demo_sheet",
+    "highway_girder",
+    "highway_lines",
+    "write_highway_sheet",
+]
 
 
 def suspended_span_girder() -> Beam:
@@ -51,4 +63,35 @@ def write_demo_sheet(directory: str | Path) -> CalculationSheet:
         title="Three-span girder with a suspended span: influence lines",
         info={"scenario": "demo data (invented numbers), as in notebooks/hinged_girder.ipynb",
               "structure": "spans 32 + 44 + 32 m; 26 m suspended span on hinges at 41 m and 67 m"},
+    )
+
+
+def highway_girder() -> Beam:
+    """Three continuous spans of 90, 115 and 90 ft on a pin and rollers; EI constant (kip, ft)."""
+    return Beam(295, {0: "pin", 90: "roller", 205: "roller", 295: "roller"}, EI=1.0e8, units="kip-ft")
+
+
+def highway_lines(beam: Beam) -> list[InfluenceLine]:
+    """The notebook's four governing quantities: sagging moment at 0.4 of span 1, pier moment, shear
+    right of the pier, pier reaction."""
+    return [beam.moment(36), beam.moment(90), beam.shear(90, side="right"), beam.reaction(90)]
+
+
+def write_highway_sheet(directory: str | Path) -> CalculationSheet:
+    """Write the highway girder's sheet under HL-93 into ``directory`` (``highway_girder.html`` and ``.md``)."""
+    from ilkit.loads import hl93
+
+    beam = highway_girder()
+    return write_calculation_sheet(
+        beam,
+        Path(directory) / "highway_girder",
+        lines=highway_lines(beam),
+        load=hl93(),
+        divisions=10,
+        title="Three-span continuous highway girder under HL-93",
+        info={"scenario": "demo data (invented numbers), as in notebooks/moving_loads.ipynb",
+              "structure": "continuous spans 90 + 115 + 90 ft, EI = 1e8 kip·ft² (force effects do not depend "
+                           "on its value)",
+              "live load": "AASHTO LRFD HL-93, one lane, dynamic allowance 33 % on truck and tandem, no "
+                           "multiple presence or distribution factor"},
     )

@@ -12,8 +12,12 @@ What is written depends on the origin:
   conditions solved (the imposed unit displacement among them), the movement
   of each part, the ordinates at the breakpoints by small-angle geometry and
   the final piecewise expression.
-* :class:`ilkit.stiffness.UnitShape` (indeterminate beams, springs,
-  deflections and rotations; the stiffness method): see
+* lines of statically indeterminate beams (springs included): by default
+  the force (flexibility) method, :mod:`ilkit.views.derive_force` (primary
+  structure, redundants, flexibility coefficients, the resulting ordinates
+  beside the stiffness method's, the expression);
+* :class:`ilkit.stiffness.UnitShape` with ``method="stiffness"``, and the
+  deflection and rotation lines of determinate beams: the stiffness method,
   :mod:`ilkit.views.derive_elastic`.
 
 Other analyses add their own writer with ``derive_origin.register(TheirOriginType)``:
@@ -27,10 +31,10 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 from fractions import Fraction
 from functools import singledispatch
-from typing import TYPE_CHECKING, Any
+from typing import TYPE_CHECKING, Any, Literal
 
 from ilkit._exact import fmt
-from ilkit.errors import NoDerivationError
+from ilkit.errors import BeamInputError, NoDerivationError
 from ilkit.kinematics import Mechanism, PartMotion
 from ilkit.views import _doc
 from ilkit.views._doc import Block, Cases, Heading, Math, Para, Table, ident, num, op, paren, word
@@ -41,7 +45,7 @@ if TYPE_CHECKING:  # pragma: no cover
     from ilkit.influence import InfluenceLine
     from ilkit.quantity import Quantity
 
-__all__ = ["Derivation", "derivation", "derive_origin", "header", "SIGN_CONVENTIONS", "quantity_title"]
+__all__ = ["Derivation", "derivation", "derive_origin", "header", "SIGN_CONVENTIONS", "quantity_title", "METHODS"]
 
 SIGN_CONVENTIONS: dict[str, str] = {
     "reaction": "positive upward",
@@ -105,14 +109,60 @@ class Derivation:
         return self.to_markdown()
 
 
-def derivation(line: InfluenceLine) -> Derivation:
-    """How ``line`` was obtained, from the analysis that produced it (``line.origin``).
+Method = Literal["auto", "stiffness", "flexibility"]
+METHODS: tuple[str, ...] = ("auto", "stiffness", "flexibility")
 
-    Raises :class:`ilkit.NoDerivationError` when the line's origin has no
-    derivation writer (a line built by hand, or by an analysis ilkit cannot
-    yet write out).
+
+def derivation(line: InfluenceLine, method: Method = "auto") -> Derivation:
+    """How ``line`` was obtained, written out step by step.
+
+    ``method``:
+
+    * ``"auto"`` (default): for a line of a statically indeterminate beam,
+      the force (flexibility) method; otherwise the analysis that produced the
+      line (``line.origin``): the Müller-Breslau mechanism of a determinate
+      beam's force line, the stiffness method for deflection and rotation
+      lines.  The force method is the default for indeterminate beams because
+      it is the form in which such lines are checked by hand (primary
+      structure, redundants, flexibility coefficients), and because it is a
+      second, independent solution: it sets its ordinates beside those of the
+      stiffness method that computed the line.
+    * ``"flexibility"``: the force method (indeterminate beams only);
+    * ``"stiffness"``: the stiffness method, as ilkit computed the line
+      (elements, nodal displacements, Hermite shapes).
+
+    Raises :class:`ilkit.NoDerivationError` when the line cannot be written
+    out that way (a line built by hand, or the force method asked of a
+    determinate beam).
     """
-    return derive_origin(line.origin, line)
+    from ilkit.stiffness import UnitShape
+
+    if method not in METHODS:
+        raise BeamInputError(
+            f"derivation: method must be one of {', '.join(repr(m) for m in METHODS)}, got {method!r}.",
+            field="method",
+            value=method,
+        )
+    origin = line.origin
+    beam = getattr(origin, "beam", None)
+    if method == "auto":
+        indeterminate = isinstance(origin, UnitShape) and beam is not None and beam.degree > 0
+        if not indeterminate:
+            return derive_origin(origin, line)
+        method = "flexibility"
+    if method == "flexibility":
+        from ilkit.flexibility import ForceMethod, force_method
+
+        if isinstance(origin, ForceMethod) or beam is None:  # without a beam: derive_origin says why not
+            return derive_origin(origin, line)
+        return derive_origin(force_method(beam, line.quantity, exact=line.is_exact), line)
+    if not isinstance(origin, UnitShape):
+        made_by = "nothing (origin=None)" if origin is None else type(origin).__name__
+        raise NoDerivationError(
+            f"{line.quantity.label}: method='stiffness' writes out lines of the stiffness method, and this line "
+            f"was produced by {made_by}; use derivation(line) for its own derivation."
+        )
+    return derive_origin(origin, line)
 
 
 @singledispatch
@@ -356,5 +406,5 @@ def _(origin: Mechanism, line: InfluenceLine) -> Derivation:
     return Derivation(title, tuple(blocks), expression)
 
 
-# the writer for lines of the stiffness method registers itself with derive_origin
-from ilkit.views import derive_elastic  # noqa: E402, F401
+# the writers for lines of the stiffness method and of the force method register themselves with derive_origin
+from ilkit.views import derive_elastic, derive_force  # noqa: E402, F401

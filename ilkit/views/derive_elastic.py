@@ -21,51 +21,28 @@ from ilkit._exact import fmt
 from ilkit.elements import clamped_response
 from ilkit.stiffness import UnitShape
 from ilkit.views import _doc
-from ilkit.views._doc import Block, Cases, Equation, Heading, Math, Para, Table, ident, num, op, paren
+from ilkit.views._doc import (
+    Block,
+    Cases,
+    Equation,
+    Heading,
+    Math,
+    Para,
+    Table,
+    ident,
+    num,
+    op,
+    paren,
+    rounded_poly,
+    value_math,
+)
 from ilkit.views.derive import ETA, Derivation, _interval, _symbol, derive_origin, header
 
 if TYPE_CHECKING:  # pragma: no cover
     from ilkit.influence import InfluenceLine
     from ilkit.model import Beam
 
-__all__: list[str] = []
-
-
-def _value(v: Any, scale: float = 1.0) -> Math:
-    """An exact number as such; a float to six significant figures (rounding noise shown as 0)."""
-    if isinstance(v, Fraction):
-        return num(v)
-    v = float(v)
-    if abs(v) <= 1e-12 * scale:
-        return num(0)
-    text = f"{v:.6g}"
-    if "e" not in text:
-        return Math(text, text, f"<mn>{text}</mn>")
-    mantissa, exponent = text.split("e")
-    power = str(int(exponent))
-    return Math(
-        rf"{mantissa} \times 10^{{{power}}}",
-        text,
-        f"<mrow><mn>{mantissa}</mn><mo>×</mo><msup><mn>10</mn><mn>{power}</mn></msup></mrow>",
-    )
-
-
-def _rounded(expr: Any, reach: float) -> Any:
-    """A float polynomial in x for display: six significant figures, rounding noise dropped.
-
-    A term ``c x^p`` is noise when ``|c| reach^p`` is below 1e-12 of the largest term over ``|x| <= reach``.
-    """
-    import sympy
-
-    from ilkit._symbols import x
-
-    terms = sympy.Poly(expr, x).terms()
-    size = {p: abs(float(c)) * reach**p for (p,), c in terms}
-    big = max(size.values(), default=0.0)
-    return sum(
-        (sympy.Float(float(c), 6) * x**p for (p,), c in terms if size[p] > 1e-12 * big),
-        sympy.Integer(0),
-    )
+__all__ = ["line_cases"]
 
 
 def _restraint_words(beam: Beam) -> str:
@@ -130,7 +107,7 @@ def _(origin: UnitShape, line: InfluenceLine) -> Derivation:
     blocks += [Heading("1. Unit action", 3), Para((f"Applied: {origin.action}.",))]
     if not c_is_one:
         blocks.append(Para(("The spring's force is its stiffness times the movement at the spring: ",
-                            ident("c") + op("=") + _value(factor), ".")))
+                            ident("c") + op("=") + value_math(factor), ".")))
     nodes = list(origin.nodes)
     if beam is not None:
         ranges = beam.EI_ranges
@@ -159,12 +136,12 @@ def _(origin: UnitShape, line: InfluenceLine) -> Derivation:
         Para((f"Solving K d = f {'exactly, in rational arithmetic' if exact else 'in floating point'} gives the "
               "deflection and rotation of every node (left face where a release separates the faces):",)),
         Table(("node", "x", ident("v", "i"), ident("θ", "i")),
-              tuple((str(i + 1), num(x), _value(v, scale), _value(r, scale))
+              tuple((str(i + 1), num(x), value_math(v, scale), value_math(r, scale))
                     for i, (x, v, r) in enumerate(zip(nodes, origin.deflections, origin.rotations))),
               "rrrr"),
         Heading("5. Ordinates at the nodes", 3),
         Para((ETA + op("=") + (Math("", "", "") if c_is_one else ident("c") + op("·")) + ident("v", "i"), ":")),
-        Table(("x", ETA), tuple((num(x), _value(factor * v, scale * abs(float(factor))))
+        Table(("x", ETA), tuple((num(x), value_math(factor * v, scale * abs(float(factor))))
                                 for x, v in zip(nodes, origin.deflections)), "rr"),
         Heading("6. Shape between the nodes", 3),
         Para(("Between nodes a and b (length h, ", ident("ξ") + op("=") + paren(ident("x") + op("-") + ident("x", "a"))
@@ -175,23 +152,30 @@ def _(origin: UnitShape, line: InfluenceLine) -> Derivation:
               "the line is therefore a cubic between consecutive knots.",)),
         Heading("7. Influence line", 3),
     ]
-    rows = []
-    pieces = line.pieces
-    for j, piece in enumerate(pieces):
-        poly = piece.polynomial()
-        poly = poly if exact else _rounded(poly, float(nodes[-1]))
-        a = piece.exact_start if exact else Fraction(repr(piece.start))
-        b = line.exact_breakpoints[j + 1] if exact else Fraction(repr(piece.end))
-        rows.append((_doc.sympy_math(poly), _interval(a, b, j == len(pieces) - 1)))
-    length = nodes[-1]
-    off = (ident("x") + op("<") + num(0) + _doc.word(" or ") + ident("x") + Math(">", " > ", "<mo>&gt;</mo>")
-           + num(length))
-    rows.append((num(0), off + _doc.word(" (load off the beam)")))
-    blocks.append(Cases(ETA, tuple(rows)))
+    blocks.append(line_cases(line))
     if not exact:
         blocks.append(Para(("Coefficients rounded to six significant figures for display; ask for the exact line "
                             "with exact=True.",)))
     return Derivation(title, _numbered(blocks), line.expr)
+
+
+def line_cases(line: InfluenceLine, lhs: Math = ETA) -> Cases:
+    """The line's pieces as ``lhs = { polynomial for interval }`` (floats rounded to six significant figures),
+    with the zero off the beam."""
+    exact = line.is_exact
+    rows = []
+    pieces = line.pieces
+    for j, piece in enumerate(pieces):
+        poly = piece.polynomial()
+        poly = poly if exact else rounded_poly(poly, line.length)
+        a = piece.exact_start if exact else Fraction(repr(piece.start))
+        b = line.exact_breakpoints[j + 1] if exact else Fraction(repr(piece.end))  # type: ignore[index]
+        rows.append((_doc.sympy_math(poly), _interval(a, b, j == len(pieces) - 1)))
+    length = line.exact_breakpoints[-1] if exact else Fraction(repr(line.length))  # type: ignore[index]
+    off = (ident("x") + op("<") + num(0) + _doc.word(" or ") + ident("x") + Math(">", " > ", "<mo>&gt;</mo>")
+           + num(length))
+    rows.append((num(0), off + _doc.word(" (load off the beam)")))
+    return Cases(lhs, tuple(rows))
 
 
 def _numbered(blocks: list[Block]) -> tuple[Block, ...]:
@@ -231,6 +215,6 @@ def _loads(origin: UnitShape, line: InfluenceLine, nodes: list[Fraction], ei_of:
               f"{where}. Held clamped at both ends, that element takes the action alone; "
               "its clamping forces, reversed, are the loads f on the beam's nodes (forces downward, couples "
               "clockwise):",)),
-        Table(tuple(names), (tuple(_value(v) for v in response.loads),), "rrrr"),
+        Table(tuple(names), (tuple(value_math(v) for v in response.loads),), "rrrr"),
     ]
     return out

@@ -41,8 +41,9 @@ from typing import TYPE_CHECKING, Any, Literal
 from ilkit._exact import fmt, to_exact
 from ilkit.errors import IlkitError, LoadInputError, SideRequiredError
 from ilkit.quantity import KINDS
-from ilkit.views._explorer_figure import Axle, ExplorerFigure, Loading
+from ilkit.views._explorer_figure import ExplorerFigure
 from ilkit.views.livefigure import Backend, Coalescer, _require
+from ilkit.views.loaddraw import Axle, Loading
 
 if TYPE_CHECKING:  # pragma: no cover
     from ilkit.influence import InfluenceLine
@@ -431,10 +432,7 @@ class Explorer:
                     placed = stand(line, load, x, direction=self.direction.value, spacings=self._spacings)
                     self.value = placed.effect
                 self.placement = placed
-                loading = Loading(
-                    tuple(Axle(a.x, a.load, a.ordinate, a.counted) for a in placed.axles),
-                    tuple((p.start, p.end, p.intensity) for p in placed.patches),
-                )
+                loading = Loading.of([placed])
         except IlkitError as err:
             self._show_message(str(err), error=True)
             return

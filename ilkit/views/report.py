@@ -27,12 +27,17 @@ from pathlib import Path
 
 from ilkit.errors import BeamInputError, UnsupportedResultError
 from ilkit.influence import InfluenceLine
+from ilkit.loads.combination import LoadModel
+from ilkit.loads.envelope import Envelope
+from ilkit.loads.results import Extremes
 from ilkit.model import Beam
 from ilkit.quantity import KINDS
+from ilkit.stiffness import UnitShape
 from ilkit.views import _doc, style
 from ilkit.views._doc import Block, Callout, Figure, Heading, Para, Table
-from ilkit.views.derive import SIGN_CONVENTIONS, derivation
+from ilkit.views.derive import SIGN_CONVENTIONS, derivation, quantity_title
 from ilkit.views.display import beam_figure, line_facts, line_figure
+from ilkit.views.plot import short
 from ilkit.views.tables import beam_facts, doc_table
 
 __all__ = ["CAUTION", "CalculationSheet", "write_calculation_sheet", "sheet_blocks", "report_section", "default_lines"]
@@ -52,6 +57,10 @@ _METHODS = {
     "UnitShape": "Indeterminate beams, springs, deflections and rotations: the stiffness method with prismatic "
     "beam elements; the line is the deflected shape under the unit action conjugate to the quantity "
     "(Müller-Breslau, Maxwell), cubic and exact between the nodes for the nodal displacements found.",
+    "ForceMethod": "Derivations of the lines of statically indeterminate beams: the force (flexibility) method on a "
+    "determinate primary structure (redundants, flexibility coefficients from the primary structure's "
+    "deflection lines by Maxwell's theorem, compatibility); its ordinates are set beside the stiffness "
+    "method's, an independent check.",
 }
 
 
@@ -107,6 +116,8 @@ def sheet_blocks(
     lines: Sequence[InfluenceLine] | None = None,
     results: Iterable[object] = (),
     *,
+    load: object = None,
+    divisions: int = 10,
     title: str = "Influence-line calculation sheet",
     info: Mapping[str, str] | None = None,
 ) -> list[Block]:
@@ -114,6 +125,7 @@ def sheet_blocks(
     import ilkit
 
     chosen = default_lines(beam) if lines is None else list(lines)
+    moving = _moving_load(beam, chosen, load, divisions)  # computed before anything is drawn: bad input fails fast
     blocks: list[Block] = [Heading(title, 1)]
     if info:
         blocks.append(Table(("", ""), tuple((str(k), str(v)) for k, v in info.items())))
@@ -125,27 +137,103 @@ def sheet_blocks(
         Para(("Sign conventions: x is the position of the travelling unit load from the left end of the beam; "
               "the unit load acts downward. "
               + " ".join(f"{KINDS[kind][1].capitalize()}: {words}." for kind, words in SIGN_CONVENTIONS.items()),)),
-        Heading("2. Influence lines", 2),
     ]
+    chapter = 2
+    if moving is not None:
+        blocks += [Heading(f"{chapter}. Load model", 2), *moving.model_section]
+        chapter += 1
+    blocks.append(Heading(f"{chapter}. Influence lines", 2))
     if not chosen:
         blocks.append(Para(("No influence lines were asked for.",)))
     for i, line in enumerate(chosen, start=1):
-        blocks += report_section(line, f"2.{i}")
+        blocks += report_section(line, f"{chapter}.{i}")
+    chapter += 1
+    if moving is not None:
+        blocks += [
+            Heading(f"{chapter}. Governing placements", 2),
+            Para((f"For every influence line above, where the loads of {moving.model.name} must stand for the "
+                  "largest and for the smallest value, and what each load contributes. Loads act downward; "
+                  "values follow the sign conventions of the inputs. In short:",)),
+            extremes_summary(moving.placements, f"{chapter}."),
+        ]
+        for i, found in enumerate(moving.placements, start=1):
+            blocks += report_section(found, f"{chapter}.{i}")
+        blocks += [Heading(f"{chapter + 1}. Envelope", 2), *report_section(moving.envelope, f"{chapter + 1}.1")]
+        chapter += 2
     extra = list(results)
     if extra:
-        blocks.append(Heading("3. Further results", 2))
+        blocks.append(Heading(f"{chapter}. Further results", 2))
         for i, result in enumerate(extra, start=1):
-            blocks += report_section(result, f"3.{i}")
-    origins = {type(line.origin) for line in chosen}
-    methods = [text for kind, text in _METHODS.items() if kind in {o.__name__ for o in origins}]
+            blocks += report_section(result, f"{chapter}.{i}")
+        chapter += 1
+    origins = {type(line.origin).__name__ for line in chosen}
+    methods = [text for kind, text in _METHODS.items() if kind in origins]
+    if any(isinstance(line.origin, UnitShape) and line.origin.beam is not None and line.origin.beam.degree > 0
+           for line in chosen):
+        methods.append(_METHODS["ForceMethod"])
+    if moving is not None:
+        methods.append(_PLACEMENT_METHOD)
+        if moving.model.source:
+            methods.append(f"Load model: {moving.model.name}, from {moving.model.source}.")
     blocks += [
-        Heading(f"{4 if extra else 3}. Method and sources", 2),
+        Heading(f"{chapter}. Method and sources", 2),
         *(Para((text,)) for text in methods),
         Para((f"Computed by ilkit {ilkit.__version__}. Figures and tables show the same values as the "
-              "derivations; tables round them to four significant figures.",)),
+              "derivations; tables round them (four significant figures for ordinates, five for effects).",)),
         Callout(CAUTION, "caution"),
     ]
     return blocks
+
+
+_PLACEMENT_METHOD = (
+    "Moving loads: every axle train is tried in both directions of travel; axles off the beam count nothing; "
+    "a uniform load that may be broken covers exactly the parts of the line of the wanted sign; the placements "
+    "with an axle at a breakpoint are enumerated and, on curved lines, the stationary points of the effect "
+    "between breakpoints are found in closed form, so the extreme is exact to rounding. The envelope takes the "
+    "extremes at the sections listed and refines the absolute maximum moment between them."
+)
+
+
+def extremes_summary(found: Sequence[Extremes], prefix: str = "") -> Table:
+    """One row per quantity: the largest and the smallest value with their governing cases (core values,
+    five significant figures) and the section of the sheet that shows each placement."""
+    rows = []
+    for i, both in enumerate(found, start=1):
+        hi, lo = both.maximum, both.minimum
+        units = hi.line.units if hi.line is not None else None
+        what = quantity_title(hi.quantity, units.length if units else "")
+        rows.append((f"{prefix}{i}", what, f"{short(hi.value, 5)} {hi.unit}", hi.case,
+                     f"{short(lo.value, 5)} {lo.unit}", lo.case))
+    return Table(("section", "quantity", "largest", "governing case", "smallest", "governing case"), tuple(rows),
+                 "llrlrl")
+
+
+@dataclass(frozen=True)
+class _MovingLoad:
+    """The moving-load part of a sheet: the model's section, the governing placements, the envelope."""
+
+    model: LoadModel
+    model_section: list[Block]
+    placements: list[Extremes]
+    envelope: Envelope
+
+
+def _moving_load(beam: Beam, lines: Sequence[InfluenceLine], load: object, divisions: int) -> _MovingLoad | None:
+    if load is None:
+        return None
+    from ilkit.loads import envelope, extremes
+    from ilkit.loads.combination import as_model
+    from ilkit.views.moving_records import model_blocks
+
+    model = as_model(load)  # type: ignore[arg-type]
+    placements = [extremes(line, model, beam=beam) for line in lines if line.quantity.kind not in _NOT_FORCES]
+    found = envelope(beam, model, divisions=divisions)
+    return _MovingLoad(model, model_blocks(model, beam.units), placements, found)
+
+
+_NOT_FORCES = ("deflection", "rotation")
+"""Quantities whose line is not a force effect per unit load (a deflection under a design load model is a
+serviceability check with its own load rules; the sheet does not place models on them)."""
 
 
 _CSS = """
@@ -158,6 +246,8 @@ h3 { font-size: 1.1rem; margin-top: 1.8rem; }
 h4, h5 { font-size: 1rem; margin-bottom: .3rem; }
 table { border-collapse: collapse; margin: .6rem 0; font: 13px/1.4 'DejaVu Sans', sans-serif; }
 th, td { padding: .15rem .7rem; border-bottom: 1px solid #cfcac0; vertical-align: top; }
+td[style*="right"], th[style*="right"] { white-space: nowrap; }
+tbody th, td:first-child { min-width: 6rem; }
 thead th { border-bottom: 1.5px solid #1c1c1c; }
 figure { margin: 1rem 0; } figure img { width: 100%; }
 figcaption { font-size: 13px; font-style: italic; }
@@ -198,6 +288,8 @@ def write_calculation_sheet(
     path: str | Path,
     *,
     lines: Sequence[InfluenceLine] | None = None,
+    load: object = None,
+    divisions: int = 10,
     results: Iterable[object] = (),
     title: str = "Influence-line calculation sheet",
     info: Mapping[str, str] | None = None,
@@ -216,6 +308,19 @@ def write_calculation_sheet(
         Influence lines to show, each with sketch, ordinates and derivation;
         default :func:`default_lines`.  A line whose derivation cannot be
         written raises :class:`ilkit.NoDerivationError`.
+    load:
+        A moving load: a published model (``ilkit.loads.hl93()``,
+        ``ilkit.loads.lm1()`` ...), a :class:`~ilkit.LoadModel`, a
+        :class:`~ilkit.Combination` or a single load.  The sheet then also
+        holds the load model (its definition, its source, edition and the
+        values recalled from memory), the governing placements of the load
+        for the largest and the smallest value of every line (a plot and a
+        table each; deflection and rotation lines excepted), and the envelope
+        of the load along the beam (moment, shear and reaction tables and
+        plots, the absolute maximum moment with its placement).  The beam
+        must declare its units.
+    divisions:
+        Sections of the envelope: equal parts per span and overhang.
     results:
         Further results with a registered :func:`report_section`.
     title, info:
@@ -223,7 +328,7 @@ def write_calculation_sheet(
         ``{"project": ..., "prepared by": ..., "date": ...}``.
     """
     stem = _stem(path)
-    blocks = sheet_blocks(beam, lines, results, title=title, info=info)
+    blocks = sheet_blocks(beam, lines, results, load=load, divisions=divisions, title=title, info=info)
     stem.parent.mkdir(parents=True, exist_ok=True)
     figures = stem.parent / f"{stem.name}_figures"
     figures.mkdir(exist_ok=True)

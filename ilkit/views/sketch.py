@@ -18,14 +18,13 @@ from __future__ import annotations
 
 from typing import TYPE_CHECKING
 
-from ilkit._exact import fmt
 from ilkit.errors import UnsupportedResultError
 from ilkit.kinematics import Mechanism
 from ilkit.stiffness import UnitShape
 from ilkit.views import style
 from ilkit.views.derive import quantity_title
 from ilkit.views.draw import draw_hinge, draw_shear_release, draw_structure, draw_support, point_transform
-from ilkit.views.plot import draw_line
+from ilkit.views.plot import breakpoint_ticks, draw_line, label_ordinates
 
 if TYPE_CHECKING:  # pragma: no cover
     from matplotlib.axes import Axes
@@ -77,7 +76,7 @@ def sketch(line: InfluenceLine, ax: Axes | None = None, *, title: str | None = N
         ax = style.axes(ax, 2.6)
         L = float(beam.length)
         ax.plot([0, L], [0, 0], color=style.MUTED, linewidth=0.8, linestyle=(0, (5, 3)), gid="axis", zorder=2)
-        draw_line(ax, line)
+        draw_line(ax, line, labels=False)
         support = q.kind in ("reaction", "moment_reaction")
         spring = support and any(s.at == q.at and s.spring is not None for s in beam.supports)
         released = [q.at] if support and not spring else []
@@ -97,7 +96,8 @@ def sketch(line: InfluenceLine, ax: Axes | None = None, *, title: str | None = N
         for side in ("left", "top", "right"):
             ax.spines[side].set_visible(False)
         ax.set_yticks([])
-        ax.set_xticks(line.breakpoints, [fmt(b) for b in line.breakpoints])
+        breakpoint_ticks(ax, line)
+        label_ordinates(ax, line)
         ax.set_xlabel(f"x [{beam.units.length}]" if beam.units else "x")
         unit = f" [{line.unit}]" if line.unit else ""
         ax.set_title(title if title is not None else

@@ -5,7 +5,9 @@
 * :class:`~ilkit.InfluenceLine`: position and the ordinates just left and
   right of every breakpoint (``line.ordinates()``);
 * :class:`~ilkit.Beam`: its supports and releases by position;
-* a DataFrame is returned as it is.
+* a DataFrame is returned as it is;
+* moving-load results (placements, envelopes): see
+  :mod:`ilkit.views.moving_records`.
 
 Further result types add their form with ``table.register(TheirType)``.
 
@@ -32,7 +34,7 @@ from ilkit.views.plot import short
 if TYPE_CHECKING:  # pragma: no cover
     import pandas as pd
 
-__all__ = ["table", "beam_facts", "to_csv", "to_excel", "to_latex", "doc_table"]
+__all__ = ["table", "beam_facts", "to_csv", "to_excel", "to_latex", "doc_table", "without_noise", "NOISE"]
 
 
 @singledispatch
@@ -100,9 +102,21 @@ def beam_facts(beam: Beam) -> list[tuple[str, str]]:
     return facts
 
 
+def _is_bool(value: Any) -> bool:
+    return isinstance(value, bool) or getattr(getattr(value, "dtype", None), "kind", "") == "b"
+
+
 def _cell(value: Any, digits: int) -> str:
+    """A table cell: numbers to ``digits`` significant figures, truth values as yes or no; a missing value
+    (None, NaN) is empty."""
+    if value is None:
+        return ""
+    if _is_bool(value):
+        return "yes" if value else "no"
     if isinstance(value, float) or hasattr(value, "dtype"):
         as_float = float(value)
+        if math.isnan(as_float):
+            return ""
         return short(as_float, digits) if math.isfinite(as_float) else str(as_float)
     return str(value)
 
@@ -112,9 +126,31 @@ def _align(frame: pd.DataFrame) -> str:
     return "".join("r" if frame[c].dtype.kind in "fiu" else "l" for c in frame.columns)
 
 
+NOISE = 1e-10
+"""A float smaller than this fraction of the largest magnitude in its column is rounding noise (shown as 0)."""
+
+
+def without_noise(frame: pd.DataFrame) -> pd.DataFrame:
+    """A copy of ``frame`` with rounding noise in its float columns set to 0 (see :data:`NOISE`).
+
+    Float results carry noise where the exact value is 0 (a moment at a
+    simple support: 1e-13 kip·ft); printed to four figures it would read as a
+    value.  Only what is shown is cleaned; the results keep their numbers.
+    """
+    out = frame.copy()
+    for column in out.columns:
+        if out[column].dtype.kind == "f":
+            values = out[column]
+            size = values.abs().max()
+            if size > 0:
+                out[column] = values.where((values.abs() > NOISE * size) | values.isna(), 0.0)
+    return out
+
+
 def doc_table(frame: pd.DataFrame, digits: int = 4) -> _doc.Table:
-    """A DataFrame as a document table (numbers to ``digits`` significant figures)."""
-    rows = tuple(tuple(_cell(v, digits) for v in row) for row in frame.itertuples(index=False))
+    """A DataFrame as a document table (numbers to ``digits`` significant figures, noise shown as 0)."""
+    clean = without_noise(frame)
+    rows = tuple(tuple(_cell(v, digits) for v in row) for row in clean.itertuples(index=False))
     return _doc.Table(tuple(str(c) for c in frame.columns), rows, _align(frame))
 
 
@@ -167,7 +203,7 @@ def _latex_text(text: str) -> str:
 
 def _latex_cell(value: Any, digits: int) -> str:
     text = _cell(value, digits)
-    if isinstance(value, (int, float)) or hasattr(value, "dtype"):
+    if text and not _is_bool(value) and (isinstance(value, (int, float)) or hasattr(value, "dtype")):
         return f"${text}$"
     return _latex_text(text)
 

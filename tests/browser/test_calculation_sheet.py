@@ -4,7 +4,14 @@ from __future__ import annotations
 
 import pytest
 
-from ilkit.views.demo import demo_lines, suspended_span_girder, write_demo_sheet
+from ilkit.views.demo import (
+    demo_lines,
+    highway_girder,
+    highway_lines,
+    suspended_span_girder,
+    write_demo_sheet,
+    write_highway_sheet,
+)
 
 from .servers import copy_notebooks, jupyter_lab, run_all_cells
 
@@ -14,14 +21,27 @@ def sheet(tmp_path_factory):
     return write_demo_sheet(tmp_path_factory.mktemp("sheet"))
 
 
-def test_calculation_sheet_renders_figures_and_formulas(page, sheet, artifacts):
+def open_sheet(page, path) -> tuple[list[str], list[str]]:
+    """Open a sheet; returns the lists that collect its requests and its console and page errors."""
     requests: list[str] = []
     errors: list[str] = []
     page.on("request", lambda r: requests.append(r.url))
     page.on("console", lambda m: errors.append(m.text) if m.type == "error" else None)
     page.on("pageerror", lambda e: errors.append(str(e)))
-    page.goto(sheet.html.as_uri())
+    page.goto(path.as_uri())
     page.wait_for_load_state("load")
+    return requests, errors
+
+
+def drawn_figures(page) -> list[tuple[bool, int, float]]:
+    """Every figure of the page: decoded, its natural width, its height on the page."""
+    return page.eval_on_selector_all(
+        "figure img", "imgs => imgs.map(i => [i.complete, i.naturalWidth, i.getBoundingClientRect().height])"
+    )
+
+
+def test_calculation_sheet_renders_figures_and_formulas(page, sheet, artifacts):
+    requests, errors = open_sheet(page, sheet.html)
     title = "Three-span girder with a suspended span: influence lines"
     assert page.title() == title and page.locator("h1").inner_text() == title
     assert page.locator("aside.caution").count() == 2
@@ -29,9 +49,7 @@ def test_calculation_sheet_renders_figures_and_formulas(page, sheet, artifacts):
     n_lines = len(demo_lines(suspended_span_girder()))
     assert page.locator("h3").count() == n_lines
     # every figure decoded and drawn at a real size
-    sizes = page.eval_on_selector_all(
-        "figure img", "imgs => imgs.map(i => [i.complete, i.naturalWidth, i.getBoundingClientRect().height])"
-    )
+    sizes = drawn_figures(page)
     assert len(sizes) == 1 + n_lines
     assert all(done and width > 0 and height > 50 for done, width, height in sizes)
     # formulas are laid out as MathML: a fraction is taller than a line of text, the cases span rows
@@ -44,6 +62,34 @@ def test_calculation_sheet_renders_figures_and_formulas(page, sheet, artifacts):
     assert "1.281 kN/kN at x = 41 m" in page.locator("main").inner_text()
     page.locator("mtable.cases").first.scroll_into_view_if_needed()
     page.screenshot(path=str(artifacts / "calculation-sheet.png"))
+    assert errors == []
+    assert all(url.startswith(("file:", "data:")) for url in requests), requests  # self-contained
+
+
+@pytest.fixture(scope="module")
+def highway_sheet(tmp_path_factory):
+    return write_highway_sheet(tmp_path_factory.mktemp("highway"))
+
+
+def test_sheet_with_a_load_model_renders(page, highway_sheet, artifacts):
+    requests, errors = open_sheet(page, highway_sheet.html)
+    assert page.locator("h1").inner_text() == "Three-span continuous highway girder under HL-93"
+    assert page.locator("aside.caution").count() == 2
+    chapters = page.locator("h2").all_inner_texts()
+    assert chapters == ["1. Inputs", "2. Load model", "3. Influence lines", "4. Governing placements",
+                        "5. Envelope", "6. Method and sources"]
+    # every figure decoded and drawn at a real size: beam, sketches, two placements per line, envelopes
+    n = len(highway_lines(highway_girder()))
+    sizes = drawn_figures(page)
+    assert len(sizes) == 1 + n + 2 * n + 3 + 1
+    assert all(done and width > 0 and height > 50 for done, width, height in sizes)
+    # the load model's source and the values recalled from memory are on the page
+    text = page.locator("main").inner_text()
+    assert "AASHTO LRFD Bridge Design Specifications" in text and "recalled from memory" in text
+    # the pier moment under the two-truck rule, as the README quotes it
+    assert "Smallest bending moment M at x = 90 ft: -2218.3 kip·ft" in text
+    page.locator("h3", has_text="4.2b").scroll_into_view_if_needed()
+    page.screenshot(path=str(artifacts / "calculation-sheet-loads.png"))
     assert errors == []
     assert all(url.startswith(("file:", "data:")) for url in requests), requests  # self-contained
 
