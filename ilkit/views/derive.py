@@ -135,9 +135,12 @@ def derivation(line: InfluenceLine, method: Method = "auto") -> Derivation:
     out that way (a line built by hand, or the force method asked of a
     determinate beam).
     """
+    from ilkit.influence import InfluenceLine
     from ilkit.stiffness import UnitShape
+    from ilkit.views._args import expect
 
-    if method not in METHODS:
+    expect(line, InfluenceLine, what="derivation", hint="give an influence line, e.g. beam.moment(12)")
+    if not isinstance(method, str) or method not in METHODS:
         raise BeamInputError(
             f"derivation: method must be one of {', '.join(repr(m) for m in METHODS)}, got {method!r}.",
             field="method",

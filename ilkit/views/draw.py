@@ -231,6 +231,10 @@ def draw_beam(beam: Beam, ax: Axes | None = None, *, dimensions: bool = True, ti
     vertical direction carries only the symbols.
     """
     with style.context():
+        from ilkit.model import Beam as _Beam
+        from ilkit.views._args import expect
+
+        expect(beam, _Beam, what="draw_beam", hint="give an ilkit.Beam")
         ax = style.axes(ax, 1.4)
         L = float(beam.length)
         ax.plot([0, L], [0, 0], color=style.INK, linewidth=2.6, solid_capstyle="butt", gid="beam", zorder=3)

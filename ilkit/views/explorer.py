@@ -141,8 +141,10 @@ class Explorer:
         self._facts_html = ""
 
         kinds = [k for k in KINDS if self._offers(k)]
-        if quantity not in kinds:
+        if not isinstance(quantity, str) or quantity not in kinds:
             raise _choice_error("quantity", quantity, kinds)
+        if side is not None and (not isinstance(side, str) or side not in ("left", "right")):
+            raise _choice_error("side", side, ("left", "right"))
         wide = {"description_width": "4.8em"}
         self.quantity = w.Dropdown(
             options=[(_words(k), k) for k in kinds], value=quantity, description="quantity",

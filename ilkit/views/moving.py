@@ -20,7 +20,7 @@ from typing import TYPE_CHECKING, Any, Literal
 import numpy as np
 
 from ilkit._exact import fmt
-from ilkit.errors import BeamInputError, UnsupportedResultError
+from ilkit.errors import UnsupportedResultError
 from ilkit.loads.results import Extreme, LoadPlacement, effect_unit
 from ilkit.views import style
 from ilkit.views.derive import quantity_title
@@ -68,12 +68,12 @@ def plot_envelope(
     (positive up: sagging moment, shear positive as in :mod:`ilkit.model`,
     reaction upward).
     """
-    if kind not in ENVELOPE_KINDS:
-        raise BeamInputError(
-            f"plot_envelope: kind must be one of {', '.join(repr(k) for k in ENVELOPE_KINDS)}, got {kind!r}.",
-            field="kind",
-            value=kind,
-        )
+    from ilkit._check import choice
+    from ilkit.loads.envelope import Envelope
+    from ilkit.views._args import expect
+
+    expect(envelope, Envelope, what="plot_envelope", hint="give the result of ilkit.loads.envelope(beam, load)")
+    choice(kind, tuple(ENVELOPE_KINDS), what="plot_envelope: kind", field="kind")
     symbol, words = ENVELOPE_KINDS[kind]
     table = envelope.reactions if kind == "reaction" else envelope.sections
     x_col = next(c for c in table.columns if c.startswith("x"))
@@ -81,10 +81,7 @@ def plot_envelope(
     lo_col = next(c for c in table.columns if c.startswith(f"{symbol} min") and not c.endswith("case"))
     unit = hi_col[hi_col.find("[") + 1 : hi_col.find("]")] if "[" in hi_col else ""
     with style.context():
-        if ax is None:
-            import matplotlib.pyplot as plt
-
-            _, ax = plt.subplots(figsize=(7.0, 2.6), layout="constrained")
+        ax = style.axes(ax, 2.6)
         xs = table[x_col].to_numpy(dtype=float)
         hi = table[hi_col].to_numpy(dtype=float)
         lo = table[lo_col].to_numpy(dtype=float)

@@ -17,6 +17,7 @@ import numpy as np
 
 from ilkit._exact import fmt
 from ilkit.views import style
+from ilkit.views._args import expect
 from ilkit.views.derive import quantity_title
 
 if TYPE_CHECKING:  # pragma: no cover
@@ -215,6 +216,9 @@ def plot_line(line: InfluenceLine, ax: Axes | None = None, *, title: str | None 
     The horizontal axis is the load position ``x`` (beam length unit), the
     vertical axis the ordinate (quantity per unit load, positive up).
     """
+    from ilkit.influence import InfluenceLine
+
+    expect(line, InfluenceLine, what="plot_line", hint="give an influence line, e.g. beam.moment(12)")
     with style.context():
         ax = style.axes(ax, 2.4)
         ax.axhline(0.0, color=style.MUTED, linewidth=0.7, zorder=2, gid="axis")

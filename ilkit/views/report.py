@@ -123,8 +123,23 @@ def sheet_blocks(
 ) -> list[Block]:
     """The sheet as document blocks (what :func:`write_calculation_sheet` renders)."""
     import ilkit
+    from ilkit._check import listed
+    from ilkit.views._args import expect
 
-    chosen = default_lines(beam) if lines is None else list(lines)
+    expect(beam, Beam, what="write_calculation_sheet: beam", hint="give an ilkit.Beam")
+    if lines is None:
+        chosen = default_lines(beam)
+    else:
+        chosen = listed(lines, wanted="write_calculation_sheet: lines: give a list of influence lines", field="lines")
+        for line in chosen:
+            expect(line, InfluenceLine, what="write_calculation_sheet: lines", hint="give influence lines")
+    if info is not None and not isinstance(info, Mapping):
+        raise BeamInputError(
+            "write_calculation_sheet: info must be a mapping of header fields, e.g. {'project': 'Bridge 12'}; "
+            f"got {info!r:.60}.",
+            field="info",
+            value=info,
+        )
     moving = _moving_load(beam, chosen, load, divisions)  # computed before anything is drawn: bad input fails fast
     blocks: list[Block] = [Heading(title, 1)]
     if info:
@@ -270,7 +285,9 @@ def _page(title: str, body: str) -> str:
 
 
 def _stem(path: str | Path) -> Path:
-    path = Path(path)
+    from ilkit.views._args import path_of
+
+    path = path_of(path, what="write_calculation_sheet")
     if path.suffix.lower() in (".html", ".md"):
         return path.with_suffix("")
     if path.suffix:

@@ -48,6 +48,10 @@ def _note(ax: Axes, xy: tuple[float, float], text: str, dx: float, dy: float, ha
 
 def _beam_of(line: InfluenceLine) -> Beam:
     """The beam a sketch can be drawn for: lines of the kinematic or the elastic analysis of a beam."""
+    from ilkit.influence import InfluenceLine
+    from ilkit.views._args import expect
+
+    expect(line, InfluenceLine, what="sketch", hint="give an influence line, e.g. beam.moment(12)")
     origin = line.origin
     beam = origin.beam if isinstance(origin, (Mechanism, UnitShape)) else None
     if beam is None:

@@ -117,7 +117,10 @@ def new_figure(height: float, width: float = WIDTH) -> Figure:
 
 def axes(ax: Axes | None, height: float) -> Axes:
     """``ax`` itself, or new axes on a new pyplot figure (so it shows in a notebook)."""
-    if ax is not None:
+    from ilkit.views._args import axes_or_none
+
+    require_matplotlib()
+    if axes_or_none(ax, what="drawing") is not None:
         return ax
     require_matplotlib()
     import matplotlib.pyplot as plt

@@ -29,6 +29,7 @@ from ilkit.errors import MissingDependencyError, UnsupportedResultError
 from ilkit.influence import InfluenceLine
 from ilkit.model import Beam, Support
 from ilkit.views import _doc
+from ilkit.views._args import path_of
 from ilkit.views.plot import short
 
 if TYPE_CHECKING:  # pragma: no cover
@@ -156,7 +157,7 @@ def doc_table(frame: pd.DataFrame, digits: int = 4) -> _doc.Table:
 
 def to_csv(obj: object, path: str | Path) -> Path:
     """Write the table of ``obj`` as CSV (UTF-8, full precision, no index); returns the path."""
-    path = Path(path)
+    path = path_of(path, what="table export")
     table(obj).to_csv(path, index=False, encoding="utf-8")
     return path
 
@@ -181,7 +182,7 @@ def to_excel(obj: object, path: str | Path) -> Path:
         ) from None
     import pandas as pd
 
-    path = Path(path)
+    path = path_of(path, what="table export")
     sheets = obj if isinstance(obj, Mapping) else {"ilkit": obj}
     with pd.ExcelWriter(path, engine="openpyxl") as writer:
         for name, item in sheets.items():
@@ -218,6 +219,9 @@ def to_latex(
     the minus sign is a proper minus).  With ``caption`` or ``label`` the
     tabular is wrapped in a ``table`` float.  Needs ``\\usepackage{booktabs}``.
     """
+    from ilkit._check import whole
+
+    digits = whole(digits, what="to_latex: digits", field="digits", minimum=1, maximum=17)
     frame = table(obj)
     lines = [
         rf"\begin{{tabular}}{{{_align(frame)}}}",
@@ -235,5 +239,5 @@ def to_latex(
         lines = [r"\begin{table}[htbp]", r"\centering", *lines, *extra, r"\end{table}"]
     text = "\n".join(lines) + "\n"
     if path is not None:
-        Path(path).write_text(text, encoding="utf-8")
+        path_of(path, what="to_latex").write_text(text, encoding="utf-8")
     return text
