@@ -300,12 +300,7 @@ class InfluenceLine(RichDisplay):
                 return 0.0
             j = bisect.bisect_right(knots, x) - 1
         j = min(max(j, 0), len(knots) - 2)
-        t = x - knots[j]
-        c = self._c
-        y = float(c[self._degree, j])
-        for p in range(self._degree - 1, -1, -1):
-            y = y * t + float(c[p, j])
-        return y
+        return float(self._piece_value(j, x - knots[j]))
 
     def slope(self, x: float | np.ndarray, side: Literal["left", "right"] = "right") -> float | np.ndarray:
         """Slope ``d(ordinate)/dx`` at ``x``, one-sided at knots (0 off the beam).
@@ -478,16 +473,17 @@ class InfluenceLine(RichDisplay):
         out = []
         n = len(self._knot_list)
         for j, xk in enumerate(self._knot_list):
-            left = self._piece_value(j - 1, xk - self._knot_list[j - 1]) if j > 0 else 0.0
-            right = self._piece_value(j, 0.0) if j < n - 1 else 0.0
+            left = float(self._piece_value(j - 1, xk - self._knot_list[j - 1])) if j > 0 else 0.0
+            right = float(self._piece_value(j, 0.0)) if j < n - 1 else 0.0
             out.append((xk, left, right))
         return out
 
-    def _piece_value(self, j: int, t: float) -> float:
+    def _piece_value(self, j: int, t: Any) -> Any:
+        """Piece ``j`` at local coordinate(s) ``t`` (Horner; a float or an array like ``t``)."""
         c = self._c
-        y = float(c[self._degree, j])
+        y = c[self._degree, j] + 0.0 * t
         for p in range(self._degree - 1, -1, -1):
-            y = y * t + float(c[p, j])
+            y = y * t + c[p, j]
         return y
 
     def ordinates(self) -> pd.DataFrame:
@@ -520,9 +516,7 @@ class InfluenceLine(RichDisplay):
         for j in range(len(self._knot_list) - 1):
             a, b = self._knot_list[j], self._knot_list[j + 1]
             t = np.linspace(0.0, b - a, n)
-            y = self._c[self._degree, j] * np.ones_like(t)
-            for p in range(self._degree - 1, -1, -1):
-                y = y * t + self._c[p, j]
+            y = self._piece_value(j, t)
             xs.append(a + t)
             ys.append(y)
         return np.concatenate(xs), np.concatenate(ys)
@@ -656,7 +650,7 @@ class InfluenceLine(RichDisplay):
                     continue
                 for r in np.roots(coeffs):
                     if abs(r.imag) < 1e-12 and 0 < r.real < h:
-                        out.append(Ordinate(self._piece_value(j, float(r.real)), a + float(r.real)))
+                        out.append(Ordinate(float(self._piece_value(j, float(r.real))), a + float(r.real)))
         # unify jumps: a one-sided value equal to the other side needs no side
         cleaned = []
         for o in out:
