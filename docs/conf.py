@@ -33,10 +33,12 @@ extensions = [
 ]
 
 # ---------------------------------------------------------------- sources
-exclude_patterns = ["_build", "Thumbs.db", ".DS_Store", "**.ipynb_checkpoints", "_templates"]
+# generated/extra: pages written by the executed pages (calculation sheets), copied as they are
+exclude_patterns = ["_build", "Thumbs.db", ".DS_Store", "**.ipynb_checkpoints", "_templates", "generated/extra"]
 templates_path = ["_templates"]
 myst_enable_extensions = ["dollarmath", "amsmath", "colon_fence", "deflist"]
 myst_heading_anchors = 3
+myst_update_mathjax = False  # MathJax 2 is configured below (mathjax2_config)
 suppress_warnings: list[str] = []
 
 # ---------------------------------------------------------------- notebooks (executed at build time)
@@ -45,7 +47,9 @@ nb_execution_raise_on_error = True  # a failing notebook or page stops the build
 nb_execution_timeout = 600
 nb_execution_show_tb = True
 nb_merge_streams = True
-nb_ipywidgets_js: dict[str, dict[str, str]] = {}  # no widget manager from a CDN: widgets show their still image
+# no widget manager from a CDN: a widget shows the still image that goes with it
+nb_ipywidgets_js: dict[str, dict[str, str]] = {}
+nb_mime_priority_overrides = [("html", "application/vnd.jupyter.widget-view+json", None)]
 nb_render_image_options = {"align": "center"}
 
 # ---------------------------------------------------------------- API pages
@@ -73,6 +77,7 @@ nitpick_ignore_regex = [
 html_theme = "furo"
 html_title = f"ilkit {release}"
 html_static_path = ["_static"]
+html_extra_path = ["generated/extra"]
 html_css_files = ["ilkit.css"]
 html_show_sourcelink = False
 html_copy_source = False
@@ -85,7 +90,15 @@ html_theme_options = {
 # MathJax 2 from the jupyter-server-mathjax package, copied into _static/mathjax by ilkit_docs
 mathjax_path = "mathjax/MathJax.js?config=TeX-AMS-MML_HTMLorMML-full"
 mathjax2_config = {
-    "tex2jax": {"inlineMath": [["\\(", "\\)"]], "displayMath": [["\\[", "\\]"]], "processEscapes": True},
+    # only math that Sphinx and myst mark as math is typeset (myst marks the rest of the page
+    # mathjax_ignore, so that a $ in the text stays a $)
+    "tex2jax": {
+        "inlineMath": [["\\(", "\\)"]],
+        "displayMath": [["\\[", "\\]"]],
+        "processEscapes": True,
+        "ignoreClass": "tex2jax_ignore|mathjax_ignore",
+        "processClass": "tex2jax_process|mathjax_process|math|output_area",
+    },
     "HTML-CSS": {"availableFonts": [], "webFont": "STIX-Web", "imageFont": None},
     "showMathMenu": False,
     "menuSettings": {"zoom": "None"},

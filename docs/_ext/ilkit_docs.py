@@ -68,8 +68,9 @@ def generate_sources(app: Sphinx, config: Any) -> None:
         path = GENERATED / "gallery" / notebook.name
         write_if_changed(path, notebook.read_bytes())
         wanted.add(path)
+    (GENERATED / "extra").mkdir(exist_ok=True)  # written by the executed pages
     for stale in GENERATED.rglob("*"):
-        if stale.is_file() and stale not in wanted:
+        if stale.is_file() and stale not in wanted and "extra" not in stale.relative_to(GENERATED).parts[:1]:
             stale.unlink()
 
 
