@@ -47,6 +47,7 @@ nb_execution_raise_on_error = True  # a failing notebook or page stops the build
 nb_execution_timeout = 600
 nb_execution_show_tb = True
 nb_merge_streams = True
+nb_render_markdown_format = "myst"  # Markdown outputs (derivations) with their tables and $...$ mathematics
 # no widget manager from a CDN: a widget shows the still image that goes with it
 nb_ipywidgets_js: dict[str, dict[str, str]] = {}
 nb_mime_priority_overrides = [("html", "application/vnd.jupyter.widget-view+json", None)]
