@@ -20,7 +20,7 @@ import ilkit  # noqa: E402
 
 project = "ilkit"
 author = "the ilkit developers"
-copyright = "the ilkit developers"  # noqa: A001
+copyright = "the ilkit developers"
 version = release = ilkit.__version__
 
 extensions = [

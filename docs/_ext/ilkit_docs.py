@@ -22,14 +22,12 @@ import shutil
 from pathlib import Path
 from typing import Any
 
+import api_pages
+import model_pages
 from docutils import nodes
-from docutils.parsers.rst import directives
 from sphinx.application import Sphinx
 from sphinx.util import logging
 from sphinx.util.docutils import SphinxDirective
-
-import api_pages
-import model_pages
 
 logger = logging.getLogger("ilkit_docs")
 
@@ -188,7 +186,6 @@ class VerificationTable(SphinxDirective):
     """The table of every reference check of the last run (``out/verification.json``)."""
 
     has_content = False
-    option_spec = {"group": directives.unchanged}
 
     def run(self) -> list[nodes.Node]:
         path = Path(self.config.ilkit_verification_json)

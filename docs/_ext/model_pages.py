@@ -137,7 +137,9 @@ def index_page(models: list[tuple[str, Any, Any]], others: list[str], parts: dic
         lines.append("## Factors and other parts\n")
         lines += [_autofunction(f) for f in loose + [o for o in others if o != "ALPHA_VALUES"]]
         if "ALPHA_VALUES" in others:
-            lines.append("{py:data}`ilkit.loads.ALPHA_VALUES`: the values of α allowed by {py:func}`ilkit.loads.lm71`.\n")
+            lines.append(
+                "{py:data}`ilkit.loads.ALPHA_VALUES`: the values of α allowed by {py:func}`ilkit.loads.lm71`.\n"
+            )
     return "\n".join(lines)
 
 
