@@ -157,10 +157,12 @@ def test_three_equal_spans_moment_over_first_pier(reference):
     mc = beam.moment(2 * L, exact=True)
     xis = [F(i, 10) for i in range(1, 10)]
     reference("M_B = -(4/15) L (ξ - ξ³), load at tenth points ξ of span 1",
-              computed=[mb.ordinate_exact(xi * L) for xi in xis], expected=[-F(4, 15) * L * (xi - xi**3) for xi in xis], source=THREE_MOMENT,
+              computed=[mb.ordinate_exact(xi * L) for xi in xis],
+              expected=[-F(4, 15) * L * (xi - xi**3) for xi in xis], source=THREE_MOMENT,
               clause="4 L M_B + L M_C = -L² (ξ - ξ³), L M_B + 4 L M_C = 0")
     reference("M_C = (1/15) L (ξ - ξ³), load at tenth points ξ of span 1",
-              computed=[mc.ordinate_exact(xi * L) for xi in xis], expected=[F(1, 15) * L * (xi - xi**3) for xi in xis], source=THREE_MOMENT,
+              computed=[mc.ordinate_exact(xi * L) for xi in xis],
+              expected=[F(1, 15) * L * (xi - xi**3) for xi in xis], source=THREE_MOMENT,
               clause="4 L M_B + L M_C = -L² (ξ - ξ³), L M_B + 4 L M_C = 0")
     reference("M_B / L at tenth points of span 1, tabulated coefficients", expected=list(THREE_SPAN_MB),
               computed=[float(mb.ordinate_exact(xi * L) / L) for xi in xis], abs=5e-5,
