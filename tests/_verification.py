@@ -28,7 +28,6 @@ import math
 import os
 import platform
 import tempfile
-from collections.abc import Iterable
 from dataclasses import dataclass, field
 from fractions import Fraction
 from pathlib import Path
@@ -144,11 +143,6 @@ class Reference:
                 f"source: {source}{', ' + clause if clause else ''})"
             )
         return computed
-
-    def each(self, what: str, pairs: Iterable[tuple[Any, Any, Any]], **kwargs: Any) -> None:
-        """One check per ``(label, expected, computed)``: ``what`` is formatted with ``{}`` = label."""
-        for label, expected, computed in pairs:
-            self(what.format(label), expected=expected, computed=computed, **kwargs)
 
 
 # --------------------------------------------------------------------- pytest hooks

@@ -99,13 +99,14 @@ def documented_name(obj: Any, target: str) -> str | None:
         return names[id(obj)]
     parts = target.split(".")
     for cut in range(len(parts) - 1, 0, -1):
-        prefix = _get(".".join(parts[:cut]))
+        prefix = resolve(".".join(parts[:cut]))
         if prefix is not None and id(prefix) in names:
             return ".".join([names[id(prefix)], *parts[cut:]])
     return None
 
 
-def _get(path: str) -> Any:
+def resolve(path: str) -> Any:
+    """The object at a dotted path (``ilkit.model.Beam.reaction``), or None."""
     parts = path.split(".")
     for cut in range(len(parts), 0, -1):
         name = ".".join(parts[:cut])

@@ -14,7 +14,6 @@
 
 from __future__ import annotations
 
-import importlib
 import inspect
 import json
 import re
@@ -87,22 +86,6 @@ def copy_mathjax(app: Sphinx) -> None:
 
 
 # ------------------------------------------------------------------ references by identity
-def _resolve_object(path: str) -> Any:
-    parts = path.split(".")
-    for cut in range(len(parts), 0, -1):
-        try:
-            obj: Any = importlib.import_module(".".join(parts[:cut]))
-        except ImportError:
-            continue
-        try:
-            for attr in parts[cut:]:
-                obj = getattr(obj, attr)
-        except AttributeError:
-            return None
-        return obj
-    return None
-
-
 def resolve_by_identity(app: Sphinx, env: Any, node: Any, contnode: nodes.Node) -> nodes.Node | None:
     """``ilkit.model.Beam`` -> the page of ``ilkit.Beam`` (the same object), and so on."""
     if node.get("refdomain") != "py":
@@ -114,7 +97,7 @@ def resolve_by_identity(app: Sphinx, env: Any, node: Any, contnode: nodes.Node) 
             target = f"{modname}.{target}"
         else:
             return None
-    obj = _resolve_object(target)
+    obj = api_pages.resolve(target)
     if obj is None:
         return None
     documented = api_pages.documented_name(obj, target)
