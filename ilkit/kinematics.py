@@ -43,7 +43,9 @@ from ilkit.quantity import Quantity
 if TYPE_CHECKING:  # pragma: no cover
     from ilkit.model import Beam
 
-__all__ = ["Stability", "Mechanism", "PartMotion", "analyse_stability", "solve_mechanism", "exact_line"]
+__all__ = [
+    "Stability", "Mechanism", "PartMotion", "analyse_stability", "solve_mechanism", "exact_line", "nothing_released"
+]
 
 
 @dataclass(frozen=True)
@@ -330,10 +332,7 @@ def solve_mechanism(beam: Beam, quantity: Quantity) -> Mechanism:
     nparts = len(bounds) - 1
     n = 2 * nparts
     if not imposed:
-        # the quantity is carried by no restraint here (moment at a hinge, shear at a shear release)
-        parts = tuple(PartMotion(bounds[k], bounds[k + 1], Fraction(0), Fraction(0)) for k in range(nparts))
-        why = "a hinge carries no moment" if quantity.kind == "moment" else "a shear release carries no shear"
-        return Mechanism(quantity, parts, tuple(constraints), f"none: {why}", release="", beam=beam)
+        return _no_release(beam, quantity)
     try:
         solution = _exact.solve([c.row for c in constraints], [c.rhs for c in constraints], n)
     except _exact.SingularSystemError:  # pragma: no cover - guarded by the stability check
@@ -345,6 +344,26 @@ def solve_mechanism(beam: Beam, quantity: Quantity) -> Mechanism:
         PartMotion(bounds[k], bounds[k + 1], solution[2 * k], solution[2 * k + 1]) for k in range(nparts)
     )
     return Mechanism(quantity, parts, tuple(constraints), imposed, release, beam=beam)
+
+
+def _no_release(beam: Beam, quantity: Quantity) -> Mechanism:
+    """The "mechanism" of a quantity that no restraint carries (moment at a hinge, shear at a shear
+    release): nothing to release, nothing moves."""
+    bounds, constraints, _, _ = _constraints(beam, quantity)
+    parts = tuple(PartMotion(a, b, Fraction(0), Fraction(0)) for a, b in zip(bounds[:-1], bounds[1:]))
+    why = "a hinge carries no moment" if quantity.kind == "moment" else "a shear release carries no shear"
+    return Mechanism(quantity, parts, tuple(constraints), f"none: {why}", release="", beam=beam)
+
+
+def nothing_released(beam: Beam, quantity: Quantity, *, exact: bool = True) -> InfluenceLine:
+    """The line of a quantity that no restraint carries: the moment at a hinge, the shear at a shear
+    release.  It is identically zero, for determinate and indeterminate beams alike; its origin is a
+    :class:`Mechanism` with nothing released, so that derivations and sketches say why."""
+    zero = Fraction(0) if exact else 0.0
+    knots = (Fraction(0), beam.length) if exact else (0.0, float(beam.length))
+    return InfluenceLine(
+        quantity=quantity, knots=knots, coefficients=((zero,),), units=beam.units, origin=_no_release(beam, quantity)
+    )
 
 
 def exact_line(beam: Beam, quantity: Quantity) -> InfluenceLine:

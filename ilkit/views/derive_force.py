@@ -100,7 +100,8 @@ def _(fm: ForceMethod, line: InfluenceLine) -> Derivation:
     n = len(fm.redundants)
     title, blocks = header(line)
     exact = fm.exact
-    reference = line if line.origin is not fm else fm.beam.line(q.kind, q.at, q.side, exact=exact)
+    own = line.origin is not fm and line.is_exact == exact
+    reference = line if own else fm.beam.line(q.kind, q.at, q.side, exact=exact)
     blocks.append(Para((
         f"Force (flexibility) method. The beam is statically indeterminate to degree {fm.beam.degree}: release "
         f"{n} restraint{'s' if n > 1 else ''} to leave a statically determinate primary structure; the forces "
