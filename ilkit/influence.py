@@ -148,6 +148,8 @@ class InfluenceLine(RichDisplay):
         width = self._degree + 1
         table = np.zeros((width, len(coefficients)))
         for j, cs in enumerate(coefficients):
+            if exact:
+                cs = _stretched(cs, knots[j + 1] - knots[j], self._knots[j + 1] - self._knots[j])  # type: ignore[operator]
             table[: len(cs), j] = _finite_floats(cs, f"coefficients of piece {j + 1}")
         self._c = table
         self._knot_list = self._knots.tolist()
@@ -705,6 +707,19 @@ def _finite_floats(values: Any, what: str) -> np.ndarray:
             value=values,
         )
     return out
+
+
+def _stretched(coefficients: tuple[Number, ...], exact_width: Fraction, float_width: float) -> tuple[Number, ...]:
+    """Exact coefficients of a piece for the local coordinate of its float knots.
+
+    The float knots of an exact line are rounded, so a piece's float width differs from its exact
+    width by a rounding.  On a short steep piece (a hinge 1e-8 from a support) evaluating the exact
+    polynomial over the float width would miss the end value by slope times that rounding; stretching
+    the polynomial to the float width makes both ends evaluate to the exact end values (rounded)."""
+    ratio = exact_width / Fraction(float_width)
+    if ratio == 1:
+        return coefficients
+    return tuple(c * ratio**p for p, c in enumerate(coefficients))  # type: ignore[operator]
 
 
 def _taylor_shift(coefficients: tuple[float, ...], shift: float) -> tuple[float, ...]:

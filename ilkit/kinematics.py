@@ -35,7 +35,7 @@ from fractions import Fraction
 from typing import TYPE_CHECKING
 
 from ilkit import _exact
-from ilkit._exact import Row, fmt
+from ilkit._exact import Row, fmt, fmt_precise
 from ilkit.errors import IlkitError, IndeterminateBeamError, UnstableBeamError
 from ilkit.influence import InfluenceLine
 from ilkit.quantity import Quantity
@@ -271,23 +271,23 @@ def _describe_mechanism(
     names = _point_names(beam)
     motions = []
     for m in moving:
-        what = f"the part from x={fmt(m.start)} to x={fmt(m.end)}"
+        what = f"the part from x={fmt_precise(m.start)} to x={fmt_precise(m.end)}"
         if m.pivot is None:
             motions.append(f"{what} can move up and down without rotating")
         else:
-            at = names.get(m.pivot, f"the point x={fmt(m.pivot)}")
+            at = names.get(m.pivot, f"the point x={fmt_precise(m.pivot)}")
             motions.append(f"{what} can rotate about {at}")
     fixes = []
     if not beam.supports:
         fixes.append("add supports")
     first = moving[0]
-    fixes.append(f"add a support between x={fmt(first.start)} and x={fmt(first.end)}")
+    fixes.append(f"add a support between x={fmt_precise(first.start)} and x={fmt_precise(first.end)}")
     ends = [p for p in (first.start, first.end) if p in beam.hinges or p in beam.shear_releases]
     for p in ends:
-        fixes.append(f"remove the {names[p].split(' at ')[0].removeprefix('the ')} at x={fmt(p)}")
+        fixes.append(f"remove the {names[p].split(' at ')[0].removeprefix('the ')} at x={fmt_precise(p)}")
     pinned = [s for s in beam.supports if s.kind != "fixed" and first.start <= s.at <= first.end]
     if pinned and (pinned[0].at in (Fraction(0), beam.length)):
-        fixes.append(f"make the support at x={fmt(pinned[0].at)} fixed")
+        fixes.append(f"make the support at x={fmt_precise(pinned[0].at)} fixed")
     extra = len(basis) - 1
     more = f" ({extra} further independent way{'s' if extra > 1 else ''} to move)" if extra else ""
     message = (
@@ -304,11 +304,11 @@ def _describe_mechanism(
 def _point_names(beam: Beam) -> dict[Fraction, str]:
     names: dict[Fraction, str] = {}
     for h in beam.hinges:
-        names[h] = f"the hinge at x={fmt(h)}"
+        names[h] = f"the hinge at x={fmt_precise(h)}"
     for h in beam.shear_releases:
-        names[h] = f"the shear release at x={fmt(h)}"
+        names[h] = f"the shear release at x={fmt_precise(h)}"
     for s in beam.supports:
-        names[s.at] = f"the {s.kind} support at x={fmt(s.at)}" + (
+        names[s.at] = f"the {s.kind} support at x={fmt_precise(s.at)}" + (
             f" (with {names[s.at]})" if s.at in names else ""
         )
     return names

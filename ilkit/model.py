@@ -76,6 +76,16 @@ class Beam(RichDisplay):
         Name of a consistent unit system (``"kN-m"``, ``"kip-ft"``, see
         :data:`ilkit.units.SYSTEMS`) or ``None``.
 
+    Positions (supports, hinges, shear releases, ends of ``EI`` ranges, and
+    the sections given to the quantity methods) that lie within
+    :data:`ilkit.positions.MERGE_TOLERANCE` (1e-9) times the length of each
+    other are one point: they are placed at the beam end if one of them is an
+    end, else at the support, else at the release, so that positions typed as
+    float arithmetic (``3.3*s`` beside ``2*s + 1.3*s``) make no phantom
+    segment.  Where two supports or two releases would become one point the
+    beam is refused with a :class:`~ilkit.BeamInputError` (see
+    :mod:`ilkit.positions`).
+
     Numbers given as ints, fractions or decimal strings stay exact; floats are
     taken by their decimal text (``12.5`` is 25/2).  With pint installed,
     lengths (length, positions, EI ranges) and ``EI`` may be pint quantities

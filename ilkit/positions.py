@@ -92,7 +92,7 @@ def _target(cluster: Sequence[Point], tol: Fraction) -> Fraction:
     """The one position of a run of close points (or an error naming them)."""
     first, last = cluster[0], cluster[-1]
     if last.at - first.at > tol:
-        listed = ", ".join(f"{p.what} at x={fmt_precise(p.at)}" for p in cluster)
+        listed = ", ".join(dict.fromkeys(f"{p.what} at x={fmt_precise(p.at)}" for p in cluster))
         raise BeamInputError(
             f"{last.field}: {listed} follow each other closer than {_tolerance_words(tol)} but span "
             f"{fmt_precise(last.at - first.at)}, so it is not clear which of them are one point. Give the points "
@@ -100,22 +100,24 @@ def _target(cluster: Sequence[Point], tol: Fraction) -> Fraction:
             field=last.field,
             value=last.at,
         )
+    for rank in (SUPPORT, RELEASE):  # two supports, or two releases, cannot become one point
+        values = sorted({p.at for p in cluster if p.rank == rank})
+        if len(values) > 1:
+            a = next(p for p in cluster if p.rank == rank and p.at == values[0])
+            b = next(p for p in cluster if p.rank == rank and p.at == values[1])
+            keep = "keep one of them (use 'fixed' for a support that also restrains rotation)"
+            if rank == RELEASE:
+                keep = ("keep one of them (a hinge and a shear release at one point would cut the beam in two)"
+                        if a.what != b.what else "keep one of them")
+            raise BeamInputError(
+                f"{b.field}: {a.what} at x={fmt_precise(a.at)} and {b.what} at x={fmt_precise(b.at)} are "
+                f"{fmt_precise(b.at - a.at)} apart, closer than {_tolerance_words(tol)}, so they would be one "
+                f"point; {keep}, or place them further apart.",
+                field=b.field,
+                value=b.at,
+            )
     best = min(p.rank for p in cluster)
-    anchors = sorted({p.at for p in cluster if p.rank == best})
-    if len(anchors) > 1 and best != STIFFNESS:
-        a = next(p for p in cluster if p.rank == best and p.at == anchors[0])
-        b = next(p for p in cluster if p.rank == best and p.at == anchors[1])
-        keep = "keep one of them (use 'fixed' for a support that also restrains rotation)"
-        if best == RELEASE:
-            keep = ("keep one of them (a hinge and a shear release at one point would cut the beam in two)"
-                    if a.what != b.what else "keep one of them")
-        raise BeamInputError(
-            f"{b.field}: {a.what} at x={fmt_precise(a.at)} and {b.what} at x={fmt_precise(b.at)} are "
-            f"{fmt_precise(b.at - a.at)} apart, closer than {_tolerance_words(tol)}, so they would be one point; "
-            f"{keep}, or place them further apart.",
-            field=b.field,
-            value=b.at,
-        )
+    anchors = [p.at for p in cluster if p.rank == best]
     return min(anchors, key=lambda v: (v.denominator, abs(v)))
 
 

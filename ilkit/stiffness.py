@@ -52,11 +52,19 @@ from ilkit.quantity import Quantity
 if TYPE_CHECKING:  # pragma: no cover
     from ilkit.model import Beam
 
-__all__ = ["ElasticModel", "UnitShape", "elastic_line", "elastic_model", "CONDITION_LIMIT"]
+__all__ = [
+    "ElasticModel", "UnitShape", "elastic_line", "elastic_model", "float_trouble", "CONDITION_LIMIT",
+    "EXACT_CONDITION", "SPREAD_LIMIT",
+]
 
 SPREAD_LIMIT = 10**5
 """Largest ratio of the elements' bending stiffness ``EI/h²`` for which float lines are computed in floats
 (see :func:`float_trouble`); beyond it they are computed exactly and rounded."""
+
+EXACT_CONDITION = 1e6
+"""Largest condition number of the scaled stiffness matrix for which float lines are computed in floats
+(an error of at most about 1e-10 of the largest ordinate); from it up to :data:`CONDITION_LIMIT` they are
+computed exactly and rounded (ordinary girders, haunches included, stay near 1e3)."""
 
 CONDITION_LIMIT = 1e10
 """Largest accepted condition number of the diagonally scaled stiffness matrix.
@@ -350,8 +358,8 @@ class ElasticModel:
             (
                 ei[hi] / ei[lo],
                 f"EI varies by a factor of {ei[hi] / ei[lo]:.1e} along the beam (EI={fmt(ei[lo])} near "
-                f"x={fmt(self.nodes[lo])}, EI={fmt(ei[hi])} near x={fmt(self.nodes[hi])}); check the values and "
-                "their units",
+                f"x={fmt_precise(self.nodes[lo])}, EI={fmt(ei[hi])} near x={fmt_precise(self.nodes[hi])}); check the "
+                "values and their units",
             )
         )
         h = [float(v) for v in self.h]
@@ -370,7 +378,8 @@ class ElasticModel:
             power = 1 if spring.rotational else 3
             beam_k = max(float(self.EI[j]) / float(self.h[j]) ** power for j in near)
             ratio = float(spring.stiffness) / beam_k
-            what = f"the {'rotational' if spring.rotational else 'vertical'} spring at x={fmt(self.nodes[spring.node])}"
+            kind = "rotational" if spring.rotational else "vertical"
+            what = f"the {kind} spring at x={fmt_precise(self.nodes[spring.node])}"
             if ratio >= 1:
                 causes.append((ratio, f"{what} is {ratio:.1e} times stiffer than the beam beside it; make it rigid"))
             else:
@@ -388,32 +397,45 @@ def mesh_nodes(beam: Beam) -> list[Fraction]:
 
 
 def float_trouble(beam: Beam) -> str:
-    """Why float arithmetic cannot be trusted with this beam's elements, in words; empty when it can.
+    """Why float arithmetic cannot give this beam's lines to about 1e-10, in words; empty when it can.
 
-    In floats the stiffness terms of an element (``12EI/h³``, ``6EI/h²``, ``4EI/h``) are rounded
-    apart, so the element resists a rigid-body rotation with a spurious stiffness of about
-    ``ε·EI/h²`` (``ε`` about 1e-16).  Compared with the element of the smallest ``EI/h²`` this is
-    a relative error of about ``ε`` times their ratio: two points of the beam very close together
-    (a short element) or a very stiff short piece beside a long flexible one.  The matrix
-    condition number does not see it.  Beyond :data:`SPREAD_LIMIT` (an error of about 1e-11)
-    the float lines are computed in exact arithmetic and rounded at the end.
+    Two causes, both checked:
+
+    * In floats the stiffness terms of an element (``12EI/h³``, ``6EI/h²``, ``4EI/h``) are rounded
+      apart, so the element resists a rigid-body rotation with a spurious stiffness of about
+      ``ε·EI/h²`` (``ε`` about 1e-16).  Compared with the element of the smallest ``EI/h²`` this is a
+      relative error of about ``ε`` times their ratio: two points of the beam very close together (a
+      short element) or a very stiff short piece beside a long flexible one.  The condition number
+      of the matrix does not see it.  Beyond :data:`SPREAD_LIMIT` the float model is not even built.
+    * The condition number ``κ`` of the (diagonally scaled) stiffness matrix costs about ``log10 κ``
+      digits: beyond :data:`EXACT_CONDITION` (and up to :data:`CONDITION_LIMIT`, past which the
+      beam is refused with :class:`~ilkit.IllConditionedError`).
+
+    Where it says why, the float lines are the exact lines rounded (exact arithmetic is slower:
+    about 0.1 s a line for 100 spans).
     """
     nodes = mesh_nodes(beam)
     ranges = beam.EI_ranges
-    if not ranges or len(nodes) < 3:
-        return ""
-    terms = [_ei_at(ranges, (a + b) / 2) / (b - a) ** 2 for a, b in zip(nodes[:-1], nodes[1:])]
-    j = max(range(len(terms)), key=terms.__getitem__)
-    k = min(range(len(terms)), key=terms.__getitem__)
-    if terms[j] <= SPREAD_LIMIT * terms[k]:
-        return ""
-    ratio = terms[j] / terms[k]
-    short, long = (nodes[j], nodes[j + 1]), (nodes[k], nodes[k + 1])
-    return (
-        f"the element from x={fmt_precise(short[0])} to x={fmt_precise(short[1])} is {float(ratio):.1e} times "
-        f"stiffer in bending (EI/h²) than the one from x={fmt_precise(long[0])} to x={fmt_precise(long[1])}"
-        + (" (the points are very close together)" if short[1] - short[0] < (long[1] - long[0]) / 100 else "")
-    )
+    if ranges and len(nodes) > 2:
+        terms = [_ei_at(ranges, (a + b) / 2) / (b - a) ** 2 for a, b in zip(nodes[:-1], nodes[1:])]
+        j = max(range(len(terms)), key=terms.__getitem__)
+        k = min(range(len(terms)), key=terms.__getitem__)
+        if terms[j] > SPREAD_LIMIT * terms[k]:
+            short, long = (nodes[j], nodes[j + 1]), (nodes[k], nodes[k + 1])
+            close = " (the points are very close together)" if short[1] - short[0] < (long[1] - long[0]) / 100 else ""
+            return (
+                f"the element from x={fmt_precise(short[0])} to x={fmt_precise(short[1])} is "
+                f"{float(terms[j] / terms[k]):.1e} times stiffer in bending (EI/h²) than the one from "
+                f"x={fmt_precise(long[0])} to x={fmt_precise(long[1])}{close}"
+            )
+    condition = elastic_model(beam).condition
+    if condition > EXACT_CONDITION:
+        return (
+            f"the stiffness system's condition number is about {condition:.1e}, which would cost about "
+            f"{math.log10(condition):.0f} of the 16 digits of floating point; likely cause: "
+            f"{elastic_model(beam)._likely_cause()}"
+        )
+    return ""
 
 
 def _ei_at(ranges: tuple[tuple[Fraction, Fraction, Fraction], ...], x: Fraction) -> Fraction:

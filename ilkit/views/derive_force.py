@@ -263,6 +263,8 @@ def _ordinates(fm: ForceMethod, reference: InfluenceLine) -> list[Block]:
     if fm.exact:
         check = ("The exact ordinates equal those of the stiffness method's exact line (and so does every piece "
                  "of the line in step 7).") if worst == 0 else f"Largest difference: {worst:.3g}."
+    elif size <= 1e-300:
+        check = f"Largest difference from the stiffness method: {worst:.2g} (the line is zero)."
     else:
         check = (f"Largest difference from the stiffness method: {worst:.2g} (the largest ordinate is "
                  f"{size:.4g}): rounding.")
