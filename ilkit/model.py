@@ -116,7 +116,7 @@ class Beam(RichDisplay):
         given_hinges = _read_positions(hinges, L, "hinges", system)
         given_shear = _read_positions(shear_releases, L, "shear_releases", system)
         given_ei = _read_ei(EI, L, system)
-        moved = merge_points(L, _points(given_supports, given_hinges, given_shear, given_ei))
+        moved = merge_points(L, _given_points(given_supports, given_hinges, given_shear, given_ei))
         support_list = [Support(moved.get(s.at, s.at), s.kind, s.spring) for s in given_supports]
         hinge_list = _check_releases(given_hinges, moved, L, "hinges", support_list)
         shear_list = _check_releases(given_shear, moved, L, "shear_releases", support_list)
@@ -433,6 +433,19 @@ class Beam(RichDisplay):
             return method(at, exact=exact)  # type: ignore[no-any-return]
         return method(at, side=side, exact=exact)  # type: ignore[no-any-return]
 
+    def position(self, at: Number) -> Fraction:
+        """The section ilkit takes for ``at`` (exact, in the beam's length unit).
+
+        ``at`` itself, or the beam's end, support, release or change of ``EI``
+        that lies within :data:`ilkit.positions.MERGE_TOLERANCE` times the
+        length of it: ``beam.position(10 / 3)`` is ``Fraction(10, 3)`` on a
+        beam with a support at 10/3.  The quantity methods take their sections
+        this way; use it to tell whether a section is a support
+        (``beam.position(x) in beam.locations("reaction")``).  A position off the
+        beam is an error.
+        """
+        return self._position(at, "position")
+
     def locations(self, kind: str) -> tuple[Fraction, ...] | None:
         """Where the quantity named ``kind`` can be taken.
 
@@ -590,7 +603,7 @@ def _read_positions(values: Iterable[Number], L: Fraction, field: str, system: U
     return out
 
 
-def _points(
+def _given_points(
     supports: list[Support], hinges: list[Fraction], shear: list[Fraction], ei: Fraction | list[GivenRange] | None
 ) -> list[Point]:
     """Every position of the beam as given, for merging (:mod:`ilkit.positions`)."""

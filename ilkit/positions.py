@@ -4,7 +4,7 @@ Positions typed as float arithmetic land a few units in the last place away
 from the point meant: with ``s = 92``, ``2*s + 1.3*s`` is 303.6 but ``3.3*s``
 is 303.59999999999997; a support read back from a beam converted with
 ``in_units`` and typed as a float misses the exact support by about 1e-15 of
-its value.  Taken literally such a pair makes a phantom segment 3e-14 long
+its value.  Taken literally such a pair makes a phantom segment 6e-14 long
 (an overhang, a stub between a support and a hinge), which changes the
 structure and ruins float arithmetic.
 

@@ -241,7 +241,8 @@ def test_ends_of_ei_ranges_merge_onto_the_simplest_value():
     ("kwargs", "message"),
     [
         ({"supports": {0: "pin", 10: "roller", 10.00000000001: "roller", 20: "roller"}},
-         r"supports: the support at x=10 and the support at x=10.00000000001 are 1e-11 apart, closer than the merge tolerance \(2e-08: 1e-09 of the beam.s length\)"),
+         r"supports: the support at x=10 and the support at x=10.00000000001 are 1e-11 apart, closer than the "
+         r"merge tolerance \(2e-08: 1e-09 of the beam.s length\)"),
         ({"supports": {0: "pin", 20: "roller"}, "hinges": [10], "shear_releases": [10.000000000001]},
          r"the hinge at x=10 and the shear release at x=10.000000000001 .* would cut the beam in two"),
         ({"supports": {0: "pin", 20: "roller"}, "hinges": [10, 10.000000000001], "EI": 1},
@@ -264,6 +265,14 @@ def test_ends_of_ei_ranges_merge_onto_the_simplest_value():
 def test_merges_that_would_be_ambiguous_are_refused_with_the_positions_given(kwargs, message):
     with pytest.raises(BeamInputError, match=message):
         ilkit.Beam(20, **kwargs)
+
+
+def test_position_says_which_section_is_taken():
+    beam = ilkit.Beam(10, {0: "pin", F(10, 3): "roller", 10: "roller"}, hinges=[7.5], EI=1)
+    assert beam.position(10 / 3) == F(10, 3) and beam.position(7.500000000001) == F(15, 2)
+    assert beam.position(10.000000000001) == 10 and beam.position("5.5") == F(11, 2)
+    with pytest.raises(BeamInputError, match=r"position: x=10.001 is off the beam; give a position from 0 to 10"):
+        beam.position(10.001)
 
 
 def test_merge_tolerance_is_relative_to_the_length():

@@ -559,6 +559,7 @@ ENTRY_POINTS = {
     "Support kind": lambda v: Support(Fraction(0), v),
     "UnitSystem factor": lambda v: UnitSystem("u", "m", "kN", v, 1),
     "beam.moment": lambda v: TWO_SPANS.moment(v),
+    "beam.position": lambda v: TWO_SPANS.position(v),
     "beam.shear side": lambda v: TWO_SPANS.shear(10, side=v),
     "beam.line": lambda v: TWO_SPANS.line(v, 5),
     "line()": lambda v: _LINE(v),
