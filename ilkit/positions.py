@@ -36,7 +36,7 @@ from fractions import Fraction
 from ilkit._exact import fmt_precise
 from ilkit.errors import BeamInputError
 
-__all__ = ["MERGE_TOLERANCE", "Point", "merge_points", "snap", "tolerance"]
+__all__ = ["MERGE_TOLERANCE", "Point", "merge_points", "nearest", "snap", "tolerance"]
 
 MERGE_TOLERANCE = Fraction(1, 10**9)
 """Positions of one beam closer than this fraction of its length are one point."""
