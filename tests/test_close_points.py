@@ -275,6 +275,15 @@ def test_position_says_which_section_is_taken():
         beam.position(10.001)
 
 
+def test_envelope_section_typed_beside_a_support_asked_for_a_side():
+    from ilkit.loads import KnifeEdge, envelope
+
+    beam = ilkit.Beam(20, {0: "pin", 10: "roller", 20: "roller"}, EI=1, units="kN-m")
+    found = envelope(beam, KnifeEdge(1, units="kN-m", name="k"), divisions=2, at=[10.000000000001])
+    rows = found.sections[found.sections["x [m]"] == 10]
+    assert sorted(rows["side"]) == ["left", "right"]
+
+
 def test_merge_tolerance_is_relative_to_the_length():
     for scale in (F(1, 10**6), 1, 10**6):
         beam = ilkit.Beam(20 * scale, {0: "pin", 10 * scale * (1 + F(1, 10**11)): "roller", 20 * scale: "roller"},
