@@ -28,8 +28,10 @@ precise as a closed form.  With ``exact=True`` the same steps run in
 :class:`fractions.Fraction` arithmetic (sparse exact elimination instead of the
 float inverse), giving the exact rational piecewise-cubic line.
 
-Float lines are refused with :class:`ilkit.IllConditionedError` when the
-scaled stiffness matrix is too ill-conditioned for double precision.
+Where float arithmetic would lose digits (points very close together, a very
+stiff short piece, a condition number above :data:`EXACT_CONDITION`), float
+lines are the exact lines rounded (:func:`float_trouble` says why); beyond
+:data:`CONDITION_LIMIT` they are refused with :class:`ilkit.IllConditionedError`.
 """
 
 from __future__ import annotations
@@ -428,12 +430,12 @@ def float_trouble(beam: Beam) -> str:
                 f"{float(terms[j] / terms[k]):.1e} times stiffer in bending (EI/h²) than the one from "
                 f"x={fmt_precise(long[0])} to x={fmt_precise(long[1])}{close}"
             )
-    condition = elastic_model(beam).condition
-    if condition > EXACT_CONDITION:
+    model = elastic_model(beam)  # refuses a condition number beyond CONDITION_LIMIT
+    if model.condition > EXACT_CONDITION:
         return (
-            f"the stiffness system's condition number is about {condition:.1e}, which would cost about "
-            f"{math.log10(condition):.0f} of the 16 digits of floating point; likely cause: "
-            f"{elastic_model(beam)._likely_cause()}"
+            f"the stiffness system's condition number is about {model.condition:.1e}, which would cost about "
+            f"{math.log10(model.condition):.0f} of the 16 digits of floating point; likely cause: "
+            f"{model._likely_cause()}"
         )
     return ""
 
@@ -468,9 +470,9 @@ def elastic_line(beam: Beam, quantity: Quantity, *, exact: bool = False) -> Infl
 
     Works for every stable beam with ``EI``, determinate or not, springs
     included.  Float pieces unless ``exact=True``; where float arithmetic
-    cannot resolve the beam's elements (:func:`float_trouble`: points very
-    close together, a very stiff short piece) the float line is the exact
-    line rounded.
+    would lose digits (:func:`float_trouble`: points very close together, a
+    very stiff short piece, a condition number above :data:`EXACT_CONDITION`)
+    the float line is the exact line rounded.
     """
     if beam.EI is None:
         if quantity.kind in ("deflection", "rotation"):
