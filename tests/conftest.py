@@ -10,3 +10,14 @@ from hypothesis import settings
 settings.register_profile("ci", derandomize=True, database=None, print_blob=True)
 if os.environ.get("CI"):
     settings.load_profile("ci")
+
+# The verification record: the ``reference`` fixture of reference tests and the hooks that write
+# ``--verification-json`` (the documentation's verification manual), in tests/_verification.py.
+from _verification import (  # noqa: E402, F401
+    pytest_addoption,
+    pytest_collection_modifyitems,
+    pytest_configure,
+    pytest_runtest_makereport,
+    pytest_sessionfinish,
+    reference,
+)

@@ -115,7 +115,9 @@ def envelope(
 
     ``divisions``: equal parts per span and per overhang (10 gives tenth
     points).  ``at``: further section positions.  The load is converted to
-    the beam's units; a beam without units is an error.
+    the beam's units; a beam without units is an error.  Values are in the
+    beam's units with the signs of :mod:`ilkit.model` (sagging moment positive,
+    reactions upward).
     """
     import pandas as pd
 
