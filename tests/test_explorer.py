@@ -485,3 +485,22 @@ def test_close_closes_every_control(girder):
     controls = [explorer.quantity, explorer.location, explorer.slider, explorer.position, explorer.readout]
     explorer.close()
     assert all(c.comm is None for c in controls)
+
+
+@pytest.mark.parametrize(
+    "supports",
+    [{0: "pin", 10: "fixed", 26: "roller"}, {0: "pin", 10: ilkit.Spring(rotational=2e4), 26: "roller"}],
+    ids=["interior fixed support", "interior rotational spring"],
+)
+def test_envelope_toggle_on_a_beam_whose_moment_jumps_at_a_support(supports):
+    # regression: the envelope sorted ties of two faces on result objects (TypeError in the toggle's callback)
+    beam = ilkit.Beam(26, supports, EI=1e5, units="kN-m")
+    lane = ilkit.UniformLoad(5, units="kN-m", name="lane")
+    explorer = Explorer(beam, [lane], quantity="moment", at=10, side="right", backend="inline")
+    explorer.envelope.value = True
+    explorer.redraw()
+    env = ilkit.envelope(beam, lane)
+    drawn = next(a for a in explorer._figure.ax_line.get_lines() if a.get_gid() == "smallest")
+    assert sorted(drawn.get_ydata()) == pytest.approx(sorted(env.sections["M min [kN·m]"]), rel=1e-12)
+    assert "ilkit-error" not in explorer.message.value
+    explorer.close()

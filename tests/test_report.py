@@ -125,3 +125,19 @@ def test_sheet_of_a_continuous_beam_writes_the_force_method(tmp_path: Path) -> N
     assert "Redundants and primary structure" in markdown and "Flexibility coefficients" in markdown
     assert "vertical reaction at x=20" in markdown and "supports pin at 0, roller at 60" in markdown
     assert "force (flexibility) method on a determinate primary structure" in markdown
+
+
+@pytest.mark.parametrize(
+    "supports",
+    [{0: "pin", 10: "fixed", 26: "roller"}, {0: "pin", 10: ilkit.Spring(rotational=2e4), 26: "roller"}],
+    ids=["interior fixed support", "interior rotational spring"],
+)
+def test_sheet_with_a_load_model_on_a_beam_whose_moment_jumps_at_a_support(tmp_path: Path, supports) -> None:
+    # regression: the envelope behind the sheet sorted ties of two faces on result objects (TypeError)
+    beam = ilkit.Beam(26, supports, EI=1e5, units="kN-m")
+    lane = ilkit.UniformLoad(5, units="kN-m", name="lane")
+    sheet = write_calculation_sheet(beam, tmp_path / "s", lines=[beam.moment(5)], load=lane, divisions=4)
+    markdown = sheet.markdown.read_text(encoding="utf-8")
+    env = ilkit.envelope(beam, lane, divisions=4)
+    best = env.absolute_maximum_moment
+    assert "Envelope" in markdown and short(best.value, 5) in markdown

@@ -213,17 +213,28 @@ def _absolute_maximum(
     found: dict[tuple[str, Fraction, Side | None], Extremes],
     barriers: list[Fraction],
 ) -> Extreme:
-    """Largest moment over all sections: the sampled local maxima refined by golden-section search."""
-    sampled = sorted((k[1], e.maximum) for k, e in found.items() if k[0] == "moment")
-    xs = [float(p) for p, _ in sampled]
-    values = [e.value for _, e in sampled]
+    """Largest moment over all sections: the sampled local maxima refined by golden-section search.
+
+    The samples are ordered on plain keys (position, then the left face before
+    the right one): where the moment jumps (an interior fixed support, a
+    rotational spring) the two faces at one position carry different extremes,
+    and ties must never fall through to comparing result objects.  A face is
+    refined only on its own side of the jump.
+    """
+    face_order = {"left": 0, None: 1, "right": 2}
+    sampled = sorted(
+        ((k[1], k[2], e.maximum) for k, e in found.items() if k[0] == "moment"),
+        key=lambda s: (s[0], face_order[s[1]]),
+    )
+    xs = [float(p) for p, _, _ in sampled]
+    values = [e.value for _, _, e in sampled]
     top = max(values)
-    best = max((e for _, e in sampled), key=lambda e: e.value)
+    best = max((e for _, _, e in sampled), key=lambda e: e.value)
     if top <= 0:
         return best
     cuts = sorted(float(b) for b in barriers)
     tol = 1e-6 * float(beam.length)
-    for i, value in enumerate(values):
+    for i, (value, (_, side, _)) in enumerate(zip(values, sampled)):
         neighbours = values[max(i - 1, 0) : i + 2]
         if value < max(neighbours) or value < 0.95 * top:
             continue
@@ -232,6 +243,10 @@ def _absolute_maximum(
         # stay between supports and releases, where the moment line is smooth in the section position
         lo = max([lo, *(c for c in cuts if c < xs[i])])
         hi = min([hi, *(c for c in cuts if c > xs[i])])
+        if side == "left":
+            hi = xs[i]
+        elif side == "right":
+            lo = xs[i]
         if hi - lo <= 2 * tol:
             continue
         found_here = _golden(beam, model, lo, hi, tol)
