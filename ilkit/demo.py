@@ -46,10 +46,11 @@ def run(out: Path, notebooks: Path | None = None) -> Path:
             f"the demo needs the notebook extra ({err.name} is missing); run: pip install 'ilkit[notebook]'"
         ) from err
 
+    from ilkit._files import make_folder, write_file, write_files
+
     source = notebooks or _notebooks_folder()
-    out.mkdir(parents=True, exist_ok=True)
+    make_folder(out, "demo")  # the notebooks run in it
     figures = out / "figures"
-    figures.mkdir(exist_ok=True)
     entries = []
     for path in sorted(source.glob("*.ipynb")):
         print(f"running {path.name} ...", flush=True)
@@ -57,16 +58,19 @@ def run(out: Path, notebooks: Path | None = None) -> Path:
         NotebookClient(
             nb, timeout=900, kernel_name="python3", resources={"metadata": {"path": str(out)}}
         ).execute()
-        nbformat.write(nb, out / path.name)
         body, _ = _page_exporter().from_notebook_node(nb)
-        (out / f"{path.stem}.html").write_text(body, encoding="utf-8")
+        files: dict[Path, str | bytes] = {
+            out / path.name: nbformat.writes(nb) + "\n",
+            out / f"{path.stem}.html": body,
+        }
         count = 0
         for cell in nb.cells:
             for output in cell.get("outputs", []):
                 data = output.get("data", {})
                 if "image/png" in data:
                     count += 1
-                    (figures / f"{path.stem}-{count}.png").write_bytes(base64.b64decode(data["image/png"]))
+                    files[figures / f"{path.stem}-{count}.png"] = base64.b64decode(data["image/png"])
+        write_files(files, what="demo")  # the notebook, its page and its figures together, or none
         title = next(
             (c.source.lstrip("# ").splitlines()[0] for c in nb.cells if c.cell_type == "markdown"), path.stem
         )
@@ -82,13 +86,14 @@ def run(out: Path, notebooks: Path | None = None) -> Path:
             (e[0] if e[0].endswith((".html", ".md")) else f"{e[0]}.html", e[1], e[2]) for e in entries
         )
     )
-    index.write_text(
+    write_file(
+        index,
         "<!doctype html><html><head><meta charset='utf-8'><title>ilkit demo study</title></head>"
         "<body style='font-family: sans-serif; max-width: 50em; margin: 2em auto'>"
         "<h1>ilkit demo study</h1>"
         f"<p><strong>Caution.</strong> {html.escape(CAUTION)}</p>"
         f"<ul>{items}</ul></body></html>",
-        encoding="utf-8",
+        what="demo",
     )
     return index
 

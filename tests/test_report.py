@@ -141,3 +141,74 @@ def test_sheet_with_a_load_model_on_a_beam_whose_moment_jumps_at_a_support(tmp_p
     env = ilkit.envelope(beam, lane, divisions=4)
     best = env.absolute_maximum_moment
     assert "Envelope" in markdown and short(best.value, 5) in markdown
+
+
+def _files(folder: Path) -> dict[str, bytes]:
+    """Every file under ``folder`` (hidden temporaries included) with its bytes."""
+    return {str(p.relative_to(folder)): p.read_bytes() for p in sorted(folder.rglob("*")) if p.is_file()}
+
+
+@pytest.fixture
+def small_sheet(tmp_path: Path):
+    beam = ilkit.Beam(20, {0: "pin", 20: "roller"}, units="kN-m")
+    write_calculation_sheet(beam, tmp_path / "s", lines=[beam.moment(5)], title="first")
+    return beam, tmp_path, _files(tmp_path)
+
+
+def test_sheet_whose_markdown_fails_keeps_the_old_html_and_markdown(small_sheet, monkeypatch) -> None:
+    from ilkit.views import _doc
+
+    beam, folder, before = small_sheet
+
+    def broken(*args, **kwargs):
+        raise RuntimeError("markdown trouble")
+
+    monkeypatch.setattr(_doc, "to_markdown", broken)
+    with pytest.raises(RuntimeError, match="markdown trouble"):
+        write_calculation_sheet(beam, folder / "s", lines=[beam.moment(8)], title="second")
+    assert _files(folder) == before  # never new HTML beside old Markdown
+
+
+def test_sheet_whose_rename_fails_half_way_puts_every_file_back(small_sheet, monkeypatch) -> None:
+    import os
+
+    beam, folder, before = small_sheet
+    real_replace = os.replace
+    calls = []
+
+    def fail_on_third(src, dst):
+        calls.append(dst)
+        if len(calls) == 3:
+            raise OSError(5, "Input/output error", str(src))
+        return real_replace(src, dst)
+
+    monkeypatch.setattr(os, "replace", fail_on_third)
+    with pytest.raises(ilkit.WriteError, match="Existing files were left as they were"):
+        write_calculation_sheet(beam, folder / "s", lines=[beam.moment(8), beam.shear(8, side="left")], title="2")
+    monkeypatch.undo()
+    assert _files(folder) == before  # the HTML and Markdown renamed first are put back; no new figure stays
+
+
+def test_sheet_over_a_folder_or_read_only_file_is_a_write_error(small_sheet) -> None:
+    beam, folder, before = small_sheet
+    (folder / "t.md").mkdir()
+    with pytest.raises(ilkit.WriteError, match="it is a folder"):
+        write_calculation_sheet(beam, folder / "t", lines=[])
+    (folder / "s.md").chmod(0o444)
+    with pytest.raises(ilkit.WriteError, match="read-only"):
+        write_calculation_sheet(beam, folder / "s", lines=[beam.moment(8)])
+    assert _files(folder) == before
+    (folder / "u_figures").write_text("mine", encoding="utf-8")
+    with pytest.raises(ilkit.WriteError, match="a part of the path is a file, not a folder"):
+        write_calculation_sheet(beam, folder / "u", lines=[])
+    assert not (folder / "u.html").exists()
+
+
+def test_demo_into_a_file_taken_for_a_folder_is_a_write_error(tmp_path: Path) -> None:
+    from ilkit import demo
+
+    (tmp_path / "out").write_text("mine", encoding="utf-8")
+    (tmp_path / "no-notebooks").mkdir()
+    with pytest.raises(ilkit.WriteError, match="a part of the path is a file, not a folder"):
+        demo.run(tmp_path / "out", notebooks=tmp_path / "no-notebooks")
+    assert (tmp_path / "out").read_text(encoding="utf-8") == "mine"

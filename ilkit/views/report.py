@@ -25,6 +25,7 @@ from dataclasses import dataclass, replace
 from functools import singledispatch
 from pathlib import Path
 
+from ilkit._files import write_files
 from ilkit.errors import BeamInputError, UnsupportedResultError
 from ilkit.influence import InfluenceLine
 from ilkit.loads.combination import LoadModel
@@ -321,6 +322,10 @@ def write_calculation_sheet(
         Where to write: ``"out/girder"``, ``"out/girder.html"`` or
         ``"out/girder.md"`` all write ``out/girder.html``, ``out/girder.md``
         and the folder ``out/girder_figures/``.  Missing folders are created.
+        The files are written all or none: everything is rendered first,
+        then written to temporary files and renamed, so a failure leaves
+        an earlier sheet at the same path whole (never new HTML beside old
+        Markdown); file-system faults raise :class:`ilkit.WriteError`.
     lines:
         Influence lines to show, each with sketch, ordinates and derivation;
         default :func:`default_lines`.  A line whose derivation cannot be
@@ -346,18 +351,19 @@ def write_calculation_sheet(
     """
     stem = _stem(path)
     blocks = sheet_blocks(beam, lines, results, load=load, divisions=divisions, title=title, info=info)
-    stem.parent.mkdir(parents=True, exist_ok=True)
     figures = stem.parent / f"{stem.name}_figures"
-    figures.mkdir(exist_ok=True)
+    svgs: dict[Path, str] = {}
 
     def link(fig: Figure) -> str:
         target = figures / f"{fig.name}.svg"
-        target.write_text(fig.svg, encoding="utf-8")
+        svgs[target] = fig.svg
         return f"{figures.name}/{target.name}"
 
     html_path = stem.with_suffix(".html")
     md_path = stem.with_suffix(".md")
-    html_path.write_text(_page(title, _doc.to_html(blocks)), encoding="utf-8")
-    md_path.write_text(_doc.to_markdown(blocks, link), encoding="utf-8")
+    markdown = _doc.to_markdown(blocks, link)
+    page = _page(title, _doc.to_html(blocks))
+    # all files or none: a failure never leaves new HTML beside old Markdown
+    write_files({html_path: page, md_path: markdown, **svgs}, what="write_calculation_sheet")
     return CalculationSheet(html_path, md_path, figures)
 

@@ -18,14 +18,16 @@ than booktabs are needed).  Each accepts a result or a DataFrame.
 
 from __future__ import annotations
 
+import io
 import math
-from collections.abc import Mapping
+from collections.abc import Iterable, Mapping
 from functools import singledispatch
 from pathlib import Path
 from typing import TYPE_CHECKING, Any
 
 from ilkit._exact import fmt
-from ilkit.errors import MissingDependencyError, UnsupportedResultError
+from ilkit._files import write_file
+from ilkit.errors import ExportError, MissingDependencyError, UnsupportedResultError
 from ilkit.influence import InfluenceLine
 from ilkit.model import Beam, Support
 from ilkit.views import _doc
@@ -156,21 +158,65 @@ def doc_table(frame: pd.DataFrame, digits: int = 4) -> _doc.Table:
 
 
 def to_csv(obj: object, path: str | Path) -> Path:
-    """Write the table of ``obj`` as CSV (UTF-8, full precision, no index); returns the path."""
-    path = path_of(path, what="table export")
-    table(obj).to_csv(path, index=False, encoding="utf-8")
-    return path
+    """Write the table of ``obj`` as CSV (UTF-8, full precision, no index); returns the path.
+
+    The file is written whole or not at all (an existing file is left as it
+    was when the write fails); missing folders are created; file-system
+    faults raise :class:`ilkit.WriteError`.
+    """
+    path = path_of(path, what="to_csv")
+    return write_file(path, table(obj).to_csv(index=False), what="to_csv")
 
 
 _SHEET_FORBIDDEN = str.maketrans({c: "_" for c in "[]:*?/\\"})
+SHEET_NAME_LIMIT = 31
+"""Excel's longest sheet name."""
+
+
+def _sheet_names(names: Iterable[object]) -> list[str]:
+    """The Excel sheet name of each of ``names``: ``[]:*?/\\`` replaced by ``_``, cut to 31 characters.
+
+    Two names that would give the same sheet (Excel ignores case) are refused
+    with :class:`ilkit.ExportError` naming both, as are names Excel refuses
+    (empty, starting or ending with an apostrophe, ``History``): a sheet is
+    never dropped or renamed behind the caller's back.
+    """
+    taken: dict[str, object] = {}
+    out = []
+    for given in names:
+        sheet = str(given).translate(_SHEET_FORBIDDEN)[:SHEET_NAME_LIMIT]
+        if not sheet.strip() or sheet[0] == "'" or sheet[-1] == "'" or sheet.casefold() == "history":
+            raise ExportError(
+                f"to_excel: Excel refuses the sheet name {sheet!r} (from {given!r}): names must not be empty, "
+                "start or end with an apostrophe, or be 'History'. Rename it.",
+                field="sheets",
+                value=given,
+            )
+        if sheet.casefold() in taken:
+            first = taken[sheet.casefold()]
+            raise ExportError(
+                f"to_excel: the names {first!r} and {given!r} both become the sheet {sheet!r} (Excel sheet names "
+                f"have at most {SHEET_NAME_LIMIT} characters, no []:*?/\\, and ignore case), so one result would "
+                "be lost. Rename one of them.",
+                field="sheets",
+                value=(first, given),
+            )
+        taken[sheet.casefold()] = given
+        out.append(sheet)
+    return out
 
 
 def to_excel(obj: object, path: str | Path) -> Path:
     """Write ``obj`` to an Excel workbook; returns the path.
 
     ``obj`` is a result, a DataFrame, or a mapping ``{sheet name: result}``
-    for several sheets (names are shortened to Excel's 31 characters).
-    Needs openpyxl: without it :class:`ilkit.MissingDependencyError` names
+    for several sheets.  Sheet names have ``[]:*?/\\`` replaced by ``_`` and
+    are cut to Excel's 31 characters; two names that would give the same
+    sheet (Excel ignores case) are refused with :class:`ilkit.ExportError`
+    naming both, never dropped.  The workbook is written whole or not at all (an
+    existing file is left as it was when anything fails); missing folders are
+    created; file-system faults raise :class:`ilkit.WriteError`.  Needs
+    openpyxl: without it :class:`ilkit.MissingDependencyError` names
     ``pip install openpyxl``.
     """
     try:
@@ -182,12 +228,21 @@ def to_excel(obj: object, path: str | Path) -> Path:
         ) from None
     import pandas as pd
 
-    path = path_of(path, what="table export")
+    path = path_of(path, what="to_excel")
     sheets = obj if isinstance(obj, Mapping) else {"ilkit": obj}
-    with pd.ExcelWriter(path, engine="openpyxl") as writer:
-        for name, item in sheets.items():
-            table(item).to_excel(writer, sheet_name=str(name).translate(_SHEET_FORBIDDEN)[:31], index=False)
-    return path
+    if not sheets:
+        raise ExportError(
+            "to_excel: no sheets to write (an empty mapping); give a result, a DataFrame or "
+            "{sheet name: result} with at least one entry.",
+            field="sheets",
+            value=obj,
+        )
+    frames = dict(zip(_sheet_names(sheets), (table(item) for item in sheets.values())))
+    buffer = io.BytesIO()
+    with pd.ExcelWriter(buffer, engine="openpyxl") as writer:
+        for name, frame in frames.items():
+            frame.to_excel(writer, sheet_name=name, index=False)
+    return write_file(path, buffer.getvalue(), what="to_excel")
 
 
 _LATEX_TEXT = {
@@ -218,6 +273,7 @@ def to_latex(
     Numbers have ``digits`` significant figures and are set in math mode (so
     the minus sign is a proper minus).  With ``caption`` or ``label`` the
     tabular is wrapped in a ``table`` float.  Needs ``\\usepackage{booktabs}``.
+    The file is written whole or not at all (see :func:`to_csv`).
     """
     from ilkit._check import whole
 
@@ -239,5 +295,5 @@ def to_latex(
         lines = [r"\begin{table}[htbp]", r"\centering", *lines, *extra, r"\end{table}"]
     text = "\n".join(lines) + "\n"
     if path is not None:
-        path_of(path, what="to_latex").write_text(text, encoding="utf-8")
+        write_file(path_of(path, what="to_latex"), text, what="to_latex")
     return text
