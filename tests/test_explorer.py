@@ -504,3 +504,65 @@ def test_envelope_toggle_on_a_beam_whose_moment_jumps_at_a_support(supports):
     assert sorted(drawn.get_ydata()) == pytest.approx(sorted(env.sections["M min [kN·m]"]), rel=1e-12)
     assert "ilkit-error" not in explorer.message.value
     explorer.close()
+
+
+# ------------------------------------------------------------ mix-ups (regressions: each fault by name)
+def test_two_loads_with_the_same_name_are_refused(continuous):
+    # regression: the second load silently replaced the first in the chooser and the envelope view
+    other = ilkit.AxleTrain([50, 50], [2.0], units="kN-m", name="five-axle vehicle")
+    with pytest.raises(ilkit.LoadInputError, match="is named 'five-axle vehicle', as is another load"):
+        Explorer(continuous, [VEHICLE, other], backend="inline")
+    with pytest.raises(ilkit.LoadInputError, match="named '1', as is another load"):
+        Explorer(continuous, {1: VEHICLE, "1": other}, backend="inline")
+    with pytest.raises(ilkit.LoadInputError, match="as is the explorer's unit load"):
+        Explorer(continuous, [ilkit.AxleTrain([1], [], units="kN-m", name="unit load")], backend="inline")
+    # a load named like a model's part: both would be offered as 'HL-93: design truck'
+    clash = ilkit.AxleTrain([100], [], units="kip-ft", name="HL-93: design truck")
+    with pytest.raises(ilkit.LoadInputError, match=r"two loads would be offered as 'HL-93: design truck'"):
+        Explorer(continuous, [ilkit.loads.hl93(), clash], backend="inline")
+    # explicit names in a mapping tell them apart
+    explorer = Explorer(continuous, {"vehicle A": VEHICLE, "vehicle B": other}, backend="inline")
+    assert list(explorer.load.options) == ["unit load", "vehicle A", "vehicle B"]
+    explorer.load.value = "vehicle B"
+    explorer.position.value = 40.0
+    assert explorer.value == ilkit.stand(explorer.line, other, 40.0).effect
+    explorer.close()
+
+
+def test_an_error_from_a_bad_entry_is_cleared_by_the_next_valid_move(continuous):
+    # regression: the message of a bad entry stayed on screen after later valid moves
+    explorer = Explorer(continuous, [VEHICLE], backend="inline")
+    explorer.load.value = "five-axle vehicle"
+    moves = [
+        ("slider", lambda: setattr(explorer.slider, "value", explorer.slider.value + 3)),
+        ("direction", lambda: setattr(explorer.direction, "value", "right to left")),
+        ("largest", lambda: explorer.largest.click()),
+        ("envelope", lambda: setattr(explorer.envelope, "value", not explorer.envelope.value)),
+    ]
+    for name, move in moves:
+        explorer.position.value = 1e4  # a bad entry
+        assert "outside the load's travel" in message(explorer), name
+        move()
+        assert explorer.message.value == "", name
+    explorer.location.value = "abc"  # a bad section, then a move of the load
+    assert "cannot read 'abc'" in message(explorer)
+    explorer.slider.value -= 1
+    assert explorer.message.value == ""
+    # a note (not an error) stays: the face shown where the quantity jumps
+    explorer.quantity.value = "shear"
+    explorer.location.value = "30"
+    explorer.slider.value += 1
+    assert "jumps at x = 30" in message(explorer)
+    explorer.close()
+
+
+def test_an_envelope_that_cannot_be_drawn_turns_its_toggle_off_with_the_reason():
+    bare = ilkit.Beam(20, {0: "pin", 20: "roller"})
+    explorer = Explorer(bare, [VEHICLE], backend="inline")
+    explorer.envelope.value = True
+    explorer.redraw()
+    assert explorer.envelope.value is False and "declares no units" in message(explorer)
+    assert "Showing the influence line" in message(explorer)
+    explorer.slider.value += 2
+    assert explorer.message.value == ""
+    explorer.close()

@@ -212,3 +212,26 @@ def test_demo_into_a_file_taken_for_a_folder_is_a_write_error(tmp_path: Path) ->
     with pytest.raises(ilkit.WriteError, match="a part of the path is a file, not a folder"):
         demo.run(tmp_path / "out", notebooks=tmp_path / "no-notebooks")
     assert (tmp_path / "out").read_text(encoding="utf-8") == "mine"
+
+
+def test_sheet_with_a_line_of_another_beam_is_refused(tmp_path: Path) -> None:
+    # regression: the sheet of one beam showed a line of another beam, mixing two structures in one record
+    beam = ilkit.Beam(20, {0: "pin", 20: "roller"}, units="kN-m")
+    other = ilkit.Beam(24, {0: "pin", 24: "roller"}, units="kN-m")
+    with pytest.raises(ilkit.BeamInputError, match=r"lines\[1\] \(M at x=5\) belongs to another beam") as caught:
+        write_calculation_sheet(beam, tmp_path / "s", lines=[beam.moment(5), other.moment(5)])
+    assert caught.value.field == "lines"
+    # the same beam in other units is another beam in numbers: refused too
+    with pytest.raises(ilkit.BeamInputError, match="belongs to another beam"):
+        write_calculation_sheet(beam, tmp_path / "s", lines=[beam.in_units("kip-ft").moment(5)])
+    # results (placements, envelopes) of another beam likewise
+    lane = ilkit.UniformLoad(5, units="kN-m", name="lane")
+    for result in (ilkit.extremes(other.moment(5), lane, beam=other), ilkit.envelope(other, lane, divisions=2),
+                   ilkit.place(other.moment(5), lane, beam=other)):
+        with pytest.raises(ilkit.BeamInputError, match=r"results\[0\] .* belongs to another beam"):
+            write_calculation_sheet(beam, tmp_path / "s", lines=[], results=[result])
+    assert not any(tmp_path.iterdir())
+    # an equal beam built again is the same beam
+    twin = ilkit.Beam(20, {0: "pin", 20: "roller"}, units="kN-m")
+    write_calculation_sheet(beam, tmp_path / "s", lines=[twin.moment(5)],
+                            results=[ilkit.extremes(twin.moment(5), lane, beam=twin)])

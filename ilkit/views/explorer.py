@@ -139,6 +139,7 @@ class Explorer:
         self._quiet = False  # set while the explorer itself changes a control
         self._facts_of: InfluenceLine | None = None
         self._facts_html = ""
+        self._error_shown = False  # an error is on screen: the next valid change clears it
 
         kinds = [k for k in KINDS if self._offers(k)]
         if not isinstance(quantity, str) or quantity not in kinds:
@@ -438,6 +439,8 @@ class Explorer:
         except IlkitError as err:
             self._show_message(str(err), error=True)
             return
+        if self._error_shown:  # a valid state again: an earlier error no longer applies
+            self._show_message("")
         self._figure.set_loading(loading)
         self._write_readout()
 
@@ -477,6 +480,8 @@ class Explorer:
 
     # --------------------------------------------------------------- envelope
     def _on_envelope(self, change: dict[str, Any]) -> None:
+        if self._error_shown:
+            self._show_message("")
         self._background_stale = True
         self._write_readout()
         self._redraw.request()
@@ -567,6 +572,7 @@ class Explorer:
         )
 
     def _show_message(self, text: str, *, error: bool = False) -> None:
+        self._error_shown = error and bool(text)
         if not text:
             self.message.value = ""
             return
@@ -594,7 +600,10 @@ class Explorer:
                 try:
                     found = self._envelope_of(self.model.value)
                 except IlkitError as err:
-                    self._show_message(str(err), error=True)
+                    # the toggle goes off with the reason: what is drawn is the line, as the controls say
+                    self._set_quietly(self.envelope, False)
+                    self._show_message(f"envelope: {err} Showing the influence line.", error=True)
+                    self._write_readout()
                 else:
                     self._figure.show_envelope(found, q.kind, at=float(q.at))
                     return
@@ -629,13 +638,36 @@ def _read_loads(loads: Any) -> tuple[dict[str, Travelling | None], dict[str, Any
     else:
         items = [(getattr(loads, "name", "load"), loads)]
     moving = (AxleTrain, KnifeEdge, UniformBlocks)
+    owners: dict[str, str] = {UNIT_LOAD: UNIT_LOAD}
+
+    def offer(label: str, part: Travelling, owner: str) -> None:
+        if label in travelling and not (owners[label] == owner and travelling[label] == part):
+            first = "the explorer's unit load" if label == UNIT_LOAD else f"a part of {owners[label]!r}"
+            raise LoadInputError(
+                f"loads: two loads would be offered as {label!r} ({first} and a part of {owner!r}), so one "
+                "would be lost. Rename one (e.g. AxleTrain(..., name='second truck')), or give a mapping "
+                "{name: load} with distinct names.",
+                field="loads",
+                value=label,
+            )
+        travelling[label], owners[label] = part, owner
+
     for name, item in items:
+        if name in models or name == UNIT_LOAD:
+            first = "the explorer's unit load" if name == UNIT_LOAD else "another load"
+            raise LoadInputError(
+                f"loads: {item!r} is named {name!r}, as is {first}; the explorer offers loads by name, so one "
+                "would be lost. Rename one (e.g. AxleTrain(..., name='second truck')), or give a mapping "
+                "{name: load} with distinct names.",
+                field="loads",
+                value=name,
+            )
         if isinstance(item, moving):
-            travelling[name] = item
+            offer(name, item, name)
         elif isinstance(item, (Combination, LoadModel)):
             cases = item.cases if isinstance(item, LoadModel) else (item,)
             for part in (p for case in cases for p in case.parts if isinstance(p, moving)):
-                travelling.setdefault(name if part.name == name else f"{name}: {part.name}", part)
+                offer(name if part.name == name else f"{name}: {part.name}", part, name)
         elif not isinstance(item, UniformLoad):
             raise LoadInputError(
                 f"loads: {item!r} is not a load; give axle trains, knife-edge loads, blocks, uniform loads, "

@@ -134,6 +134,10 @@ def sheet_blocks(
         chosen = listed(lines, wanted="write_calculation_sheet: lines: give a list of influence lines", field="lines")
         for line in chosen:
             expect(line, InfluenceLine, what="write_calculation_sheet: lines", hint="give influence lines")
+    results = listed(results, wanted="write_calculation_sheet: results: give a list of results, e.g. [found]",
+                     field="results", ordered=False)
+    _same_beam(beam, chosen, "lines")
+    _same_beam(beam, results, "results")
     if info is not None and not isinstance(info, Mapping):
         raise BeamInputError(
             "write_calculation_sheet: info must be a mapping of header fields, e.g. {'project': 'Bridge 12'}; "
@@ -176,7 +180,7 @@ def sheet_blocks(
             blocks += report_section(found, f"{chapter}.{i}")
         blocks += [Heading(f"{chapter + 1}. Envelope", 2), *report_section(moving.envelope, f"{chapter + 1}.1")]
         chapter += 2
-    extra = list(results)
+    extra = results
     if extra:
         blocks.append(Heading(f"{chapter}. Further results", 2))
         for i, result in enumerate(extra, start=1):
@@ -199,6 +203,34 @@ def sheet_blocks(
         Callout(CAUTION, "caution"),
     ]
     return blocks
+
+
+def _beam_of(result: object) -> Beam | None:
+    """The beam a result was computed on, where it says (lines, placements, extremes, envelopes)."""
+    if isinstance(result, Envelope):
+        return result.beam
+    if isinstance(result, Extremes):
+        result = result.maximum
+    line = result if isinstance(result, InfluenceLine) else getattr(result, "line", None)
+    if isinstance(line, InfluenceLine):
+        found = getattr(line.origin, "beam", None)
+        return found if isinstance(found, Beam) else None
+    return None
+
+
+def _same_beam(beam: Beam, items: Sequence[object], field: str) -> None:
+    """Refuse a result of another beam: a sheet about one beam must not show another's numbers."""
+    for i, item in enumerate(items):
+        other = _beam_of(item)
+        if other is not None and other != beam:
+            what = item.quantity.label if isinstance(item, InfluenceLine) else type(item).__name__
+            raise BeamInputError(
+                f"write_calculation_sheet: {field}[{i}] ({what}) belongs to another beam, {other!r}, not to the "
+                f"beam of this sheet, {beam!r}; a sheet shows one beam. Take the {field} from this beam "
+                "(e.g. beam.moment(x)), or write a sheet for the other one.",
+                field=field,
+                value=item,
+            )
 
 
 _PLACEMENT_METHOD = (
