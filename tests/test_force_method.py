@@ -57,7 +57,7 @@ def test_two_equal_spans_middle_reaction(two_spans) -> None:
     d = derivation(two_spans.reaction(L, exact=True))
     flexibility = table_after(d, "Flexibility coefficients")
     assert flexibility.rows[0][1].text == str(Fraction(L**3, 6))
-    assert "Redundants and primary structure" in d.to_text() and "supports pin at 0, roller at 20" in d.to_text()
+    assert "Redundants and primary structure" in d.to_text() and "supports pin at 0 m, roller at 20 m" in d.to_text()
     for x in (Fraction(1), Fraction(5, 2), Fraction(7), Fraction(L)):
         assert d.expression.subs(X, x) == x * (3 * L**2 - x**2) / (2 * L**3)
     # symmetric about the middle support

@@ -19,7 +19,8 @@ from ilkit.views import plot_envelope, plot_placement, table, to_csv, to_latex, 
 from ilkit.views.demo import highway_girder, highway_lines
 from ilkit.views.derive import quantity_title
 from ilkit.views.loaddraw import LoadArtists
-from ilkit.views.moving_records import model_blocks, placement_table
+from ilkit.views._doc import Para
+from ilkit.views.moving_records import model_blocks, placement_blocks, placement_table
 from ilkit.views.plot import short
 from ilkit.views.report import CAUTION
 
@@ -155,17 +156,39 @@ def test_excel_export_of_placements_and_envelopes(girder, hl93, pier_moment, tmp
 
 def test_placement_table_prints_the_core_numbers(pier_moment) -> None:
     shown = placement_table(pier_moment)
+    # one number per column, each with its unit (regression: "P [kip], q [kip/ft]" shared a column and the
+    # area of a loaded stretch stood in the ordinate column without a unit)
+    assert shown.header == ("load", "x [ft]", "P [kip]", "q [kip/ft]", "ordinate [kip·ft/kip]", "area [ft²]",
+                            "counted", "factor (dynamic allowance × case factor)", "factored effect [kip·ft]")
     rows = iter(shown.rows)
     for p in pier_moment.placements:
         for a in p.axles:
             row = next(rows)
             assert row[0] == f"{p.load}, axle {a.number}" and row[1].split()[0] == short(a.x, 6)
-            assert row[3] == short(a.ordinate, 4) and row[6] == short(a.effect * p.factor, 5)
+            assert (row[2], row[3], row[5]) == (short(a.load, 5), "", "")
+            assert row[4] == short(a.ordinate, 4) and row[8] == short(a.effect * p.factor, 5)
         for k, patch in enumerate(p.patches, start=1):
             row = next(rows)
             assert row[0] == f"{p.load}, patch {k}" and row[1] == f"{short(patch.start, 6)} to {short(patch.end, 6)}"
-            assert row[6] == short(patch.effect * p.factor, 5)
-    assert next(rows) == ("total", "", "", "", "", "", short(pier_moment.value, 5))
+            assert (row[2], row[3], row[4]) == ("", short(patch.intensity, 5), "")
+            assert row[5] == short(patch.effect / patch.intensity, 5) and row[8] == short(patch.effect * p.factor, 5)
+    assert next(rows) == ("total", "", "", "", "", "", "", "", short(pier_moment.value, 5))
+
+
+def test_placement_factor_is_written_with_its_parts_where_the_model_is_known(pier_moment, hl93) -> None:
+    # regression: a factor of 1.197 appeared without its parts; HL-93's two-truck case: dynamic allowance
+    # 33 % on the trucks times the case factor 0.90 (AASHTO LRFD 3.6.1.3.1 and 3.6.2.1, from memory)
+    assert pier_moment.case == "90 % (two design trucks + lane)"
+    trucks, lane = pier_moment.placements
+    assert trucks.factor == pytest.approx(1.33 * 0.9)
+    shown = placement_table(pier_moment, hl93)
+    assert {row[7] for row in shown.rows if row[0].startswith("two design trucks")} == {"1.33 × 0.9"}
+    assert {row[7] for row in shown.rows if row[0].startswith("design lane")} == {"0.9"}
+    blocks = placement_blocks(pier_moment, "4.2b", hl93)
+    words = " ".join(b.items[0] for b in blocks if isinstance(b, Para))
+    assert "× dynamic factor 1.33 × case factor 0.9 =" in words
+    # without the model the column says what the factor holds
+    assert placement_table(pier_moment).rows[0][7] == short(1.33 * 0.9, 4)
 
 
 # ------------------------------------------------------------------- displays
@@ -251,11 +274,12 @@ def test_sheet_with_a_load_model_holds_model_placements_and_envelope(highway_she
         for tag, found in (("a", both.maximum), ("b", both.minimum)):
             word = "Largest" if found.extreme == "max" else "Smallest"
             assert re.search(rf"### 4\.{i}{tag} {word} .*: {re.escape(short(found.value, 5))} ", markdown)
-            assert f"| total |  |  |  |  |  | {short(found.value, 5)} |" in markdown
+            assert f"| total |  |  |  |  |  |  |  | {short(found.value, 5)} |" in markdown
         # the summary row at the head of the chapter
         hi, lo = both.maximum, both.minimum
         assert (f"| 4.{i} | {quantity_title(line.quantity, 'ft')} | {short(hi.value, 5)} {hi.unit} | {hi.case} | "
                 f"{short(lo.value, 5)} {lo.unit} | {lo.case} |") in markdown
+    assert "| see | quantity | largest | governing case | smallest (most negative) | governing case |" in markdown
     # the envelope: its tables hold the core's values, and the absolute maximum is placed
     env = loads.envelope(girder, hl93, divisions=6)
     for _, row in env.sections.iterrows():
@@ -286,4 +310,4 @@ def test_sheet_with_a_load_needs_units_and_skips_deflections(tmp_path: Path, hl9
     # covers the whole span, area L²/8 = 50 m²: 1350 kN·m.  Total 4170 kN·m.
     found = loads.place(beam.moment(10), loads.lm1(), "max")
     assert found.value == pytest.approx(4170.0, rel=1e-12)
-    assert f"| total |  |  |  |  |  | {short(found.value, 5)} |" in markdown
+    assert f"| total |  |  |  |  |  |  |  | {short(found.value, 5)} |" in markdown

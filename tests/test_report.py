@@ -56,7 +56,7 @@ def test_sheet_carries_the_caution_inputs_lines_and_derivations(demo_sheet) -> N
     for text in (page, markdown):
         assert text.count(CAUTION) == 2  # at the start and at the end
         assert "qualified engineer" in CAUTION and "governing design codes" in CAUTION
-        assert "degree of indeterminacy" in text and "32 m (0 to 32), 44 m (32 to 76)" in text
+        assert "degree of indeterminacy" in text and "32 m (0 to 32 m), 44 m (32 to 76 m)" in text
     for i, line in enumerate(demo_lines(beam), start=1):
         d = derivation(line)
         assert f"2.{i} {d.title}" in markdown
@@ -123,7 +123,7 @@ def test_sheet_of_a_continuous_beam_writes_the_force_method(tmp_path: Path) -> N
         not in markdown
     # the derivations are the force method's: primary structure, redundants, flexibility coefficients
     assert "Redundants and primary structure" in markdown and "Flexibility coefficients" in markdown
-    assert "vertical reaction at x=20" in markdown and "supports pin at 0, roller at 60" in markdown
+    assert "vertical reaction at x=20" in markdown and "supports pin at 0 m, roller at 60 m" in markdown
     assert "force (flexibility) method on a determinate primary structure" in markdown
 
 

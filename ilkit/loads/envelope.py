@@ -57,6 +57,8 @@ class Envelope(RichDisplay):
     reactions: pd.DataFrame = field(repr=False)
     absolute_maximum_moment: Extreme
     _found: dict[tuple[str, Fraction, Side | None], Extremes] = field(repr=False, compare=False)
+    load_model: LoadModel | None = field(default=None, repr=False, compare=False)
+    """The load model applied (in the beam's units): its cases give the parts of every factor."""
 
     def __repr__(self) -> str:
         a = self.absolute_maximum_moment
@@ -204,7 +206,7 @@ def envelope(
             }
         )
     best = _absolute_maximum(beam, model, found, stations + releases)
-    return Envelope(beam, model.name, pd.DataFrame(rows), pd.DataFrame(reaction_rows), best, found)
+    return Envelope(beam, model.name, pd.DataFrame(rows), pd.DataFrame(reaction_rows), best, found, model)
 
 
 def _absolute_maximum(

@@ -25,11 +25,13 @@ from ilkit.loads.results import Extreme, LoadPlacement, effect_unit
 from ilkit.views import style
 from ilkit.views.derive import quantity_title
 from ilkit.views.loaddraw import ARROW_BASE, LoadArtists, Loading, arrow_tip
+from ilkit.views.numbers import ordinate_unit
 from ilkit.views.plot import (
     LABEL_BOX,
     breakpoint_ticks,
     draw_line,
     free_offsets,
+    ordinate_axis,
     points_per_unit,
     short,
     text_width,
@@ -188,14 +190,15 @@ def plot_placement(
         for side in ("top", "right"):
             ax.spines[side].set_visible(False)  # the band of the loads takes the top of the axes
         _share_height(ax, strip, line, loading)
-        _label_axles(strip, ax, loading, units.force if units else "")
+        _label_axles(strip, ax, loading, units.force if units else "", ordinate_unit(line)[0])
         _label_patches(strip, loading, points_per_unit(ax), units.line_load if units else "")
         direction = next((p.direction for p in placements if p.direction), None)
         if direction is not None:
             _travel_words(strip, direction, beam, length)
         breakpoint_ticks(ax, line)
         ax.set_xlabel(f"x [{units.length}]" if units else "x")
-        ax.set_ylabel(f"ordinate [{line.unit}]" if line.unit else "ordinate")
+        unit = ordinate_unit(line)[1]
+        ax.set_ylabel(f"ordinate [{unit}]" if unit else "ordinate")
         ax.yaxis.label.set_y((1 - _BAND) / 2)  # beside the line, not the band
         ax.set_title(title if title is not None else placement_title(result))
         return ax
@@ -210,16 +213,13 @@ _BAND_RANGE = (-0.42, 0.85)
 def _share_height(ax: Axes, strip: Axes, line: InfluenceLine, loading: Loading) -> None:
     """The line in the lower part of the axes, the beam band in the upper part; the y axis drawn
     only along the line's range."""
-    from matplotlib.ticker import MaxNLocator
-
     values = [0.0, line.maximum.value, line.minimum.value, *(a.ordinate for a in loading.axles if a.counted)]
     lo, hi = min(values), max(values)
     size = (hi - lo) or 1.0
     lo, hi = lo - 0.22 * size, hi + 0.22 * size
     top = hi + (hi - lo) * _BAND / (1 - _BAND)
     ax.set_ylim(lo, top)
-    ticks = [t for t in MaxNLocator(5).tick_values(lo, hi) if lo <= t <= hi]
-    ax.set_yticks(ticks)
+    ordinate_axis(ax, line, lo=lo, hi=hi)
     ax.spines["left"].set_bounds(lo, hi)
     b0, b1 = _BAND_RANGE
     strip.set_ylim(b1 - (b1 - b0) / _BAND, b1)
@@ -236,14 +236,14 @@ def _draw_beam(strip: Axes, beam: Beam | None, length: float) -> None:
         strip.plot([0, length], [0, 0], color=style.INK, linewidth=2.6, solid_capstyle="butt", gid="beam")
 
 
-def _label_axles(strip: Axes, ax: Axes, loading: Loading, force: str) -> None:
+def _label_axles(strip: Axes, ax: Axes, loading: Loading, force: str, factor: float) -> None:
     """The load above every counted axle's arrow and the ordinate under it on the line
     (labels that would overlap are moved out)."""
     counted = sorted((a for a in loading.axles if a.counted), key=lambda a: a.x)
     heaviest = max((a.load for a in loading.axles), default=1.0)
     unit = f" {force}" if force else ""
     loads = [short(a.load) + (unit if k == 0 else "") for k, a in enumerate(counted)]
-    ordinates = [short(a.ordinate) for a in counted]
+    ordinates = [short(a.ordinate * factor) for a in counted]
     tips = [(a.x, arrow_tip(a.load, heaviest)) for a in counted]
     lifts = free_offsets(strip, tips, [text_width(t, 6.5) for t in loads], [True] * len(counted), first=5.0)
     drops = free_offsets(ax, [(a.x, a.ordinate) for a in counted], [text_width(t, 7.0) + 1 for t in ordinates],

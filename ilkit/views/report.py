@@ -38,8 +38,8 @@ from ilkit.views import _doc, style
 from ilkit.views._doc import Block, Callout, Figure, Heading, Para, Table
 from ilkit.views.derive import SIGN_CONVENTIONS, derivation, quantity_title
 from ilkit.views.display import beam_figure, line_facts, line_figure
-from ilkit.views.plot import short
-from ilkit.views.tables import beam_facts, doc_table
+from ilkit.views.numbers import clean, effect_scale, short
+from ilkit.views.tables import beam_facts, ordinate_table
 
 __all__ = ["CAUTION", "CalculationSheet", "write_calculation_sheet", "sheet_blocks", "report_section", "default_lines"]
 
@@ -106,7 +106,7 @@ def _(line: InfluenceLine, number: str) -> list[Block]:
                f"line-{number.replace('.', '-')}"),
         Table(("key values", ""), tuple(line_facts(line))),
         Para(("Ordinates at the breakpoints (both faces where the line jumps):",)),
-        doc_table(line.ordinates()),
+        ordinate_table(line),
         Heading("Derivation", 4),
         *steps,
     ]
@@ -145,6 +145,8 @@ def sheet_blocks(
             field="info",
             value=info,
         )
+    from ilkit.views.moving_records import placement_blocks
+
     moving = _moving_load(beam, chosen, load, divisions)  # computed before anything is drawn: bad input fails fast
     blocks: list[Block] = [Heading(title, 1)]
     if info:
@@ -177,7 +179,8 @@ def sheet_blocks(
             extremes_summary(moving.placements, f"{chapter}."),
         ]
         for i, found in enumerate(moving.placements, start=1):
-            blocks += report_section(found, f"{chapter}.{i}")
+            blocks += placement_blocks(found.maximum, f"{chapter}.{i}a", moving.model)
+            blocks += placement_blocks(found.minimum, f"{chapter}.{i}b", moving.model)
         blocks += [Heading(f"{chapter + 1}. Envelope", 2), *report_section(moving.envelope, f"{chapter + 1}.1")]
         chapter += 2
     extra = results
@@ -243,17 +246,23 @@ _PLACEMENT_METHOD = (
 
 
 def extremes_summary(found: Sequence[Extremes], prefix: str = "") -> Table:
-    """One row per quantity: the largest and the smallest value with their governing cases (core values,
-    five significant figures) and the section of the sheet that shows each placement."""
+    """One row per quantity: the largest and the smallest (most negative) value with their governing cases
+    (core values, five significant figures; an extreme of zero names no case) and, first, the paragraph of
+    the sheet that shows each placement."""
+    from ilkit.views.moving_records import NO_CASE
+
     rows = []
     for i, both in enumerate(found, start=1):
         hi, lo = both.maximum, both.minimum
         units = hi.line.units if hi.line is not None else None
         what = quantity_title(hi.quantity, units.length if units else "")
-        rows.append((f"{prefix}{i}", what, f"{short(hi.value, 5)} {hi.unit}", hi.case,
-                     f"{short(lo.value, 5)} {lo.unit}", lo.case))
-    return Table(("section", "quantity", "largest", "governing case", "smallest", "governing case"), tuple(rows),
-                 "llrlrl")
+        cells: list[str] = [f"{prefix}{i}", what]
+        for extreme in (hi, lo):
+            value = clean(extreme.value, effect_scale(extreme))
+            cells += [f"{short(value, 5)} {extreme.unit}", extreme.case if value else NO_CASE]
+        rows.append(tuple(cells))
+    header = ("see", "quantity", "largest", "governing case", "smallest (most negative)", "governing case")
+    return Table(header, tuple(rows), "llrlrl")
 
 
 @dataclass(frozen=True)

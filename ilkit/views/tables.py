@@ -32,7 +32,7 @@ from ilkit.influence import InfluenceLine
 from ilkit.model import Beam, Support
 from ilkit.views import _doc
 from ilkit.views._args import path_of
-from ilkit.views.plot import short
+from ilkit.views.numbers import NOISE, engineering, line_scale, ordinate_unit
 
 if TYPE_CHECKING:  # pragma: no cover
     import pandas as pd
@@ -54,7 +54,16 @@ def table(obj: object) -> pd.DataFrame:
 
 @table.register(InfluenceLine)
 def _(line: InfluenceLine) -> pd.DataFrame:
-    return line.ordinates()
+    frame = line.ordinates()
+    factor, unit = ordinate_unit(line)
+    if factor == 1.0:
+        return frame
+    # deflections in mm (or in), rotations in mrad per unit force: the units of the plots
+    first, *rest = frame.columns
+    out = frame[[first]].copy()
+    for column in rest:
+        out[f"{column.split(' [')[0]} [{unit}]"] = frame[column] * factor
+    return out
 
 
 @table.register(Beam)
@@ -69,38 +78,65 @@ def _(beam: Beam) -> pd.DataFrame:
 
 
 def _support_words(support: Support) -> str:
-    """``"pin support"``, or for an elastic support its springs, e.g. ``"spring support, Spring(vertical=5000)"``."""
-    return f"{support.kind} support" if support.spring is None else f"spring support, {support.spring!r}"
+    """``"pin support"``, or for an elastic support its springs, e.g. ``"spring support (vertical 5000)"``."""
+    return f"{support.kind} support" if support.spring is None else f"spring support ({_spring_words(support)})"
+
+
+def _spring_words(support: Support, units: Any = None) -> str:
+    """A spring's stiffnesses in words: ``"vertical 5000 kN/m, rotation free"``."""
+    spring = support.spring
+    assert spring is not None
+    vertical_unit = f" {units.force}/{units.length}" if units else ""
+    rotational_unit = f" {units.moment}/rad" if units else ""
+
+    def stiffness(value: object, unit: str, free: str) -> str:
+        if value == "rigid":
+            return "rigid"
+        if value == "free":
+            return free
+        return f"{engineering(float(value))}{unit}"  # type: ignore[arg-type]
+
+    return (f"vertical {stiffness(spring.vertical, vertical_unit, 'free')}, "
+            f"rotational {stiffness(spring.rotational, rotational_unit, 'free')}")
 
 
 def beam_facts(beam: Beam) -> list[tuple[str, str]]:
-    """The beam in a few lines: ``(label, value)`` for summaries and calculation sheets."""
+    """The beam in a few lines: ``(label, value)`` for summaries and calculation sheets.
+
+    Positions carry the length unit; springs are described in words with
+    their units; ``EI`` in engineering notation (``24 × 10⁶ kN·m²``).
+    """
     u = f" {beam.units.length}" if beam.units else ""
-    spans = ", ".join(f"{fmt(b - a)}{u} ({fmt(a)} to {fmt(b)})" for a, b in beam.spans) or "none"
+
+    def at(x: object) -> str:
+        return f"{fmt(x)}{u}"  # type: ignore[arg-type]
+
+    spans = ", ".join(f"{at(b - a)} ({fmt(a)} to {at(b)})" for a, b in beam.spans) or "none"
     first, last = beam.supports[0].at, beam.supports[-1].at
-    overhangs = [f"left {fmt(first)}{u}"] if first > 0 else []
-    overhangs += [f"right {fmt(beam.length - last)}{u}"] if last < beam.length else []
+    overhangs = [f"left {at(first)}"] if first > 0 else []
+    overhangs += [f"right {at(beam.length - last)}"] if last < beam.length else []
     degree = beam.degree
+    supports = ", ".join(
+        f"{s.kind} at {at(s.at)}" if s.spring is None else f"spring at {at(s.at)} ({_spring_words(s, beam.units)})"
+        for s in beam.supports
+    )
     facts = [
-        ("length", f"{fmt(beam.length)}{u}"),
+        ("length", at(beam.length)),
         ("spans", spans),
         ("overhangs", ", ".join(overhangs) or "none"),
-        ("supports", ", ".join(f"{s.kind if s.spring is None else repr(s.spring)} at {fmt(s.at)}"
-                               for s in beam.supports)),
-        ("hinges", ", ".join(fmt(h) for h in beam.hinges) or "none"),
-        ("shear releases", ", ".join(fmt(h) for h in beam.shear_releases) or "none"),
+        ("supports", supports),
+        ("hinges", ", ".join(at(h) for h in beam.hinges) or "none"),
+        ("shear releases", ", ".join(at(h) for h in beam.shear_releases) or "none"),
         ("degree of indeterminacy", f"{degree} ({'determinate' if degree == 0 else 'indeterminate'})"),
         ("units", f"{beam.units.name} (lengths in {beam.units.length}, forces in {beam.units.force})"
          if beam.units else "not declared"),
     ]
-    if beam.units is not None and any(s.spring for s in beam.supports):
-        facts.append(("spring units", f"vertical {beam.units.force}/{beam.units.length}, rotational "
-                      f"{beam.units.force}·{beam.units.length}/rad"))
     ranges = beam.EI_ranges
     if ranges:
         ei_unit = f" {beam.units.force}·{beam.units.length}²" if beam.units else ""
         facts.append(("EI", ", ".join(
-            f"{fmt(ei)}{ei_unit}" + (f" ({fmt(a)} to {fmt(b)})" if len(ranges) > 1 else "") for a, b, ei in ranges
+            f"{engineering(float(ei))}{ei_unit}" + (f" ({fmt(a)} to {at(b)})" if len(ranges) > 1 else "")
+            for a, b, ei in ranges
         )))
     return facts
 
@@ -120,7 +156,7 @@ def _cell(value: Any, digits: int) -> str:
         as_float = float(value)
         if math.isnan(as_float):
             return ""
-        return short(as_float, digits) if math.isfinite(as_float) else str(as_float)
+        return engineering(as_float, digits) if math.isfinite(as_float) else str(as_float)
     return str(value)
 
 
@@ -129,32 +165,57 @@ def _align(frame: pd.DataFrame) -> str:
     return "".join("r" if frame[c].dtype.kind in "fiu" else "l" for c in frame.columns)
 
 
-NOISE = 1e-10
-"""A float smaller than this fraction of the largest magnitude in its column is rounding noise (shown as 0)."""
+def _unit_of(column: object) -> str:
+    text = str(column)
+    return text[text.find("[") + 1 : text.rfind("]")] if "[" in text and text.endswith("]") else ""
 
 
-def without_noise(frame: pd.DataFrame) -> pd.DataFrame:
-    """A copy of ``frame`` with rounding noise in its float columns set to 0 (see :data:`NOISE`).
+def without_noise(frame: pd.DataFrame, scale: float | Mapping[str, float] | None = None) -> pd.DataFrame:
+    """A copy of ``frame`` with rounding noise in its float columns set to 0 (and ``-0.0`` to ``0.0``).
 
     Float results carry noise where the exact value is 0 (a moment at a
     simple support: 1e-13 kip·ft); printed to four figures it would read as a
-    value.  Only what is shown is cleaned; the results keep their numbers.
+    value.  A value is noise when it is below :data:`NOISE` times the scale of
+    its quantity: ``scale`` (one number for every float column, or a number
+    per column); by default the largest magnitude among the columns with the
+    same unit in their name.  Give the scale when a column may hold nothing
+    but noise (the ordinates of a line at its supports:
+    :func:`ilkit.views.numbers.line_scale`).  Only what is shown is cleaned;
+    the results keep their numbers.
     """
     out = frame.copy()
-    for column in out.columns:
-        if out[column].dtype.kind == "f":
-            values = out[column]
-            size = values.abs().max()
-            if size > 0:
-                out[column] = values.where((values.abs() > NOISE * size) | values.isna(), 0.0)
+    floats = [c for c in out.columns if out[c].dtype.kind == "f"]
+    groups: dict[str, float] = {}
+    for column in floats:
+        key = _unit_of(column) or f"\0{column}"
+        groups[key] = max(groups.get(key, 0.0), float(out[column].abs().max(skipna=True) or 0.0))
+    for column in floats:
+        if isinstance(scale, Mapping):
+            size = scale.get(column)
+        else:
+            size = scale
+        if size is None:
+            size = groups[_unit_of(column) or f"\0{column}"]
+        values = out[column]
+        out[column] = values.where((values.abs() > NOISE * abs(size)) | values.isna(), 0.0)
     return out
 
 
-def doc_table(frame: pd.DataFrame, digits: int = 4) -> _doc.Table:
-    """A DataFrame as a document table (numbers to ``digits`` significant figures, noise shown as 0)."""
-    clean = without_noise(frame)
+def doc_table(
+    frame: pd.DataFrame, digits: int = 4, *, scale: float | Mapping[str, float] | None = None
+) -> _doc.Table:
+    """A DataFrame as a document table (numbers to ``digits`` significant figures, noise shown as 0; ``scale``
+    as in :func:`without_noise`)."""
+    clean = without_noise(frame, scale)
     rows = tuple(tuple(_cell(v, digits) for v in row) for row in clean.itertuples(index=False))
     return _doc.Table(tuple(str(c) for c in frame.columns), rows, _align(frame))
+
+
+def ordinate_table(line: InfluenceLine, digits: int = 4) -> _doc.Table:
+    """The ordinates of ``line`` at its breakpoints (both sides where it jumps) as a document table: in the
+    units of the plots, rounding noise judged against the size of the quantity on its beam."""
+    factor, _ = ordinate_unit(line)
+    return doc_table(table(line), digits, scale=line_scale(line) * factor)
 
 
 def to_csv(obj: object, path: str | Path) -> Path:
@@ -260,8 +321,14 @@ def _latex_text(text: str) -> str:
 def _latex_cell(value: Any, digits: int) -> str:
     text = _cell(value, digits)
     if text and not _is_bool(value) and (isinstance(value, (int, float)) or hasattr(value, "dtype")):
+        mantissa, times, power = text.partition(" × 10")
+        if times:  # engineering notation: 24 × 10⁶
+            text = rf"{mantissa} \times 10^{{{power.translate(_FROM_SUPERSCRIPT)}}}"
         return f"${text}$"
     return _latex_text(text)
+
+
+_FROM_SUPERSCRIPT = str.maketrans("⁻⁰¹²³⁴⁵⁶⁷⁸⁹", "-0123456789")
 
 
 def to_latex(
