@@ -58,7 +58,9 @@ def run(out: Path, notebooks: Path | None = None) -> Path:
         NotebookClient(
             nb, timeout=900, kernel_name="python3", resources={"metadata": {"path": str(out)}}
         ).execute()
-        body, _ = _page_exporter().from_notebook_node(nb)
+        title = _title(nb, path.stem)
+        nb.metadata["title"] = title  # the page's title in the browser (nbconvert writes "Notebook" without it)
+        body, _ = _page_exporter().from_notebook_node(nb, resources={"metadata": {"name": path.stem}})
         files: dict[Path, str | bytes] = {
             out / path.name: nbformat.writes(nb) + "\n",
             out / f"{path.stem}.html": body,
@@ -71,9 +73,6 @@ def run(out: Path, notebooks: Path | None = None) -> Path:
                     count += 1
                     files[figures / f"{path.stem}-{count}.png"] = base64.b64decode(data["image/png"])
         write_files(files, what="demo")  # the notebook, its page and its figures together, or none
-        title = next(
-            (c.source.lstrip("# ").splitlines()[0] for c in nb.cells if c.cell_type == "markdown"), path.stem
-        )
         entries.append((path.stem, title, count))
     for extra in _extra_outputs(out):
         entries.append(extra)
@@ -96,6 +95,16 @@ def run(out: Path, notebooks: Path | None = None) -> Path:
         what="demo",
     )
     return index
+
+
+def _title(nb: Any, fallback: str) -> str:
+    """The notebook's title: the text of its first Markdown heading."""
+    for cell in nb.cells:
+        if cell.cell_type == "markdown":
+            for text in cell.source.splitlines():
+                if text.startswith("#"):
+                    return text.lstrip("# ").strip()
+    return fallback
 
 
 def _page_exporter() -> Any:

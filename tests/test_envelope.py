@@ -251,3 +251,23 @@ def test_envelope_ties_at_an_interior_fixed_support_do_not_compare_results():
     assert float(best.quantity.at) == pytest.approx(20, abs=1e-4)
     # each face's placement is the one behind its own row
     assert env.extreme("moment", 10, "min", side="right").value == rows.loc[(10.0, "right"), "M min [kN·m]"]
+
+
+def test_symmetric_girder_reports_both_mirror_positions_of_the_absolute_maximum():
+    # regression: a symmetric girder's absolute maximum was given at one of two mirror positions without a word.
+    # Two equal moving loads P at d on a simple span L (AISC Steel Construction Manual, Table 3-23, case 44,
+    # from memory): M max = P (2L - d)^2 / (8L), under one load at d/4 from midspan, on either side.
+    P, d, L = 180, 3.2, 12
+    trolley = AxleTrain([P, P], [d], units="kN-m", name="trolley")
+    env = envelope(ilkit.Beam(L, {0: "pin", L: "roller"}, units="kN-m"), trolley, divisions=12)
+    assert env.absolute_maximum_moment.value == pytest.approx(P * (2 * L - d) ** 2 / (8 * L), rel=1e-9)
+    assert env.absolute_maximum_positions == pytest.approx((L / 2 - d / 4, L / 2 + d / 4), abs=1e-5 * L)
+    # the continuous girder of the demo is symmetric too (90 + 115 + 90 ft): mirror positions about 147.5
+    env = envelope(ilkit.Beam(295, {0: "pin", 90: "roller", 205: "roller", 295: "roller"}, EI=1, units="kip-ft"),
+                   hl93(), divisions=10)
+    a, b = env.absolute_maximum_positions
+    assert a + b == pytest.approx(295, abs=1e-4) and a < 147.5 < b
+    # a girder that is not symmetric has one
+    env = envelope(ilkit.Beam(30, {0: "pin", 12: "roller", 30: "roller"}, EI=1, units="kN-m"),
+                   UniformLoad(5, units="kN-m"), divisions=10)
+    assert len(env.absolute_maximum_positions) == 1

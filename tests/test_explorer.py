@@ -566,3 +566,46 @@ def test_an_envelope_that_cannot_be_drawn_turns_its_toggle_off_with_the_reason()
     explorer.slider.value += 2
     assert explorer.message.value == ""
     explorer.close()
+
+
+# ---------------------------------------------------- words and units (regressions: each fault by name)
+def test_controls_and_read_out_say_what_each_number_contains(continuous):
+    explorer = Explorer(continuous, [VEHICLE], quantity="moment", at=50, backend="inline")
+    # every box has a label with its unit (regression: the position box had none; "at x =" had no unit)
+    assert explorer.location.description == "at x [m]"
+    assert explorer.position.description == "load at x [m]"
+    assert explorer.model.description == "load model"  # regression: the control was labelled "of"
+    assert [label for label, _ in explorer.side.options] == ["left side", "right side"]  # one word, as side=
+    explorer.redraw()
+    assert explorer._figure.ax_line.get_title(loc="left") == "Influence line: bending moment M at x = 50 m"
+    assert "most negative" in explorer.smallest.tooltip
+    explorer.load.value = "five-axle vehicle"
+    assert "effect of this load alone (unfactored" in explorer.readout.value
+    explorer.envelope.value = True
+    text = explorer.readout.value
+    assert "five-axle vehicle here (the governing case, factored" in text and "smallest (most negative)" in text
+    assert "qualified engineer" in explorer.caution.value and explorer.caution in explorer.widget.children
+    explorer.quantity.value = "shear"
+    explorer.location.value = "30"
+    assert "showing the left side" in message(explorer) and "left face" not in explorer.readout.value
+    explorer.close()
+
+
+def test_deflection_read_out_is_in_millimetres_as_in_the_plot(continuous):
+    # regression: deflection lines were plotted in m/kN with a 1e-5 axis offset
+    explorer = Explorer(continuous, quantity="deflection", at=50, backend="inline")
+    explorer.position.value = 45.0
+    line = continuous.deflection(50)
+    assert explorer.value == line(45.0)  # the core value, in m/kN
+    assert shown_unit(explorer) == "mm/kN"
+    assert shown(explorer) == pytest.approx(1000 * line(45.0), rel=1e-4)
+    explorer.redraw()
+    ax = explorer._figure.ax_line
+    assert ax.get_ylabel() == "ordinate [mm/kN]"
+    ax.figure.canvas.draw()
+    assert ax.yaxis.get_offset_text().get_text() == ""
+    ticks = [(t.get_loc(), t.label1.get_text()) for t in ax.yaxis.get_major_ticks() if t.label1.get_text()]
+    assert len(ticks) >= 3
+    for loc, text in ticks:  # each label reads the tick's position in mm/kN
+        assert float(text.replace("−", "-")) == pytest.approx(1000 * loc, abs=1e-9)
+    explorer.close()

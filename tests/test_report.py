@@ -10,7 +10,7 @@ from pathlib import Path
 import pytest
 
 import ilkit
-from ilkit.views import derivation, write_calculation_sheet
+from ilkit.views import _doc, derivation, write_calculation_sheet
 from ilkit.views.demo import demo_lines, suspended_span_girder, write_demo_sheet
 from ilkit.views.plot import short
 from ilkit.views.report import CAUTION, default_lines, report_section
@@ -59,7 +59,7 @@ def test_sheet_carries_the_caution_inputs_lines_and_derivations(demo_sheet) -> N
         assert "degree of indeterminacy" in text and "32 m (0 to 32 m), 44 m (32 to 76 m)" in text
     for i, line in enumerate(demo_lines(beam), start=1):
         d = derivation(line)
-        assert f"2.{i} {d.title}" in markdown
+        assert f"2.{i} {_doc._md_text(d.title)}" in markdown
         # the derivation's final expression is in the Markdown, as LaTeX
         cases = d.to_markdown().split("$$")[-2].strip()
         assert cases in markdown
@@ -235,3 +235,13 @@ def test_sheet_with_a_line_of_another_beam_is_refused(tmp_path: Path) -> None:
     twin = ilkit.Beam(20, {0: "pin", 20: "roller"}, units="kN-m")
     write_calculation_sheet(beam, tmp_path / "s", lines=[twin.moment(5)],
                             results=[ilkit.extremes(twin.moment(5), lane, beam=twin)])
+
+
+def test_sheet_headings_write_symbols_with_subscripts_not_underscores(demo_sheet) -> None:
+    # regression: the sheet showed "V_h" literally in its headings
+    page = demo_sheet.html.read_text(encoding="utf-8")
+    markdown = demo_sheet.markdown.read_text(encoding="utf-8")
+    heading = "### 2.4 Influence line of the shear through the hinge $V_{h}$ at x = 41 m"
+    assert heading in markdown and "V_h" not in markdown
+    assert "shear through the hinge <i>V</i><sub>h</sub> at x = 41 m</h3>" in page
+    assert "V_h" not in re.sub(r"<math.*?</math>", "", page, flags=re.S)

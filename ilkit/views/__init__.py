@@ -14,6 +14,7 @@ Public names:
   :func:`sketch`: Müller-Breslau sketch (all take ``ax=`` and return it);
 * :func:`derivation` -> :class:`Derivation` (Markdown/LaTeX, text, HTML);
 * :func:`table`, :func:`to_csv`, :func:`to_excel`, :func:`to_latex`;
+  :func:`plain_names`: a table with columns easy to type (``"M_max"``);
 * :func:`write_calculation_sheet` -> :class:`CalculationSheet`;
 * :class:`Explorer` (``beam.explore()``): the interactive explorer;
   :func:`plot_placement`: where the loads of a governing placement stand;
@@ -37,7 +38,7 @@ from ilkit.views.moving import plot_envelope, plot_placement
 from ilkit.views.plot import plot_line
 from ilkit.views.report import CalculationSheet, write_calculation_sheet
 from ilkit.views.sketch import sketch
-from ilkit.views.tables import table, to_csv, to_excel, to_latex
+from ilkit.views.tables import plain_names, table, to_csv, to_excel, to_latex
 
 __all__ = [
     "draw_beam",
@@ -49,6 +50,7 @@ __all__ = [
     "to_csv",
     "to_excel",
     "to_latex",
+    "plain_names",
     "write_calculation_sheet",
     "CalculationSheet",
     "Explorer",

@@ -8,7 +8,7 @@ The numbers are the core's (:func:`ilkit.loads.place`, :func:`ilkit.loads.stand`
   explorer's, :mod:`ilkit.views.loaddraw`), with the ordinate under every
   axle, the loaded stretches and the direction of travel;
 * :func:`plot_envelope`: the largest and smallest bending moment or shear at
-  every section of an envelope (both faces at supports and releases, so
+  every section of an envelope (both sides at supports and releases, so
   jumps show as vertical steps), or the largest and smallest reaction at
   every support.
 """
@@ -104,11 +104,12 @@ def plot_envelope(
             ax.plot(xs, lo, color=style.INK, linewidth=1.0, linestyle=(0, (5, 2)), gid="smallest")
             if kind == "moment":
                 best = envelope.absolute_maximum_moment
-                at = float(best.quantity.at)
-                ax.plot([at], [best.value], "o", color=style.INK, markersize=4, gid="absolute-maximum")
-                ax.annotate(f"absolute maximum {short(best.value)} at x = {short(at, 5)}", xy=(at, best.value),
-                            xytext=(0, 5), textcoords="offset points", ha="center", va="bottom", fontsize=7,
-                            gid="absolute-maximum-words", annotation_clip=False)
+                where = envelope.absolute_maximum_positions or (float(best.quantity.at),)
+                ax.plot(where, [best.value] * len(where), "o", color=style.INK, markersize=4, gid="absolute-maximum")
+                at = " and ".join(short(p, 5) for p in where)
+                ax.annotate(f"absolute maximum {short(best.value)} at x = {at}", xy=(sum(where) / len(where),
+                            best.value), xytext=(0, 5), textcoords="offset points", ha="center", va="bottom",
+                            fontsize=7, gid="absolute-maximum-words", annotation_clip=False)
                 ax.margins(y=0.15)
         length_unit = x_col[x_col.find("[") + 1 : x_col.find("]")] if "[" in x_col else ""
         ax.set_xlabel(f"section x [{length_unit}]" if length_unit else "section x")
@@ -118,7 +119,7 @@ def plot_envelope(
 
 
 def _face_order(table: Any) -> np.ndarray:
-    """Left face before right face at a section that has both (0 left, 1 no side, 2 right)."""
+    """Left side before right side at a section that has both (0 left, 1 no side, 2 right)."""
     if "side" not in table.columns:
         return np.ones(len(table))
     return table["side"].map({"left": 0, "right": 2}).fillna(1).to_numpy(dtype=float)

@@ -270,12 +270,11 @@ def envelope_blocks(envelope: Envelope, number: str = "") -> list[Block]:
     x_col = _column(sections, "x")
     blocks: list[Block] = [
         Heading(f"{number} Envelope of {envelope.model}".strip(), 3),
-        Para((f"Largest and smallest bending moment and shear at {len(sections)} section faces (the ends, every "
-              "support and release, with both faces inside the beam, and equal divisions of every span and "
+        Para((f"Largest and smallest bending moment and shear at {len(sections)} section rows (the ends, every "
+              "support and release, with both sides inside the beam, and equal divisions of every span and "
               f"overhang), and the largest and smallest reaction at every support, under {envelope.model}. "
-              f"Absolute maximum (sagging) moment: {short(best.value, 5)} {best.unit} at x = "
-              f"{short(float(best.quantity.at), 6)}{length} ({best.case}), searched between the sections to "
-              "1e-6 of the beam length.",)),
+              f"Absolute maximum (sagging) moment: {short(best.value, 5)} {best.unit} ({best.case}) at "
+              f"{_positions(envelope, length)}, searched between the sections to 1e-6 of the beam length.",)),
     ]
     for kind, (_, words) in ENVELOPE_KINDS.items():
         blocks.append(figure_block(lambda ax, k=kind: plot_envelope(envelope, k, ax), 2.6,  # type: ignore[misc]
@@ -291,6 +290,16 @@ def envelope_blocks(envelope: Envelope, number: str = "") -> list[Block]:
     ]
     blocks += placement_blocks(best, f"{number}.1" if number else "", envelope.load_model)
     return blocks
+
+
+def _positions(envelope: Envelope, length: str) -> str:
+    """Where the absolute maximum is attained: one section, or each of several with the same value."""
+    at = envelope.absolute_maximum_positions or (float(envelope.absolute_maximum_moment.quantity.at),)
+    words = " and ".join(f"x = {short(p, 6)}{length}" for p in at)
+    if len(at) > 1:
+        words += (" (the same value at each, within rounding: mirror positions of a symmetric girder under a load "
+                  "that travels both ways; the placement below is the one at the first)")
+    return words
 
 
 @report_section.register(Envelope)

@@ -3,7 +3,7 @@ its key ordinates labelled with the values the core computes.
 
 Works for every :class:`~ilkit.InfluenceLine`, exact or numeric, straight or
 curved pieces.  Labels: the ordinate at every breakpoint where it is not zero
-(both faces where the line jumps) and, for curved lines, the largest and
+(both sides where the line jumps) and, for curved lines, the largest and
 smallest ordinates inside pieces.  Every label artist has the gid
 ``"ordinate:<x>:<side>"`` (side ``left``, ``right`` or ``both``).
 """
@@ -68,8 +68,8 @@ def ordinate_axis(ax: Axes, line: InfluenceLine, *, lo: float | None = None, hi:
 def key_ordinates(line: InfluenceLine, *, tol: float = 1e-12) -> list[tuple[float, str, float]]:
     """``(x, side, value)`` of the ordinates worth labelling; side is ``left``, ``right`` or ``both``.
 
-    Breakpoints where the line is not zero (both faces at a jump; only the
-    face on the beam at its ends), and the extremes inside curved pieces
+    Breakpoints where the line is not zero (both sides at a jump; only the
+    side on the beam at its ends), and the extremes inside curved pieces
     (unless a labelled breakpoint is close by).  For a line of a beam's
     analysis, breakpoints that are only changes of ``EI`` are left out (they
     are element ends, not points of the structure).

@@ -105,7 +105,7 @@ def _(line: InfluenceLine, number: str) -> list[Block]:
         Figure(style.figure_svg(fig), f"{number}: the beam displaced by the unit action (Müller-Breslau sketch)",
                f"line-{number.replace('.', '-')}"),
         Table(("key values", ""), tuple(line_facts(line))),
-        Para(("Ordinates at the breakpoints (both faces where the line jumps):",)),
+        Para(("Ordinates at the breakpoints (both sides where the line jumps):",)),
         ordinate_table(line),
         Heading("Derivation", 4),
         *steps,

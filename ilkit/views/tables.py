@@ -37,7 +37,10 @@ from ilkit.views.numbers import NOISE, engineering, line_scale, ordinate_unit
 if TYPE_CHECKING:  # pragma: no cover
     import pandas as pd
 
-__all__ = ["table", "beam_facts", "to_csv", "to_excel", "to_latex", "doc_table", "without_noise", "NOISE"]
+__all__ = [
+    "table", "beam_facts", "to_csv", "to_excel", "to_latex", "doc_table", "without_noise", "NOISE", "plain_name",
+    "plain_names", "ordinate_table",
+]
 
 
 @singledispatch
@@ -139,6 +142,49 @@ def beam_facts(beam: Beam) -> list[tuple[str, str]]:
             for a, b, ei in ranges
         )))
     return facts
+
+
+_PLAIN = str.maketrans({"·": "_", "²": "2", "³": "3", "δ": "delta", "θ": "theta", "η": "eta", "−": "-"})
+
+
+def plain_name(column: object) -> str:
+    """The plain name of a table column: the unit dropped, words joined by ``_`` (``"M max [kip·ft]"`` ->
+    ``"M_max"``, ``"M max case"`` -> ``"M_max_case"``, ``"factored effect [kN]"`` -> ``"factored_effect"``)."""
+    text = str(column)
+    if _unit_of(text):
+        text = text[: text.rfind("[")]
+    words = "".join(c if c.isalnum() or c == "_" else " " for c in text.translate(_PLAIN)).split()
+    return "_".join(words) or "column"
+
+
+def plain_names(obj: object) -> pd.DataFrame:
+    """The table of ``obj`` (a result or a DataFrame) with columns that are easy to type in code.
+
+    The readable names (``"M max [kip·ft]"``) stay in every display and
+    export; this copy has the plain names of :func:`plain_name`
+    (``frame["M_max"]``, or ``frame.M_max``), and keeps the units in
+    ``frame.attrs["units"]`` (``{"M_max": "kip·ft", ...}``).  Where a name
+    and a name with a unit would meet (``"load"``, the load's name, and
+    ``"load [kip]"``, the axle load) the second keeps its unit (``load_kip``);
+    two columns that still meet are refused with :class:`ilkit.ExportError`.
+    """
+    frame = table(obj)
+    names = [plain_name(c) for c in frame.columns]
+    for k, column in enumerate(frame.columns):  # "load" and "load [kip]": the second is "load_kip"
+        if names.count(names[k]) > 1 and _unit_of(column):
+            names[k] = f"{names[k]}_{plain_name(_unit_of(column))}"
+    for k, name in enumerate(names):
+        if name in names[:k]:
+            first = frame.columns[names.index(name)]
+            raise ExportError(
+                f"plain_names: the columns {first!r} and {frame.columns[k]!r} both have the plain name {name!r}; "
+                "rename one of them.",
+                field="columns",
+                value=(first, frame.columns[k]),
+            )
+    out = frame.set_axis(names, axis=1)
+    out.attrs["units"] = {n: _unit_of(c) for n, c in zip(names, frame.columns) if _unit_of(c)}
+    return out
 
 
 def _is_bool(value: Any) -> bool:
