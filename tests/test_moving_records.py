@@ -16,10 +16,10 @@ pytest.importorskip("matplotlib")
 import ilkit
 from ilkit import loads
 from ilkit.views import plot_envelope, plot_placement, table, to_csv, to_latex, write_calculation_sheet
+from ilkit.views._doc import Para
 from ilkit.views.demo import highway_girder, highway_lines
 from ilkit.views.derive import quantity_title
 from ilkit.views.loaddraw import LoadArtists
-from ilkit.views._doc import Para
 from ilkit.views.moving_records import model_blocks, placement_blocks, placement_table
 from ilkit.views.plot import short
 from ilkit.views.report import CAUTION
@@ -57,10 +57,22 @@ def test_placement_plot_draws_the_core_positions_ordinates_and_patches(pier_mome
     # the dots on the line are the counted axles at their ordinates (the two-truck case: six axles)
     (dots,) = gid_artists(ax, "load:dots")
     assert list(dots.get_xdata()) == [a.x for a in counted] and list(dots.get_ydata()) == [a.ordinate for a in counted]
-    # every counted axle's ordinate and load are written, as the core's numbers rounded
-    labels = {t.get_gid(): t.get_text() for t in gid_artists(ax, "axle-ordinate:")}
-    assert sorted(labels.values()) == sorted(short(a.ordinate) for a in counted)
-    loads_written = [t.get_text().split()[0] for t in gid_artists(ax, "load:") if hasattr(t, "get_text")]
+    # the ordinates written are the core's numbers rounded, the largest first; a label that would cover
+    # another is left to the table (regression: near-coincident axles stacked their labels)
+    labels = [t for t in gid_artists(ax, "axle-ordinate:")]
+    written = [t.get_text() for t in labels]
+    assert set(written) <= {short(a.ordinate) for a in counted}
+    assert short(max(counted, key=lambda a: abs(a.ordinate)).ordinate) in written
+    ax.figure.canvas.draw()
+    boxes = [t.get_window_extent() for t in labels]
+    assert not any(a.overlaps(b) for i, a in enumerate(boxes) for b in boxes[i + 1:])
+    # every counted axle's load is written, axles too close for a label each sharing one ("3 × 32 kip")
+    loads_written = []
+    for t in gid_artists(ax, "load:"):
+        if hasattr(t, "get_text"):
+            text = t.get_text().removesuffix(" kip")
+            count, times, load = text.partition(" × ")
+            loads_written += [load] * int(count) if times else text.split(" + ")
     assert sorted(loads_written) == sorted(short(a.load) for a in counted)
     # the lane covers the negative part of the line: one hatched band on the beam per patch
     lane = pier_moment.placements[1]
@@ -82,7 +94,12 @@ def test_axles_that_do_not_count_are_drawn_apart_and_stand_loads_plot_too(girder
     assert [a.counted for a in placed.axles] == [True, False, False]
     ax = plot_placement(placed)
     (idle,) = gid_artists(ax, "load:not-counted-heads")
-    assert list(idle.get_xdata()) == [a.x for a in placed.axles if not a.counted]
+    # off-beam axles within the frame are drawn whole; those beyond it are left out, never drawn cut by the
+    # frame (regression: a train's arrow past the last support was clipped)
+    assert [a.x for a in placed.axles] == [10.0, -4.0, -18.0]
+    assert list(idle.get_xdata()) == [-4.0]
+    lo, _ = ax.get_xlim()
+    assert lo < -4.0
     assert "front at x = 10" in ax.get_title("left") and short(placed.effect, 5) in ax.get_title("left")
     plt.close(ax.figure)
 
@@ -180,6 +197,7 @@ def test_placement_factor_is_written_with_its_parts_where_the_model_is_known(pie
     # 33 % on the trucks times the case factor 0.90 (AASHTO LRFD 3.6.1.3.1 and 3.6.2.1, from memory)
     assert pier_moment.case == "90 % (two design trucks + lane)"
     trucks, lane = pier_moment.placements
+    assert lane.factor == pytest.approx(0.9)
     assert trucks.factor == pytest.approx(1.33 * 0.9)
     shown = placement_table(pier_moment, hl93)
     assert {row[7] for row in shown.rows if row[0].startswith("two design trucks")} == {"1.33 × 0.9"}
@@ -311,3 +329,37 @@ def test_sheet_with_a_load_needs_units_and_skips_deflections(tmp_path: Path, hl9
     found = loads.place(beam.moment(10), loads.lm1(), "max")
     assert found.value == pytest.approx(4170.0, rel=1e-12)
     assert f"| total |  |  |  |  |  |  |  | {short(found.value, 5)} |" in markdown
+
+
+def test_placement_labels_of_near_coincident_axles_are_one_label_not_a_stack(girder) -> None:
+    import matplotlib.pyplot as plt
+
+    # the tandem's two axles 4 ft apart on a 295 ft girder (regression: their labels stacked, 16.94 over 18.72)
+    found = loads.place(girder.moment(36), loads.design_tandem(), "max", beam=girder)
+    ax = plot_placement(found)
+    assert [t.get_text() for t in gid_artists(ax, "load:") if hasattr(t, "get_text")] == ["2 × 25 kip"]
+    largest = max(found.placements[0].axles, key=lambda a: abs(a.ordinate))
+    assert [t.get_text() for t in gid_artists(ax, "axle-ordinate:")] == [short(largest.ordinate)]
+    plt.close(ax.figure)
+
+
+def test_cooper_placement_draws_no_cut_arrow_and_labels_every_loaded_stretch() -> None:
+    import matplotlib.pyplot as plt
+
+    from ilkit.views.loaddraw import PATCH_TOP
+
+    rail = ilkit.Beam(24, {0: "pin", 24: "roller"}, units="kN-m")
+    found = loads.place(rail.moment(12), loads.cooper(80))
+    ax = plot_placement(found)
+    lo, hi = ax.get_xlim()
+    for gid in ("load:not-counted-heads", "load:heads"):
+        (heads,) = gid_artists(ax, gid)
+        assert all(lo < x < hi for x in heads.get_xdata())  # regression: an arrow past the support was cut
+    # the trailing uniform load's stretch is short: its label stands above it (regression: no room, no label)
+    stretches = [s for p in found.placements for s in p.patches]
+    assert stretches and len([t for t in gid_artists(ax, "patch:")]) == len(stretches)
+    # load labels stand above the hatching of a loaded stretch (regression: drawn over it)
+    for t in gid_artists(ax, "load:"):
+        if hasattr(t, "get_text"):
+            assert t.xy[1] >= PATCH_TOP
+    plt.close(ax.figure)

@@ -24,13 +24,12 @@ from ilkit.errors import UnsupportedResultError
 from ilkit.loads.results import Extreme, LoadPlacement, effect_unit
 from ilkit.views import style
 from ilkit.views.derive import quantity_title
-from ilkit.views.loaddraw import ARROW_BASE, LoadArtists, Loading, arrow_tip
+from ilkit.views.loaddraw import ARROW_BASE, PATCH_TOP, LoadArtists, Loading, arrow_tip
 from ilkit.views.numbers import ordinate_unit
 from ilkit.views.plot import (
     LABEL_BOX,
     breakpoint_ticks,
     draw_line,
-    free_offsets,
     ordinate_axis,
     points_per_unit,
     short,
@@ -175,7 +174,7 @@ def plot_placement(
     """
     line = _line_of(result)
     placements = result.placements if isinstance(result, Extreme) else (result,)
-    loading = Loading.of(placements)
+    loading = _in_view(Loading.of(placements), line.length)
     beam: Beam | None = getattr(line.origin, "beam", None)
     units = line.units
     length = line.length
@@ -237,37 +236,83 @@ def _draw_beam(strip: Axes, beam: Beam | None, length: float) -> None:
         strip.plot([0, length], [0, 0], color=style.INK, linewidth=2.6, solid_capstyle="butt", gid="beam")
 
 
+def _in_view(loading: Loading, length: float) -> Loading:
+    """The loading as a still figure shows it: axles (off the beam, not counted) beyond the drawn margin are
+    left out rather than drawn cut by the frame; loaded stretches end at the beam's ends."""
+    from dataclasses import replace
+
+    margin = 0.02 * length
+    axles = tuple(a for a in loading.axles if -margin <= a.x <= length + margin)
+    patches = tuple((max(s, 0.0), min(e, length), q) for s, e, q in loading.patches if e > 0 and s < length)
+    return replace(loading, axles=axles, patches=patches)
+
+
+def _clusters(xs: list[float], widths: list[float], per_unit: float) -> list[list[int]]:
+    """Runs of consecutive labels (by position) that would touch: closer than half their widths."""
+    groups: list[list[int]] = []
+    for k, x in enumerate(xs):
+        if groups and (x - xs[groups[-1][-1]]) * per_unit < (widths[k] + widths[groups[-1][-1]]) / 2 + 2:
+            groups[-1].append(k)
+        else:
+            groups.append([k])
+    return groups
+
+
 def _label_axles(strip: Axes, ax: Axes, loading: Loading, force: str, factor: float) -> None:
-    """The load above every counted axle's arrow and the ordinate under it on the line
-    (labels that would overlap are moved out)."""
+    """The loads above the arrows and the ordinate under every counted axle on the line.
+
+    Axles too close for a label each share one: ``4 × 355.9 kN`` for equal
+    loads, ``25 + 32 kip`` otherwise.  An ordinate whose label would cover
+    another is left to the table (the largest ordinates are labelled first);
+    labels are never stacked.  Load labels stand above the hatching of a
+    loaded stretch.
+    """
     counted = sorted((a for a in loading.axles if a.counted), key=lambda a: a.x)
+    if not counted:
+        return
     heaviest = max((a.load for a in loading.axles), default=1.0)
     unit = f" {force}" if force else ""
-    loads = [short(a.load) + (unit if k == 0 else "") for k, a in enumerate(counted)]
-    ordinates = [short(a.ordinate * factor) for a in counted]
-    tips = [(a.x, arrow_tip(a.load, heaviest)) for a in counted]
-    lifts = free_offsets(strip, tips, [text_width(t, 6.5) for t in loads], [True] * len(counted), first=5.0)
-    drops = free_offsets(ax, [(a.x, a.ordinate) for a in counted], [text_width(t, 7.0) + 1 for t in ordinates],
-                         [a.ordinate >= 0 for a in counted], first=5.0)
-    for k, a in enumerate(counted):
-        strip.annotate(loads[k], xy=tips[k], xytext=(0, lifts[k] - 3), textcoords="offset points", ha="center",
-                       va="bottom", fontsize=6.5, gid=f"load:{fmt(a.x)}", annotation_clip=False, bbox=LABEL_BOX)
-        ax.annotate(ordinates[k], xy=(a.x, a.ordinate), xytext=(0, drops[k]), textcoords="offset points",
-                    ha="center", va="bottom" if drops[k] > 0 else "top", fontsize=7,
-                    gid=f"axle-ordinate:{fmt(a.x)}", annotation_clip=False, bbox=LABEL_BOX)
+    per_unit = points_per_unit(ax)
+    hatch_top = PATCH_TOP if loading.patches else 0.0
+    widths = [text_width(short(a.load), 6.5) for a in counted]
+    for group in _clusters([a.x for a in counted], widths, per_unit):
+        members = [counted[k] for k in group]
+        loads = [short(a.load) for a in members]
+        text = f"{len(loads)} × {loads[0]}" if len(set(loads)) == 1 and len(loads) > 1 else " + ".join(loads)
+        top = max(max(arrow_tip(a.load, heaviest) for a in members), hatch_top)
+        x = (members[0].x + members[-1].x) / 2
+        strip.annotate(text + unit, xy=(x, top), xytext=(0, 2), textcoords="offset points", ha="center",
+                       va="bottom", fontsize=6.5, gid=f"load:{fmt(members[0].x)}", annotation_clip=False,
+                       bbox=LABEL_BOX)
+    placed: list[tuple[float, float, float, float]] = []
+    to_points = 72.0 / ax.figure.dpi
+    for a in sorted(counted, key=lambda a: -abs(a.ordinate)):
+        text = short(a.ordinate * factor)
+        px, py = (v * to_points for v in ax.transData.transform((a.x, a.ordinate)))
+        width, height, up = text_width(text, 7.0) + 1, 8.0, a.ordinate >= 0
+        box = (px - width / 2, px + width / 2, py + 5 if up else py - 5 - height, py + 5 + height if up else py - 5)
+        if any(not (box[1] <= b[0] or box[0] >= b[1] or box[3] <= b[2] or box[2] >= b[3]) for b in placed):
+            continue  # no room: the table gives it
+        placed.append(box)
+        ax.annotate(text, xy=(a.x, a.ordinate), xytext=(0, 5 if up else -5), textcoords="offset points",
+                    ha="center", va="bottom" if up else "top", fontsize=7, gid=f"axle-ordinate:{fmt(a.x)}",
+                    annotation_clip=False, bbox=LABEL_BOX)
 
 
 def _label_patches(strip: Axes, loading: Loading, points: float, line_load: str) -> None:
-    """The intensity of each loaded stretch, inside its band where no counted axle crosses it."""
+    """The intensity of each loaded stretch: inside its band where no counted axle crosses it, or above a
+    stretch too short to carry it."""
     unit = f" {line_load}" if line_load else ""
     axles = [a.x for a in loading.axles if a.counted]
     for s, e, q in loading.patches:
         text = f"{short(q)}{unit}"
         half = (text_width(text, 6.5) + 4) / 2 / points
-        lo, hi = max(s, 0.0), e
-        if hi - lo < 2 * half:
-            continue  # too short to carry its label; the table gives it
-        spots = np.linspace(lo + half, hi - half, 9)
+        if e - s < 2 * half:
+            strip.annotate(text, xy=((s + e) / 2, PATCH_TOP), xytext=(0, 2), textcoords="offset points",
+                           ha="center", va="bottom", fontsize=6.5, gid=f"patch:{fmt(s)}", annotation_clip=False,
+                           bbox=LABEL_BOX)
+            continue
+        spots = np.linspace(s + half, e - half, 9)
         x = max(spots, key=lambda c: min((abs(c - a) for a in axles), default=np.inf))
         strip.annotate(text, xy=(float(x), ARROW_BASE + 0.15), ha="center", va="center", fontsize=6.5,
                        gid=f"patch:{fmt(s)}", annotation_clip=False, bbox=LABEL_BOX)

@@ -32,14 +32,14 @@ from ilkit.influence import InfluenceLine
 from ilkit.model import Beam, Support
 from ilkit.views import _doc
 from ilkit.views._args import path_of
-from ilkit.views.numbers import NOISE, engineering, line_scale, ordinate_unit
+from ilkit.views.numbers import NOISE, area_unit, clean, engineering, line_scale, ordinate_unit
 
 if TYPE_CHECKING:  # pragma: no cover
     import pandas as pd
 
 __all__ = [
     "table", "beam_facts", "to_csv", "to_excel", "to_latex", "doc_table", "without_noise", "NOISE", "plain_name",
-    "plain_names", "ordinate_table",
+    "plain_names", "ordinate_table", "summary",
 ]
 
 
@@ -142,6 +142,58 @@ def beam_facts(beam: Beam) -> list[tuple[str, str]]:
             for a, b, ei in ranges
         )))
     return facts
+
+
+def summary(lines: Mapping[str, InfluenceLine] | Iterable[InfluenceLine]) -> pd.DataFrame:
+    """Key values of several influence lines, one row each: largest and smallest (most negative) ordinate
+    with their positions, positive and negative areas, and the units of each.
+
+    ``lines``: a mapping ``{name: line}`` (the names index the rows) or a list
+    of lines (indexed by their labels, ``"M at x=32"``).  Ordinates and areas
+    are in the units of the plots (a deflection in mm or in per unit force;
+    :mod:`ilkit.views.numbers`), rounding noise shown as 0; each row says its
+    units, since the lines may be of different quantities.  All lines must
+    share one length unit.
+    """
+    import pandas as pd
+
+    from ilkit._check import listed
+    from ilkit.views._args import expect
+
+    given = list(lines.items()) if isinstance(lines, Mapping) else [(None, v) for v in listed(
+        lines, wanted="summary: give a list of influence lines or a mapping {name: line}", field="lines",
+        ordered=False)]
+    items = []
+    for name, line in given:
+        expect(line, InfluenceLine, what="summary: lines", hint="give influence lines, e.g. beam.moment(12)")
+        items.append((str(name) if name is not None else line.quantity.label, line))
+    lengths = {line.units.length if line.units else "" for _, line in items}
+    if len(lengths) > 1:
+        raise ExportError(
+            f"summary: the lines are in different length units ({', '.join(sorted(repr(u) for u in lengths))}); "
+            "convert the beams to one system first (beam.in_units(...)).",
+            field="lines",
+        )
+    at = f" [{lengths.pop()}]" if lengths and next(iter(lengths), "") else ""
+    rows = []
+    for _, line in items:
+        factor, unit = ordinate_unit(line)
+        scale = line_scale(line)
+
+        def shown(value: float, size: float = scale, f: float = factor) -> float:
+            return clean(value, size) * f
+
+        rows.append({
+            "largest": shown(line.maximum.value),
+            f"x of largest{at}": line.maximum.x,
+            "smallest (most negative)": shown(line.minimum.value),
+            f"x of smallest{at}": line.minimum.x,
+            "positive area": shown(line.positive_area, scale * line.length),
+            "negative area": shown(line.negative_area, scale * line.length),
+            "ordinate unit": unit,
+            "area unit": area_unit(line),
+        })
+    return pd.DataFrame(rows, index=pd.Index([name for name, _ in items], name="quantity"))
 
 
 _PLAIN = str.maketrans({"·": "_", "²": "2", "³": "3", "δ": "delta", "θ": "theta", "η": "eta", "−": "-"})
