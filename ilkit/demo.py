@@ -20,12 +20,6 @@ import sys
 from pathlib import Path
 from typing import Any
 
-CAUTION = (
-    "These results come from an aid to calculation. They must be checked by a qualified "
-    "engineer; the local design codes, the licensed current editions of the standards and "
-    "licensed professional practice govern."
-)
-
 
 def _notebooks_folder() -> Path:
     here = Path(__file__).resolve().parent.parent / "notebooks"
@@ -47,6 +41,7 @@ def run(out: Path, notebooks: Path | None = None) -> Path:
         ) from err
 
     from ilkit._files import make_folder, write_file, write_files
+    from ilkit.views.caution import CAUTION
 
     source = notebooks or _notebooks_folder()
     make_folder(out, "demo")  # the notebooks run in it

@@ -44,16 +44,25 @@ def test_unknown_object_has_no_table() -> None:
 def test_csv_round_trip_is_exact(tmp_path) -> None:
     line = girder().shear(18)
     path = to_csv(line, tmp_path / "v18.csv")
-    back = pd.read_csv(path, encoding="utf-8")
+    back = pd.read_csv(path, encoding="utf-8", skiprows=1)
     pd.testing.assert_frame_equal(back, table(line))  # floats written in full precision
-    assert path.read_text(encoding="utf-8").splitlines()[0] == "x [m],left [kN/kN],right [kN/kN]"
+    first, header = path.read_text(encoding="utf-8").splitlines()[:2]
+    assert header == "x [m],left [kN/kN],right [kN/kN]"
+    assert first.startswith("# Caution: ") and "qualified engineer" in first  # the caution heads the file
+    plain = to_csv(line, tmp_path / "plain.csv", caution=False)
+    pd.testing.assert_frame_equal(pd.read_csv(plain), table(line))
 
 
 def test_excel_round_trip_with_several_sheets(tmp_path) -> None:
     beam = girder()
     path = to_excel({"M at 5 m": beam.moment(5), "V at 18/left?": beam.shear(18), "beam": beam}, tmp_path / "g.xlsx")
     sheets = pd.read_excel(path, sheet_name=None)
-    assert list(sheets) == ["M at 5 m", "V at 18_left_", "beam"]
+    assert list(sheets) == ["M at 5 m", "V at 18_left_", "beam", "caution"]
+    assert "qualified engineer" in sheets["caution"].iloc[0, 0]  # the workbook carries the caution
+    plain = to_excel({"beam": beam}, tmp_path / "plain.xlsx", caution=False)
+    assert list(pd.read_excel(plain, sheet_name=None)) == ["beam"]
+    with pytest.raises(ilkit.ExportError, match="'caution' and 'caution' both become the sheet"):
+        to_excel({"caution": beam}, tmp_path / "clash.xlsx")
     pd.testing.assert_frame_equal(sheets["M at 5 m"], table(beam.moment(5)), check_dtype=False)
     pd.testing.assert_frame_equal(sheets["beam"], table(beam), check_dtype=False)
 
@@ -69,8 +78,12 @@ def test_latex_table_numbers_are_the_core_values(tmp_path) -> None:
     line = girder().shear(18)
     text = to_latex(line, tmp_path / "v18.tex", caption="Shear at x = 18 m", label="tab:v18")
     assert (tmp_path / "v18.tex").read_text(encoding="utf-8") == text
-    lines = text.splitlines()
+    caution, *lines = text.splitlines()
+    assert caution.startswith("% Caution: ") and "qualified engineer" in caution
     assert lines[:4] == [r"\begin{table}[htbp]", r"\centering", r"\begin{tabular}{rrr}", r"\toprule"]
+    note = lines[lines.index(r"\bottomrule") + 1]
+    assert note.startswith(r"\multicolumn{3}{@{}l}{\footnotesize\itshape Results to be checked by a qualified")
+    assert "Caution" not in to_latex(line, caution=False) and "qualified" not in to_latex(line, caution=False)
     assert lines[4] == r"x [m] & left [kN/kN] & right [kN/kN] \\"
     body = lines[lines.index(r"\midrule") + 1: lines.index(r"\bottomrule")]
     cells = [[c.strip().strip("$") for c in re.sub(r"\\\\$", "", row).split("&")] for row in body]
@@ -145,7 +158,7 @@ def test_failing_to_excel_leaves_an_existing_workbook_untouched(tmp_path, monkey
     with pytest.raises(RuntimeError, match="disk trouble"):
         to_excel({"M": beam.moment(5), "V": beam.shear(18)}, path)
     assert _files(tmp_path) == before
-    assert list(pd.read_excel(path, sheet_name=None)) == ["beam"]
+    assert list(pd.read_excel(path, sheet_name=None)) == ["beam", "caution"]
 
 
 def test_to_excel_of_an_empty_mapping_is_refused_and_writes_nothing(tmp_path) -> None:
@@ -240,7 +253,7 @@ def test_export_keeps_the_permissions_of_the_file_it_replaces(tmp_path) -> None:
     path.chmod(0o640)
     to_csv(girder().shear(18), path)
     assert path.stat().st_mode & 0o777 == 0o640
-    assert path.read_text(encoding="utf-8").startswith("x [m],left [kN/kN]")
+    assert path.read_text(encoding="utf-8").splitlines()[1].startswith("x [m],left [kN/kN]")
 
 
 def test_export_through_a_link_writes_the_file_it_names(tmp_path) -> None:
@@ -249,4 +262,4 @@ def test_export_through_a_link_writes_the_file_it_names(tmp_path) -> None:
     (tmp_path / "link.csv").symlink_to(target)
     to_csv(girder().moment(5), tmp_path / "link.csv")
     assert (tmp_path / "link.csv").is_symlink()
-    assert target.read_text(encoding="utf-8").startswith("x [m]")
+    assert target.read_text(encoding="utf-8").splitlines()[1].startswith("x [m]")

@@ -152,7 +152,7 @@ def test_tables_are_the_core_frames_and_export(girder, hl93, pier_moment, tmp_pa
     assert "x [ft]" in frame.columns and "effect [kip·ft]" in frame.columns
     assert frame["effect [kip·ft]"].sum() == pytest.approx(placed.effect)
     # CSV keeps full precision; LaTeX leaves missing cells empty
-    back = pd.read_csv(to_csv(pier_moment, tmp_path / "pier.csv"))
+    back = pd.read_csv(to_csv(pier_moment, tmp_path / "pier.csv"), skiprows=1)  # the first line: the caution
     assert back["factored effect [kip·ft]"].sum() == pytest.approx(pier_moment.value, rel=1e-12)
     latex = to_latex(pier_moment)
     assert "nan" not in latex and r"factored effect [kip\ensuremath{\cdot}ft]" in latex
@@ -167,7 +167,7 @@ def test_excel_export_of_placements_and_envelopes(girder, hl93, pier_moment, tmp
     env = loads.envelope(girder, hl93, divisions=4)
     path = to_excel({"pier moment": pier_moment, "sections": env, "reactions": env.reactions}, tmp_path / "r.xlsx")
     sheets = pd.read_excel(path, sheet_name=None)
-    assert list(sheets) == ["pier moment", "sections", "reactions"]
+    assert list(sheets) == ["pier moment", "sections", "reactions", "caution"]
     assert sheets["sections"]["M min [kip·ft]"].min() == pytest.approx(env.sections["M min [kip·ft]"].min())
 
 
@@ -363,3 +363,13 @@ def test_cooper_placement_draws_no_cut_arrow_and_labels_every_loaded_stretch() -
         if hasattr(t, "get_text"):
             assert t.xy[1] >= PATCH_TOP
     plt.close(ax.figure)
+
+
+def test_notebook_displays_of_placements_and_envelopes_carry_the_caution(girder, hl93, pier_moment) -> None:
+    # regression: the caution was in the sheets only, not where results are used in a notebook
+    from ilkit.views.caution import CAUTION_SHORT
+
+    env = loads.envelope(girder, hl93, divisions=2)
+    placed = ilkit.stand(girder.moment(36), loads.design_truck(), 60.0)
+    for result in (pier_moment, loads.extremes(girder.moment(36), hl93, beam=girder), env, placed):
+        assert CAUTION_SHORT in DisplayFormatter().format(result)[0]["text/html"], type(result).__name__

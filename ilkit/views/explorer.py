@@ -42,11 +42,11 @@ from ilkit._exact import fmt, to_exact
 from ilkit.errors import IlkitError, LoadInputError, SideRequiredError
 from ilkit.quantity import KINDS
 from ilkit.views._explorer_figure import ExplorerFigure
+from ilkit.views.caution import CAUTION_SHORT
 from ilkit.views.derive import quantity_title
 from ilkit.views.livefigure import Backend, Coalescer, _require
 from ilkit.views.loaddraw import Axle, Loading
 from ilkit.views.numbers import effect_display, ordinate_unit
-from ilkit.views.report import CAUTION
 
 if TYPE_CHECKING:  # pragma: no cover
     from ilkit.influence import InfluenceLine
@@ -203,7 +203,7 @@ class Explorer:
         self.readout = w.HTML()
         self.message = w.HTML()
         self.caution = w.HTML(
-            f"<div style='color:#5a5a5a; font-size:0.85em'>{html.escape(CAUTION)}</div>"
+            f"<div style='color:#5a5a5a; font-size:0.85em'>{html.escape(CAUTION_SHORT)}</div>"
         )
         for name in ("quantity", "location", "side", "load", "direction", "slider", "position", "largest",
                      "smallest", "envelope", "model", "readout", "message", "caution"):  # fmt: skip

@@ -20,6 +20,7 @@ so they cannot disagree.  Every number is the core's, rounded for reading
 
 from __future__ import annotations
 
+import html
 import math
 from collections.abc import Callable
 from typing import TYPE_CHECKING, Any
@@ -32,6 +33,7 @@ from ilkit.loads.primitives import AxleTrain, KnifeEdge, Load, UniformBlocks, Un
 from ilkit.loads.results import Extreme, Extremes, LoadPlacement
 from ilkit.views import _doc, style
 from ilkit.views._doc import Block, Figure, Heading, Para, Table
+from ilkit.views.caution import CAUTION_SHORT
 from ilkit.views.display import mimebundle
 from ilkit.views.moving import ENVELOPE_KINDS, placement_title, plot_envelope, plot_placement
 from ilkit.views.numbers import area_unit, ordinate_unit, short
@@ -397,9 +399,10 @@ def _(model: LoadModel, number: str) -> list[Block]:
 def _html(blocks: list[Block]) -> dict[str, Any]:
     from ilkit.views.display import _CSS
 
-    # the sheet's level-3 headings are the display's title
+    # the sheet's level-3 headings are the display's title; the caution closes every display
     body = _doc.to_html([Heading(b.text, 4) if isinstance(b, Heading) and b.level == 3 else b for b in blocks])
-    return {"text/html": f'{_CSS}<div class="ilkit-view">{body}</div>'}
+    caution = f'<p class="note">{html.escape(CAUTION_SHORT)}</p>'
+    return {"text/html": f'{_CSS}<div class="ilkit-view">{body}{caution}</div>'}
 
 
 @mimebundle.register(Extreme)

@@ -36,20 +36,13 @@ from ilkit.quantity import KINDS
 from ilkit.stiffness import UnitShape
 from ilkit.views import _doc, style
 from ilkit.views._doc import Block, Callout, Figure, Heading, Para, Table
+from ilkit.views.caution import CAUTION
 from ilkit.views.derive import SIGN_CONVENTIONS, derivation, quantity_title
 from ilkit.views.display import beam_figure, line_facts, line_figure
 from ilkit.views.numbers import clean, effect_scale, short
 from ilkit.views.tables import beam_facts, ordinate_table
 
 __all__ = ["CAUTION", "CalculationSheet", "write_calculation_sheet", "sheet_blocks", "report_section", "default_lines"]
-
-CAUTION = (
-    "These results were produced by software as an aid to calculation. They must be checked by a qualified "
-    "engineer, who is responsible for their use; the governing design codes, the licensed current editions "
-    "of the standards and licensed professional practice take precedence over anything in this sheet."
-)
-"""The caution every calculation sheet carries, at its start and at its end."""
-
 
 _METHODS = {
     "Mechanism": "Statically determinate beams: the Müller-Breslau principle (virtual work on the beam with the "

@@ -25,6 +25,7 @@ from functools import singledispatch
 from pathlib import Path
 from typing import TYPE_CHECKING, Any
 
+from ilkit._check import flag
 from ilkit._exact import fmt
 from ilkit._files import write_file
 from ilkit.errors import ExportError, MissingDependencyError, UnsupportedResultError
@@ -32,6 +33,7 @@ from ilkit.influence import InfluenceLine
 from ilkit.model import Beam, Support
 from ilkit.views import _doc
 from ilkit.views._args import path_of
+from ilkit.views.caution import CAUTION, CAUTION_SHORT
 from ilkit.views.numbers import NOISE, area_unit, clean, engineering, line_scale, ordinate_unit
 
 if TYPE_CHECKING:  # pragma: no cover
@@ -316,15 +318,20 @@ def ordinate_table(line: InfluenceLine, digits: int = 4) -> _doc.Table:
     return doc_table(table(line), digits, scale=line_scale(line) * factor)
 
 
-def to_csv(obj: object, path: str | Path) -> Path:
+def to_csv(obj: object, path: str | Path, *, caution: bool = True) -> Path:
     """Write the table of ``obj`` as CSV (UTF-8, full precision, no index); returns the path.
 
-    The file is written whole or not at all (an existing file is left as it
-    was when the write fails); missing folders are created; file-system
-    faults raise :class:`ilkit.WriteError`.
+    The first line is the caution that results must be checked by a
+    qualified engineer (``# ...``; read the table back with
+    ``pd.read_csv(path, skiprows=1)``); ``caution=False`` leaves it out, for
+    a file that another program reads.  The file is written whole or not at
+    all (an existing file is left as it was when the write fails); missing
+    folders are created; file-system faults raise :class:`ilkit.WriteError`.
     """
     path = path_of(path, what="to_csv")
-    return write_file(path, table(obj).to_csv(index=False), what="to_csv")
+    caution = flag(caution, what="to_csv: caution", field="caution")
+    head = f"# Caution: {CAUTION}\n" if caution else ""
+    return write_file(path, head + table(obj).to_csv(index=False, lineterminator="\n"), what="to_csv")
 
 
 _SHEET_FORBIDDEN = str.maketrans({c: "_" for c in "[]:*?/\\"})
@@ -365,16 +372,23 @@ def _sheet_names(names: Iterable[object]) -> list[str]:
     return out
 
 
-def to_excel(obj: object, path: str | Path) -> Path:
+CAUTION_SHEET = "caution"
+"""The sheet of a workbook written by :func:`to_excel` that holds the caution (the last one)."""
+
+
+def to_excel(obj: object, path: str | Path, *, caution: bool = True) -> Path:
     """Write ``obj`` to an Excel workbook; returns the path.
 
     ``obj`` is a result, a DataFrame, or a mapping ``{sheet name: result}``
     for several sheets.  Sheet names have ``[]:*?/\\`` replaced by ``_`` and
     are cut to Excel's 31 characters; two names that would give the same
     sheet (Excel ignores case) are refused with :class:`ilkit.ExportError`
-    naming both, never dropped.  The workbook is written whole or not at all (an
-    existing file is left as it was when anything fails); missing folders are
-    created; file-system faults raise :class:`ilkit.WriteError`.  Needs
+    naming both, never dropped.  A last sheet, ``caution``, says that the
+    results must be checked by a qualified engineer (``caution=False`` leaves
+    it out; a sheet of your own named ``caution`` is then allowed).  The
+    workbook is written whole or not at all (an existing file is left as it
+    was when anything fails); missing folders are created; file-system
+    faults raise :class:`ilkit.WriteError`.  Needs
     openpyxl: without it :class:`ilkit.MissingDependencyError` names
     ``pip install openpyxl``.
     """
@@ -396,11 +410,15 @@ def to_excel(obj: object, path: str | Path) -> Path:
             field="sheets",
             value=obj,
         )
-    frames = dict(zip(_sheet_names(sheets), (table(item) for item in sheets.values())))
+    caution = flag(caution, what="to_excel: caution", field="caution")
+    names = [*sheets, CAUTION_SHEET] if caution else list(sheets)
+    frames = dict(zip(_sheet_names(names), (table(item) for item in sheets.values())))
     buffer = io.BytesIO()
     with pd.ExcelWriter(buffer, engine="openpyxl") as writer:
         for name, frame in frames.items():
             frame.to_excel(writer, sheet_name=name, index=False)
+        if caution:
+            pd.DataFrame({"caution": [CAUTION]}).to_excel(writer, sheet_name=CAUTION_SHEET, index=False)
     return write_file(path, buffer.getvalue(), what="to_excel")
 
 
@@ -431,19 +449,24 @@ _FROM_SUPERSCRIPT = str.maketrans("⁻⁰¹²³⁴⁵⁶⁷⁸⁹", "-0123456789
 
 def to_latex(
     obj: object, path: str | Path | None = None, *, digits: int = 4, caption: str | None = None,
-    label: str | None = None,
+    label: str | None = None, caution: bool = True,
 ) -> str:
     """The table of ``obj`` as a LaTeX ``tabular`` with booktabs rules; also written to ``path`` if given.
 
     Numbers have ``digits`` significant figures and are set in math mode (so
     the minus sign is a proper minus).  With ``caption`` or ``label`` the
     tabular is wrapped in a ``table`` float.  Needs ``\\usepackage{booktabs}``.
+    The caution that results must be checked by a qualified engineer is a
+    comment at the top and a note under the table (``caution=False`` leaves
+    both out).
     The file is written whole or not at all (see :func:`to_csv`).
     """
     from ilkit._check import whole
 
     digits = whole(digits, what="to_latex: digits", field="digits", minimum=1, maximum=17)
+    caution = flag(caution, what="to_latex: caution", field="caution")
     frame = table(obj)
+    note = [rf"\multicolumn{{{len(frame.columns)}}}{{@{{}}l}}{{\footnotesize\itshape {_latex_text(CAUTION_SHORT)}}} \\"]
     lines = [
         rf"\begin{{tabular}}{{{_align(frame)}}}",
         r"\toprule",
@@ -451,6 +474,7 @@ def to_latex(
         r"\midrule",
         *(" & ".join(_latex_cell(v, digits) for v in row) + r" \\" for row in frame.itertuples(index=False)),
         r"\bottomrule",
+        *(note if caution else []),
         r"\end{tabular}",
     ]
     if caption is not None or label is not None:
@@ -458,7 +482,8 @@ def to_latex(
             [rf"\label{{{label}}}"] if label is not None else []
         )
         lines = [r"\begin{table}[htbp]", r"\centering", *lines, *extra, r"\end{table}"]
-    text = "\n".join(lines) + "\n"
+    head = f"% Caution: {CAUTION}\n" if caution else ""
+    text = head + "\n".join(lines) + "\n"
     if path is not None:
         write_file(path_of(path, what="to_latex"), text, what="to_latex")
     return text
