@@ -245,3 +245,39 @@ def test_sheet_headings_write_symbols_with_subscripts_not_underscores(demo_sheet
     assert heading in markdown and "V_h" not in markdown
     assert "shear through the hinge <i>V</i><sub>h</sub> at x = 41 m</h3>" in page
     assert "V_h" not in re.sub(r"<math.*?</math>", "", page, flags=re.S)
+
+
+def test_sheet_title_block_and_printed_page_numbers(tmp_path: Path) -> None:
+    # regression: the sheet had no title block (project, structure, girder, prepared by, checked by, date,
+    # revision) and no page numbers in print
+    from ilkit.views import TitleBlock
+
+    beam = ilkit.Beam(20, {0: "pin", 20: "roller"}, units="kN-m")
+    sheet = write_calculation_sheet(
+        beam, tmp_path / "s", lines=[beam.moment(5)], title="Footbridge girder",
+        title_block={"project": "Mill Lane footbridge", "Prepared_by": "A. Engineer", "revision": "B"},
+    )
+    markdown = sheet.markdown.read_text(encoding="utf-8")
+    page = sheet.html.read_text(encoding="utf-8")
+    assert "| project | Mill Lane footbridge | revision | B |" in markdown
+    assert "| girder |  | prepared by | A. Engineer |" in markdown  # a field not given: an empty box
+    assert "| calculation | Footbridge girder | checked by |  |" in markdown
+    assert '<table class="title-block">' in page and "<td style=\"text-align:left\">Mill Lane footbridge</td>" in page
+    assert 'content: "page " counter(page) " of " counter(pages)' in page
+    assert 'content: "Footbridge girder · Mill Lane footbridge · revision B"' in page
+    # a footer with quotes or markup stays a CSS string
+    quoted = write_calculation_sheet(beam, tmp_path / "q", lines=[], title='The "</style>" girder')
+    assert "</style>\" girder" not in quoted.html.read_text(encoding="utf-8")
+    with pytest.raises(ilkit.BeamInputError, match="title_block has no field 'engineer'; the fields are 'project'"):
+        write_calculation_sheet(beam, tmp_path / "x", title_block={"engineer": "me"})
+    with pytest.raises(ilkit.BeamInputError, match="TitleBlock: date must be text"):
+        TitleBlock(date=2025)
+    with pytest.raises(ilkit.BeamInputError, match="title_block must be a TitleBlock or a mapping"):
+        write_calculation_sheet(beam, tmp_path / "x", title_block="Mill Lane")
+    assert not (tmp_path / "x.html").exists()
+
+
+def test_demo_sheets_show_the_title_block_filled_in(demo_sheet) -> None:
+    markdown = demo_sheet.markdown.read_text(encoding="utf-8")
+    assert "| project | ilkit demo study (invented data) | revision | A |" in markdown
+    assert "| girder | Main girder, spans 32 + 44 + 32 m | prepared by | ilkit demo |" in markdown

@@ -17,7 +17,8 @@ Public names:
   :func:`plain_names`: a table with columns easy to type (``"M_max"``);
   :func:`summary`: key values of several lines, with units;
 * :func:`formula`: a line's formula for reading (decimals, no repeated pieces);
-* :func:`write_calculation_sheet` -> :class:`CalculationSheet`;
+* :func:`write_calculation_sheet` -> :class:`CalculationSheet`, with a
+  :class:`TitleBlock`;
 * :class:`Explorer` (``beam.explore()``): the interactive explorer;
   :func:`plot_placement`: where the loads of a governing placement stand;
   :func:`plot_envelope`: envelopes of moving loads.
@@ -39,7 +40,7 @@ from ilkit.views.explorer import Explorer
 from ilkit.views.formula import formula
 from ilkit.views.moving import plot_envelope, plot_placement
 from ilkit.views.plot import plot_line
-from ilkit.views.report import CalculationSheet, write_calculation_sheet
+from ilkit.views.report import CalculationSheet, TitleBlock, write_calculation_sheet
 from ilkit.views.sketch import sketch
 from ilkit.views.tables import plain_names, summary, table, to_csv, to_excel, to_latex
 
@@ -58,6 +59,7 @@ __all__ = [
     "formula",
     "write_calculation_sheet",
     "CalculationSheet",
+    "TitleBlock",
     "Explorer",
     "plot_envelope",
     "plot_placement",

@@ -220,6 +220,7 @@ class Table:
     header: tuple[Inline, ...]
     rows: tuple[tuple[Inline, ...], ...]
     align: str = ""  # one of "l", "r", "c" per column; left by default
+    css: str = ""  # a class for the HTML table (e.g. "title-block")
 
 
 @dataclass(frozen=True)
@@ -388,7 +389,9 @@ def to_html(blocks: Iterable[Block], heading_offset: int = 0) -> str:
                 + "</tr>"
                 for r in b.rows
             )
-            out.append(f"<table><thead><tr>{head}</tr></thead><tbody>{body}</tbody></table>")
+            css = f' class="{html.escape(b.css)}"' if b.css else ""
+            thead = f"<thead><tr>{head}</tr></thead>" if any(b.header) else ""
+            out.append(f"<table{css}>{thead}<tbody>{body}</tbody></table>")
         elif isinstance(b, Figure):
             out.append(
                 f'<figure><img src="{svg_data_uri(b.svg)}" alt="{html.escape(b.caption)}">'

@@ -7,8 +7,10 @@
 * ``<path>.md``: the same in Markdown with LaTeX formulas, its figures as SVG
   files in the folder ``<path>_figures/`` beside it.
 
-The sheet holds: the caution that results must be checked by a qualified
-engineer under the governing codes; the inputs (beam summary and diagram,
+The sheet holds: a title block (project, structure, girder, prepared by,
+checked by, date, revision; :class:`TitleBlock`) and, in print, the page
+number with the title at the foot of every page; the caution that results
+must be checked by a qualified engineer under the governing codes; the inputs (beam summary and diagram,
 units, sign conventions); for every influence line its Müller-Breslau sketch,
 key ordinates, ordinate table and derivation; the method and its sources.
 
@@ -42,7 +44,10 @@ from ilkit.views.display import beam_figure, line_facts, line_figure
 from ilkit.views.numbers import clean, effect_scale, short
 from ilkit.views.tables import beam_facts, ordinate_table
 
-__all__ = ["CAUTION", "CalculationSheet", "write_calculation_sheet", "sheet_blocks", "report_section", "default_lines"]
+__all__ = [
+    "CAUTION", "CalculationSheet", "TitleBlock", "TITLE_FIELDS", "write_calculation_sheet", "sheet_blocks",
+    "report_section", "default_lines",
+]
 
 _METHODS = {
     "Mechanism": "Statically determinate beams: the Müller-Breslau principle (virtual work on the beam with the "
@@ -65,6 +70,82 @@ class CalculationSheet:
     html: Path
     markdown: Path
     figures: Path
+
+
+@dataclass(frozen=True)
+class TitleBlock:
+    """The title block of a calculation sheet, at its head as on a drawing.
+
+    Every field is text; a field left empty is printed as an empty box, to
+    be filled in by hand (a date, a checker's initials).  The printed sheet
+    repeats the title, the project and the revision at the foot of every
+    page, with the page number (``page 3 of 12``).
+    """
+
+    project: str = ""
+    structure: str = ""
+    girder: str = ""
+    prepared_by: str = ""
+    checked_by: str = ""
+    date: str = ""
+    revision: str = ""
+
+    def __post_init__(self) -> None:
+        for name in TITLE_FIELDS:
+            value = getattr(self, name.replace(" ", "_"))
+            if not isinstance(value, str):
+                raise BeamInputError(
+                    f"TitleBlock: {name} must be text, got {type(value).__name__} {value!r:.60}; e.g. "
+                    f"TitleBlock({name.replace(' ', '_')}='...').",
+                    field=name,
+                    value=value,
+                )
+
+    @classmethod
+    def of(cls, value: TitleBlock | Mapping[str, str] | None) -> TitleBlock:
+        """``value`` as a title block: a :class:`TitleBlock`, a mapping with the fields as keys
+        (``{"project": ..., "prepared by": ...}``), or ``None`` (every field blank)."""
+        if value is None:
+            return cls()
+        if isinstance(value, TitleBlock):
+            return value
+        if not isinstance(value, Mapping):
+            raise BeamInputError(
+                f"write_calculation_sheet: title_block must be a TitleBlock or a mapping of its fields, got "
+                f"{type(value).__name__} {value!r:.60}.",
+                field="title_block",
+                value=value,
+            )
+        fields = {}
+        for key, text in value.items():
+            name = str(key).strip().lower().replace("_", " ")
+            if name not in TITLE_FIELDS:
+                raise BeamInputError(
+                    f"write_calculation_sheet: title_block has no field {key!r}; the fields are "
+                    f"{', '.join(repr(f) for f in TITLE_FIELDS)} (other header lines go in info=).",
+                    field="title_block",
+                    value=key,
+                )
+            fields[name.replace(" ", "_")] = text
+        return cls(**fields)
+
+    def blocks(self, title: str) -> list[Block]:
+        """The title block as document blocks: a boxed table of the fields and the title."""
+        rows = (
+            ("project", self.project, "revision", self.revision),
+            ("structure", self.structure, "date", self.date),
+            ("girder", self.girder, "prepared by", self.prepared_by),
+            ("calculation", title, "checked by", self.checked_by),
+        )
+        return [Table(("", "", "", ""), rows, "llll", "title-block")]
+
+    def footer(self, title: str) -> str:
+        """The words at the foot of every printed page (the page number follows them)."""
+        return " · ".join(t for t in (title, self.project, f"revision {self.revision}" if self.revision else "") if t)
+
+
+TITLE_FIELDS = ("project", "structure", "girder", "prepared by", "checked by", "date", "revision")
+"""The fields of a :class:`TitleBlock`, as they are printed."""
 
 
 def default_lines(beam: Beam) -> list[InfluenceLine]:
@@ -114,6 +195,7 @@ def sheet_blocks(
     divisions: int = 10,
     title: str = "Influence-line calculation sheet",
     info: Mapping[str, str] | None = None,
+    title_block: TitleBlock | Mapping[str, str] | None = None,
 ) -> list[Block]:
     """The sheet as document blocks (what :func:`write_calculation_sheet` renders)."""
     import ilkit
@@ -141,7 +223,8 @@ def sheet_blocks(
     from ilkit.views.moving_records import placement_blocks
 
     moving = _moving_load(beam, chosen, load, divisions)  # computed before anything is drawn: bad input fails fast
-    blocks: list[Block] = [Heading(title, 1)]
+    block = TitleBlock.of(title_block)
+    blocks: list[Block] = [Heading(title, 1), *block.blocks(title)]
     if info:
         blocks.append(Table(("", ""), tuple((str(k), str(v)) for k, v in info.items())))
     blocks += [
@@ -306,15 +389,29 @@ math { font-family: 'STIX Two Math', 'Cambria Math', 'Latin Modern Math', 'DejaV
   font-size: 1.05em; }
 math[display="block"] { margin: .6rem 0; }
 mtable.cases mtd { text-align: left; }
-@media print { body { background: white; } main.sheet { box-shadow: none; margin: 0; max-width: none; }
-  h3 { break-before: page; } figure, table { break-inside: avoid; } }
+table.title-block { width: 100%; border: 1.5px solid #1c1c1c; margin: .4rem 0 1rem; }
+table.title-block td { border: 1px solid #1c1c1c; height: 1.4rem; }
+table.title-block td:nth-child(odd) { width: 7rem; min-width: 0; color: #5a5a5a; font-size: 11px;
+  text-transform: uppercase; letter-spacing: .04em; }
+@media print { body { background: white; } main.sheet { box-shadow: none; margin: 0; max-width: none;
+  padding: 0; } h3 { break-before: page; } figure, table { break-inside: avoid; } }
+@page { size: A4; margin: 16mm 14mm 18mm 14mm;
+  @bottom-right { content: "page " counter(page) " of " counter(pages); font: 9px 'DejaVu Sans', sans-serif; }
+  @bottom-left { content: var(--footer); font: 9px 'DejaVu Sans', sans-serif; } }
 """
 
 
-def _page(title: str, body: str) -> str:
+def _css_text(text: str) -> str:
+    """``text`` as a CSS string (quotes, backslashes and ``<`` escaped; one line)."""
+    escaped = "".join(f"\\{ord(c):x} " if c in '"\\<>' or ord(c) < 32 else c for c in text)
+    return f'"{escaped}"'
+
+
+def _page(title: str, body: str, footer: str = "") -> str:
+    page_css = _CSS.replace("var(--footer)", _css_text(footer or title))
     return (
         '<!DOCTYPE html>\n<html lang="en">\n<head>\n<meta charset="utf-8">\n'
-        f"<title>{html.escape(title)}</title>\n<style>{_CSS}</style>\n</head>\n"
+        f"<title>{html.escape(title)}</title>\n<style>{page_css}</style>\n</head>\n"
         f'<body>\n<main class="sheet">\n{body}\n</main>\n</body>\n</html>\n'
     )
 
@@ -345,6 +442,7 @@ def write_calculation_sheet(
     results: Iterable[object] = (),
     title: str = "Influence-line calculation sheet",
     info: Mapping[str, str] | None = None,
+    title_block: TitleBlock | Mapping[str, str] | None = None,
 ) -> CalculationSheet:
     """Write the calculation sheet of ``beam`` as HTML and Markdown; returns the paths.
 
@@ -379,12 +477,22 @@ def write_calculation_sheet(
         Sections of the envelope: equal parts per span and overhang.
     results:
         Further results with a registered :func:`report_section`.
-    title, info:
-        The sheet's title, and header fields such as
-        ``{"project": ..., "prepared by": ..., "date": ...}``.
+    title:
+        The sheet's title.
+    title_block:
+        The title block at the head of the sheet (:class:`TitleBlock`, or a
+        mapping ``{"project": ..., "structure": ..., "girder": ...,
+        "prepared by": ..., "checked by": ..., "date": ..., "revision": ...}``);
+        fields not given are left as empty boxes to fill in by hand.  The
+        printed sheet carries the title, project and revision and the page
+        number (``page 3 of 12``) at the foot of every page.
+    info:
+        Further header lines, e.g. ``{"scenario": ..., "live load": ...}``.
     """
     stem = _stem(path)
-    blocks = sheet_blocks(beam, lines, results, load=load, divisions=divisions, title=title, info=info)
+    block = TitleBlock.of(title_block)
+    blocks = sheet_blocks(beam, lines, results, load=load, divisions=divisions, title=title, info=info,
+                          title_block=block)
     figures = stem.parent / f"{stem.name}_figures"
     svgs: dict[Path, str] = {}
 
@@ -396,7 +504,7 @@ def write_calculation_sheet(
     html_path = stem.with_suffix(".html")
     md_path = stem.with_suffix(".md")
     markdown = _doc.to_markdown(blocks, link)
-    page = _page(title, _doc.to_html(blocks))
+    page = _page(title, _doc.to_html(blocks), block.footer(title))
     # all files or none: a failure never leaves new HTML beside old Markdown
     write_files({html_path: page, md_path: markdown, **svgs}, what="write_calculation_sheet")
     return CalculationSheet(html_path, md_path, figures)
