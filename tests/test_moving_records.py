@@ -373,3 +373,33 @@ def test_notebook_displays_of_placements_and_envelopes_carry_the_caution(girder,
     placed = ilkit.stand(girder.moment(36), loads.design_truck(), 60.0)
     for result in (pier_moment, loads.extremes(girder.moment(36), hl93, beam=girder), env, placed):
         assert CAUTION_SHORT in DisplayFormatter().format(result)[0]["text/html"], type(result).__name__
+
+
+def test_the_word_seen_in_the_load_model_docstrings_is_defined() -> None:
+    # regression: the docstrings marked values "seen" without saying what it means
+    from ilkit.loads import models
+
+    uses = [name for name in models.__all__ if "seen" in (getattr(models, name).__doc__ or "")]
+    words = " ".join(models.__doc__.split())
+    assert uses and "says **seen**" in words and "read in a copy of the standard" in words
+
+
+def test_placement_figure_files_are_named_without_values(highway_sheet) -> None:
+    # regression: names such as "...-M-at-x---36-ft---561-88-kip-ft.svg" lost the minus signs of the values
+    sheet, _ = highway_sheet
+    names = sorted(p.name for p in sheet.figures.iterdir())
+    placements = [n for n in names if n.startswith("placement-")]
+    assert "placement-4-1b-smallest-M-at-x-36.svg" in placements
+    assert "placement-4-3a-largest-V-at-x-90-right.svg" in placements
+    pattern = r"placement-[\d-]+[ab]?-(largest|smallest)-\w+-at-x-[\d.]+(-left|-right)?\.svg"
+    assert all(re.fullmatch(pattern, n) for n in placements), placements  # no values, units or signs to lose
+    assert len(set(names)) == len(names)
+
+
+def test_zero_extremes_name_no_governing_case(highway_sheet) -> None:
+    # regression: the envelope named a governing case beside a moment of 0 at an end support
+    from ilkit.views.moving_records import NO_CASE
+
+    sheet, _ = highway_sheet
+    markdown = sheet.markdown.read_text(encoding="utf-8")
+    assert f"| 0 |  | 0 | {NO_CASE} | 0 | {NO_CASE} |" in markdown  # x = 0: M max and M min are zero

@@ -234,7 +234,7 @@ def _figure_name(result: Extreme | LoadPlacement, number: str) -> str:
     which = ("largest" if result.extreme == "max" else "smallest") if isinstance(result, Extreme) else "standing"
     side = f"-{line.quantity.side}" if line.quantity.side else ""
     label = f"{line.quantity.symbol}-at-x-{fmt(line.quantity.at)}{side}"
-    return _slug(f"placement-{number}-{which}-{label}")
+    return _slug(f"placement-{number.replace('.', '-')}-{which}-{label}")
 
 
 @report_section.register(Extreme)
@@ -281,7 +281,7 @@ def envelope_blocks(envelope: Envelope, number: str = "") -> list[Block]:
     for kind, (_, words) in ENVELOPE_KINDS.items():
         blocks.append(figure_block(lambda ax, k=kind: plot_envelope(envelope, k, ax), 2.6,  # type: ignore[misc]
                                    f"{number} Envelope of {words}: {envelope.model}".strip(),
-                                   _slug(f"envelope-{number}-{kind}")))
+                                   _slug(f"envelope-{number.replace('.', '-')}-{kind}")))
     blocks += [
         Para((f"Bending moment{_bracket(_unit(_column(sections, 'M max')))} at the sections:",)),
         _envelope_table(sections, "M", (x_col, "side")),
