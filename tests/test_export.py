@@ -263,3 +263,17 @@ def test_export_through_a_link_writes_the_file_it_names(tmp_path) -> None:
     to_csv(girder().moment(5), tmp_path / "link.csv")
     assert (tmp_path / "link.csv").is_symlink()
     assert target.read_text(encoding="utf-8").splitlines()[1].startswith("x [m]")
+
+
+def test_exports_carry_the_caution(tmp_path) -> None:
+    # regression: CSV, Excel and LaTeX exports left the caution behind (a line, a sheet, a table note)
+    from ilkit.views.caution import CAUTION, CAUTION_SHORT
+
+    line = girder().moment(5)
+    assert to_csv(line, tmp_path / "m.csv").read_text(encoding="utf-8").splitlines()[0] == f"# Caution: {CAUTION}"
+    sheets = pd.read_excel(to_excel(line, tmp_path / "m.xlsx"), sheet_name=None)
+    assert list(sheets) == ["ilkit", "caution"] and sheets["caution"].iloc[0, 0] == CAUTION
+    text = to_latex(line)
+    assert text.startswith(f"% Caution: {CAUTION}\n") and CAUTION_SHORT.split(";")[0] in text
+    with pytest.raises(ilkit.IlkitError, match="caution: give True or False"):
+        to_csv(line, tmp_path / "x.csv", caution="no")

@@ -244,8 +244,8 @@ def _(result: Extreme | LoadPlacement, number: str) -> list[Block]:
 
 
 @report_section.register(Extremes)
-def _(result: Extremes, number: str, model: LoadModel | None = None) -> list[Block]:
-    return placement_blocks(result.maximum, f"{number}a", model) + placement_blocks(result.minimum, f"{number}b", model)
+def _(result: Extremes, number: str) -> list[Block]:
+    return placement_blocks(result.maximum, f"{number}a") + placement_blocks(result.minimum, f"{number}b")
 
 
 # ------------------------------------------------------------------- envelopes

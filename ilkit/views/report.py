@@ -10,9 +10,10 @@
 The sheet holds: a title block (project, structure, girder, prepared by,
 checked by, date, revision; :class:`TitleBlock`) and, in print, the page
 number with the title at the foot of every page; the caution that results
-must be checked by a qualified engineer under the governing codes; the inputs (beam summary and diagram,
-units, sign conventions); for every influence line its Müller-Breslau sketch,
-key ordinates, ordinate table and derivation; the method and its sources.
+must be checked by a qualified engineer under the governing codes; the
+inputs (beam summary and diagram, units, sign conventions); for every
+influence line its Müller-Breslau sketch, key ordinates, ordinate table and
+derivation; the method and its sources.
 
 Results from other parts of ilkit (placements, envelopes) join the sheet
 through ``results=``: each type adds its section with

@@ -76,33 +76,28 @@ def _(beam: Beam) -> pd.DataFrame:
     import pandas as pd
 
     unit = f" [{beam.units.length}]" if beam.units else ""
-    rows = [(float(s.at), _support_words(s)) for s in beam.supports]
+    rows = [(float(s.at), _support_words(s, beam.units)) for s in beam.supports]
     rows += [(float(p), kind) for p, kind in beam.releases]
     rows.sort(key=lambda r: r[0])
     return pd.DataFrame({f"x{unit}": [r[0] for r in rows], "item": [r[1] for r in rows]})
 
 
-def _support_words(support: Support) -> str:
-    """``"pin support"``, or for an elastic support its springs, e.g. ``"spring support (vertical 5000)"``."""
-    return f"{support.kind} support" if support.spring is None else f"spring support ({_spring_words(support)})"
+def _support_words(support: Support, units: Any = None) -> str:
+    """``"pin support"``, or for an elastic support its springs, e.g. ``"spring support (vertical 5000 kN/m,
+    rotational free)"``."""
+    return f"{support.kind} support" if support.spring is None else f"spring support ({_spring_words(support, units)})"
 
 
 def _spring_words(support: Support, units: Any = None) -> str:
-    """A spring's stiffnesses in words: ``"vertical 5000 kN/m, rotation free"``."""
+    """A spring's stiffnesses in words: ``"vertical 5000 kN/m, rotational free"``."""
     spring = support.spring
     assert spring is not None
-    vertical_unit = f" {units.force}/{units.length}" if units else ""
-    rotational_unit = f" {units.moment}/rad" if units else ""
 
-    def stiffness(value: object, unit: str, free: str) -> str:
-        if value == "rigid":
-            return "rigid"
-        if value == "free":
-            return free
-        return f"{engineering(float(value))}{unit}"  # type: ignore[arg-type]
+    def stiffness(value: object, unit: str) -> str:
+        return value if isinstance(value, str) else f"{engineering(float(value))}{unit}"  # type: ignore[arg-type]
 
-    return (f"vertical {stiffness(spring.vertical, vertical_unit, 'free')}, "
-            f"rotational {stiffness(spring.rotational, rotational_unit, 'free')}")
+    return (f"vertical {stiffness(spring.vertical, f' {units.force}/{units.length}' if units else '')}, "
+            f"rotational {stiffness(spring.rotational, f' {units.moment}/rad' if units else '')}")
 
 
 def beam_facts(beam: Beam) -> list[tuple[str, str]]:
