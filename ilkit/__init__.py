@@ -14,6 +14,7 @@ from typing import Any
 
 from ilkit.errors import (
     BeamInputError,
+    ExportError,
     IlkitError,
     IllConditionedError,
     IndeterminateBeamError,
@@ -25,6 +26,7 @@ from ilkit.errors import (
     UnitsError,
     UnstableBeamError,
     UnsupportedResultError,
+    WriteError,
 )
 from ilkit.influence import InfluenceLine, Ordinate, Piece
 from ilkit.loads import (
@@ -72,6 +74,8 @@ __all__ = [
     "NoDerivationError",
     "views",
     "LoadInputError",
+    "ExportError",
+    "WriteError",
     # moving loads (published models: ilkit.loads)
     "AxleTrain",
     "TrainUniform",

@@ -20,12 +20,6 @@ import sys
 from pathlib import Path
 from typing import Any
 
-CAUTION = (
-    "These results come from an aid to calculation. They must be checked by a qualified "
-    "engineer; the local design codes, the licensed current editions of the standards and "
-    "licensed professional practice govern."
-)
-
 
 def _notebooks_folder() -> Path:
     here = Path(__file__).resolve().parent.parent / "notebooks"
@@ -46,10 +40,12 @@ def run(out: Path, notebooks: Path | None = None) -> Path:
             f"the demo needs the notebook extra ({err.name} is missing); run: pip install 'ilkit[notebook]'"
         ) from err
 
+    from ilkit._files import make_folder, write_file, write_files
+    from ilkit.views.caution import CAUTION
+
     source = notebooks or _notebooks_folder()
-    out.mkdir(parents=True, exist_ok=True)
+    make_folder(out, "demo")  # the notebooks run in it
     figures = out / "figures"
-    figures.mkdir(exist_ok=True)
     entries = []
     for path in sorted(source.glob("*.ipynb")):
         print(f"running {path.name} ...", flush=True)
@@ -57,19 +53,21 @@ def run(out: Path, notebooks: Path | None = None) -> Path:
         NotebookClient(
             nb, timeout=900, kernel_name="python3", resources={"metadata": {"path": str(out)}}
         ).execute()
-        nbformat.write(nb, out / path.name)
-        body, _ = _page_exporter().from_notebook_node(nb)
-        (out / f"{path.stem}.html").write_text(body, encoding="utf-8")
+        title = _title(nb, path.stem)
+        nb.metadata["title"] = title  # the page's title in the browser (nbconvert writes "Notebook" without it)
+        body, _ = _page_exporter().from_notebook_node(nb, resources={"metadata": {"name": path.stem}})
+        files: dict[Path, str | bytes] = {
+            out / path.name: nbformat.writes(nb) + "\n",
+            out / f"{path.stem}.html": body,
+        }
         count = 0
         for cell in nb.cells:
             for output in cell.get("outputs", []):
                 data = output.get("data", {})
                 if "image/png" in data:
                     count += 1
-                    (figures / f"{path.stem}-{count}.png").write_bytes(base64.b64decode(data["image/png"]))
-        title = next(
-            (c.source.lstrip("# ").splitlines()[0] for c in nb.cells if c.cell_type == "markdown"), path.stem
-        )
+                    files[figures / f"{path.stem}-{count}.png"] = base64.b64decode(data["image/png"])
+        write_files(files, what="demo")  # the notebook, its page and its figures together, or none
         entries.append((path.stem, title, count))
     for extra in _extra_outputs(out):
         entries.append(extra)
@@ -82,15 +80,26 @@ def run(out: Path, notebooks: Path | None = None) -> Path:
             (e[0] if e[0].endswith((".html", ".md")) else f"{e[0]}.html", e[1], e[2]) for e in entries
         )
     )
-    index.write_text(
+    write_file(
+        index,
         "<!doctype html><html><head><meta charset='utf-8'><title>ilkit demo study</title></head>"
         "<body style='font-family: sans-serif; max-width: 50em; margin: 2em auto'>"
         "<h1>ilkit demo study</h1>"
         f"<p><strong>Caution.</strong> {html.escape(CAUTION)}</p>"
         f"<ul>{items}</ul></body></html>",
-        encoding="utf-8",
+        what="demo",
     )
     return index
+
+
+def _title(nb: Any, fallback: str) -> str:
+    """The notebook's title: the text of its first Markdown heading."""
+    for cell in nb.cells:
+        if cell.cell_type == "markdown":
+            for text in cell.source.splitlines():
+                if text.startswith("#"):
+                    return text.lstrip("# ").strip()
+    return fallback
 
 
 def _page_exporter() -> Any:

@@ -51,3 +51,17 @@ def test_pages_show_the_still_of_the_explorer(tmp_path):
     assert "data:image/png;base64," in outputs[0] and "widget-view+json" not in outputs[0]
     assert "widget-view+json" in outputs[1]
     assert (tmp_path / "out" / "figures" / "live-1.png").stat().st_size > 10_000
+
+
+def test_demo_pages_carry_the_notebook_title_not_notebook(tmp_path):
+    # regression: every page the demo wrote was titled "Notebook" in the browser
+    folder = tmp_path / "nbs"
+    folder.mkdir()
+    nb = nbformat.v4.new_notebook()
+    nb.cells = [nbformat.v4.new_markdown_cell("Some words first.\n\n# Girder over the creek\n\nMore."),
+                nbformat.v4.new_code_cell("1 + 1")]
+    nbformat.write(nb, folder / "creek.ipynb")
+    demo.run(tmp_path / "out", notebooks=folder)
+    page = (tmp_path / "out" / "creek.html").read_text(encoding="utf-8")
+    assert "<title>Girder over the creek</title>" in page
+    assert "Girder over the creek" in (tmp_path / "out" / "index.html").read_text(encoding="utf-8")

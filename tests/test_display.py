@@ -30,7 +30,7 @@ def test_notebook_shows_a_beam_with_its_diagram_and_summary() -> None:
     assert data["text/plain"] == repr(beam)
     page = data["text/html"]
     assert "degree of indeterminacy" in page and "0 (determinate)" in page
-    assert "fixed at 0, roller at 25" in page and "25 m (0 to 25)" in page and "right 5 m" in page
+    assert "fixed at 0 m, roller at 25 m" in page and "25 m (0 to 25 m)" in page and "right 5 m" in page
     assert 'id="support:fixed:0"' in svg_of(page)  # the drawing's artists keep their gids
 
 
@@ -50,9 +50,10 @@ def test_notebook_shows_a_line_with_its_sketch_and_key_values() -> None:
     assert "Müller-Breslau" in svg and ">-0.5333<" in svg and ">0.4667<" in svg
     # extremes and areas are the core values (shear just left and right of x=18: -8/15 and 7/15)
     assert line.minimum.value == pytest.approx(-8 / 15) and line.maximum.value == pytest.approx(7 / 15)
-    assert f"{short(line.maximum.value)} kN/kN at x = 18 m, right face" in page
-    assert f"{short(line.minimum.value)} kN/kN at x = 18 m, left face" in page
-    assert f"{short(line.positive_area)} kN/kN × m" in page
+    assert f"{short(line.maximum.value)} kN/kN at x = 18 m, right side" in page
+    assert f"{short(line.minimum.value)} kN/kN at x = 18 m, left side" in page
+    # the area of a shear line times a uniform load (kN/m) is a force: its unit is m (regression: kN/kN × m)
+    assert f"positive area</th><td>{short(line.positive_area)} m<" in page
     assert "<th style=\"text-align:right\">left [kN/kN]</th>" in page
 
 

@@ -62,7 +62,7 @@ def test_two_equal_spans_middle_reaction(two_spans, reference) -> None:
     reference("printed flexibility coefficient: midspan deflection (2L)³ / (48 EI) = L³ / (6 EI)",
               expected=str(Fraction(L**3, 6)), computed=flexibility.rows[0][1].text, source=HANDBOOK,
               clause="simple span, load at midspan: P l³ / (48 EI)")
-    assert "Redundants and primary structure" in d.to_text() and "supports pin at 0, roller at 20" in d.to_text()
+    assert "Redundants and primary structure" in d.to_text() and "supports pin at 0 m, roller at 20 m" in d.to_text()
     xs = (Fraction(1), Fraction(5, 2), Fraction(7), Fraction(L))
     reference("derived R_B(x) = x (3L² - x²) / (2L³), x = 1, 5/2, 7, 10",
               computed=[d.expression.subs(X, x) for x in xs],

@@ -80,9 +80,8 @@ lines = {
     "M over pier x=60 [kN·m/kN]": girder.moment(pier),
     "M at midspan x=80 [kN·m/kN]": girder.moment(mid),
     "V right of pier x=60 [kN/kN]": girder.shear(pier, side="right"),
-    "deflection at x=80 [mm per 100 kN]": girder.deflection(mid),
+    "deflection at x=80 [mm/kN]": girder.deflection(mid),
 }
-scale = {"deflection at x=80 [mm per 100 kN]": 1e5}   # m/kN -> mm per 100 kN (for the table below)
 
 fig, axes = plt.subplots(len(lines), 1, figsize=(7.5, 12), layout="constrained")
 for ax, line in zip(axes, lines.values()):
@@ -105,17 +104,8 @@ The largest and smallest ordinates with their positions, and the areas of the
 positive and negative parts (a uniform lane load of 1 kN/m on those parts).
 """),
     ("code", """
-rows = []
-for name, line in lines.items():
-    s = scale.get(name, 1)
-    rows.append({
-        "quantity": name,
-        "max": line.maximum.value * s, "at x": line.maximum.x,
-        "min": line.minimum.value * s, "at x ": line.minimum.x,
-        "area +": line.positive_area * s, "area -": line.negative_area * s,
-    })
-table = pd.DataFrame(rows).set_index("quantity")
-print(table.round(3).to_string())
+# deflections in mm/kN, as in the plots; each row says its units
+print(views.summary(lines).round(4).to_string())
 """),
     ("md", """
 Each line is stored as exact cubic pieces between its breakpoints; here are
@@ -187,6 +177,9 @@ exact_line = small.moment(8, exact=True)
 print(exact_line.is_exact)
 print(exact_line.expr)
 print("ordinate for the load at x=4:", exact_line.ordinate_exact(4))
+"""),
+    ("code", """
+views.formula(exact_line, 5)   # the same line with decimal coefficients, for reading
 """),
     ("md", """
 How that line is obtained, written out for the calculation package by the

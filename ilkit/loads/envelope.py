@@ -1,7 +1,7 @@
 """Envelopes: the largest and smallest moment and shear at sections along a beam under a load model.
 
 Sections are the ends, every support, every release and equal divisions of
-each span and overhang.  At interior supports and releases both faces are
+each span and overhang.  At interior supports and releases both sides are
 listed (``side`` ``"left"`` and ``"right"``).  The reaction envelope covers
 every support; the absolute maximum moment is searched along the whole beam
 and refined to 1e-6 of the beam length.  Sign conventions are those of
@@ -48,7 +48,9 @@ class Envelope(RichDisplay):
     releases), with the largest and smallest moment and shear and the
     governing case of each.  ``reactions``: one row per support.
     ``absolute_maximum_moment``: the largest sagging moment anywhere, with its
-    section in ``.quantity.at``.  Column names carry the units.
+    section in ``.quantity.at``; ``absolute_maximum_positions`` lists every
+    section that attains it (both mirror positions of a symmetric girder).
+    Column names carry the units.
     """
 
     beam: Beam
@@ -57,6 +59,11 @@ class Envelope(RichDisplay):
     reactions: pd.DataFrame = field(repr=False)
     absolute_maximum_moment: Extreme
     _found: dict[tuple[str, Fraction, Side | None], Extremes] = field(repr=False, compare=False)
+    load_model: LoadModel | None = field(default=None, repr=False, compare=False)
+    """The load model applied (in the beam's units): its cases give the parts of every factor."""
+    absolute_maximum_positions: tuple[float, ...] = ()
+    """Every section where the absolute maximum moment is attained (to :data:`SAME_VALUE`): two mirror
+    positions on a symmetric girder; ``absolute_maximum_moment`` is placed at one of them."""
 
     def __repr__(self) -> str:
         a = self.absolute_maximum_moment
@@ -80,7 +87,7 @@ class Envelope(RichDisplay):
         """The governing placement behind one entry of the tables.
 
         ``quantity`` is ``"moment"``, ``"shear"`` or ``"reaction"``; ``at`` a
-        section or support of the tables; ``side`` picks the face where there
+        section or support of the tables; ``side`` picks the side where there
         are two (the left one if not given).
         """
         kinds = ("moment", "shear", "reaction")
@@ -205,8 +212,10 @@ def envelope(
                 "R min case": r.minimum.case,
             }
         )
-    best = _absolute_maximum(beam, model, found, stations + releases)
-    return Envelope(beam, model.name, pd.DataFrame(rows), pd.DataFrame(reaction_rows), best, found)
+    best, positions = _absolute_maximum(beam, model, found, stations + releases)
+    return Envelope(
+        beam, model.name, pd.DataFrame(rows), pd.DataFrame(reaction_rows), best, found, model, positions
+    )
 
 
 def _absolute_maximum(
@@ -214,18 +223,30 @@ def _absolute_maximum(
     model: LoadModel,
     found: dict[tuple[str, Fraction, Side | None], Extremes],
     barriers: list[Fraction],
-) -> Extreme:
-    """Largest moment over all sections: the sampled local maxima refined by golden-section search."""
-    sampled = sorted((k[1], e.maximum) for k, e in found.items() if k[0] == "moment")
-    xs = [float(p) for p, _ in sampled]
-    values = [e.value for _, e in sampled]
+) -> tuple[Extreme, tuple[float, ...]]:
+    """Largest moment over all sections: the sampled local maxima refined by golden-section search on
+    each side of the sample; also every section that attains it.
+
+    The samples are ordered on plain keys (position, then the left side before
+    the right one): where the moment jumps (an interior fixed support, a
+    rotational spring) the two sides at one position carry different extremes,
+    and ties must never fall through to comparing result objects.  A side is
+    refined only on its own side of the jump.
+    """
+    face_order = {"left": 0, None: 1, "right": 2}
+    sampled = sorted(
+        ((k[1], k[2], e.maximum) for k, e in found.items() if k[0] == "moment"),
+        key=lambda s: (s[0], face_order[s[1]]),
+    )
+    xs = [float(p) for p, _, _ in sampled]
+    values = [e.value for _, _, e in sampled]
     top = max(values)
-    best = max((e for _, e in sampled), key=lambda e: e.value)
+    candidates = [e for _, _, e in sampled]
     if top <= 0:
-        return best
+        return _attained(candidates, beam)
     cuts = sorted(float(b) for b in barriers)
     tol = 1e-6 * float(beam.length)
-    for i, value in enumerate(values):
+    for i, (value, (_, side, _)) in enumerate(zip(values, sampled)):
         neighbours = values[max(i - 1, 0) : i + 2]
         if value < max(neighbours) or value < 0.95 * top:
             continue
@@ -234,12 +255,34 @@ def _absolute_maximum(
         # stay between supports and releases, where the moment line is smooth in the section position
         lo = max([lo, *(c for c in cuts if c < xs[i])])
         hi = min([hi, *(c for c in cuts if c > xs[i])])
-        if hi - lo <= 2 * tol:
-            continue
-        found_here = _golden(beam, model, lo, hi, tol)
-        if found_here.value > best.value:
-            best = found_here
-    return best
+        if side == "left":
+            hi = xs[i]
+        elif side == "right":
+            lo = xs[i]
+        # each side of the sample on its own: the moment may peak on both (mirror positions on a symmetric
+        # girder, where the sample at the axis of symmetry lies between two equal maxima)
+        for a, b in ((lo, xs[i]), (xs[i], hi)):
+            if b - a > 2 * tol:
+                candidates.append(_golden(beam, model, a, b, tol))
+    return _attained(candidates, beam)
+
+
+SAME_VALUE = 1e-9
+"""Relative difference below which two maxima found at different sections are the same value (a
+symmetric girder under a load that travels both ways attains its absolute maximum at mirror positions)."""
+
+
+def _attained(candidates: list[Extreme], beam: Beam) -> tuple[Extreme, tuple[float, ...]]:
+    """The largest candidate, and every distinct section where a candidate attains its value."""
+    best = max(candidates, key=lambda e: e.value)
+    near = SAME_VALUE * max(abs(best.value), 1e-300)
+    apart = 1e-5 * float(beam.length)
+    positions: list[float] = []
+    for e in sorted(candidates, key=lambda e: float(e.quantity.at)):
+        at = float(e.quantity.at)
+        if best.value - e.value <= near and all(abs(at - p) > apart for p in positions):
+            positions.append(at)
+    return best, tuple(positions)
 
 
 def _golden(beam: Beam, model: LoadModel, lo: float, hi: float, tol: float) -> Extreme:
