@@ -115,10 +115,21 @@ def resolve_by_identity(app: Sphinx, env: Any, node: Any, contnode: nodes.Node) 
 def check_member_docstring(app: Sphinx, what: str, name: str, obj: Any, skip: bool, options: Any) -> bool | None:
     if skip or name.startswith("_"):
         return None
-    doc = inspect.getdoc(obj) if not isinstance(obj, property) else obj.__doc__
+    if isinstance(obj, property):
+        doc = obj.__doc__
+    elif callable(obj) or inspect.ismodule(obj):
+        doc = inspect.getdoc(obj)
+    else:  # a data attribute: checked by check_attribute_docstring, on its own docstring, not its value's type
+        return None
     if not doc or not doc.strip():
         logger.warning("public member without a docstring: %s (%s)", name, what, type="ilkit", subtype="docstring")
     return None
+
+
+def check_attribute_docstring(app: Sphinx, what: str, name: str, obj: Any, options: Any, lines: list[str]) -> None:
+    """A documented attribute needs its own docstring (the string written after it)."""
+    if what in ("attribute", "data") and not any(line.strip() for line in lines):
+        logger.warning("public member without a docstring: %s (%s)", name, what, type="ilkit", subtype="docstring")
 
 
 # ------------------------------------------------------------------ the docstring convention
@@ -274,5 +285,6 @@ def setup(app: Sphinx) -> dict[str, Any]:
     app.connect("missing-reference", resolve_by_identity)
     app.connect("autodoc-skip-member", check_member_docstring)
     app.connect("autodoc-process-docstring", close_sections, priority=100)
+    app.connect("autodoc-process-docstring", check_attribute_docstring, priority=50)
     app.add_directive("verification-table", VerificationTable)
     return {"version": "1", "parallel_read_safe": True, "parallel_write_safe": True}
