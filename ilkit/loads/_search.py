@@ -48,6 +48,7 @@ import itertools
 import math
 from collections.abc import Callable
 from dataclasses import dataclass
+from fractions import Fraction
 from typing import TYPE_CHECKING
 
 import numpy as np
@@ -104,6 +105,7 @@ class Group:
     offsets: tuple[float, ...]
     loads: tuple[float, ...]
     segments: tuple[Segment, ...] = ()
+    exact: tuple[Fraction, ...] | None = None  # the offsets without rounding, where known
 
     @property
     def extent(self) -> float:
@@ -124,21 +126,36 @@ class Group:
     def mirrored(self) -> Group:
         """The group seen from the other end (offsets measured the other way)."""
         e = self.extent
+        exact = None if self.exact is None else tuple(self.exact[-1] - a for a in reversed(self.exact))
         return Group(
-            tuple(e - a for a in reversed(self.offsets)),
+            tuple(e - a for a in reversed(self.offsets)) if exact is None else tuple(float(a) for a in exact),
             tuple(reversed(self.loads)),
             tuple(Segment(e - s.end, e - s.start, s.intensity, s.breakable) for s in self.segments),
+            exact,
         )
 
     def joined(self, other: Group, gap: float) -> Group:
         """This group followed by ``other`` with ``gap`` from its last point load to ``other``'s first."""
         shift = self.extent + gap
+        exact = None
+        if self.exact is not None and other.exact is not None and math.isfinite(gap):
+            at = (self.exact[-1] if self.exact else Fraction(0)) + Fraction(gap)
+            exact = self.exact + tuple(at + a for a in other.exact)
         return Group(
             self.offsets + tuple(shift + a for a in other.offsets),
             self.loads + other.loads,
             self.segments
             + tuple(Segment(shift + s.start, shift + s.end, s.intensity, s.breakable) for s in other.segments),
+            exact,
         )
+
+    @classmethod
+    def of(cls, spacings: list[float], loads: list[float], segments: tuple[Segment, ...] = ()) -> Group:
+        """Point loads at the given spacings (the first at offset 0), offsets summed without rounding."""
+        exact = [Fraction(0)]
+        for gap in spacings:
+            exact.append(exact[-1] + Fraction(gap))
+        return cls(tuple(float(a) for a in exact), tuple(loads), segments, tuple(exact))
 
 
 @dataclass(frozen=True)
@@ -611,17 +628,19 @@ def _cut_group(group: Group, length: float) -> list[tuple[Group, float]]:
     for s in group.segments:  # only uniform loads ahead of the first or behind the last point load
         if not (s.end <= a[0] or s.start >= a[-1]):
             return [(group, 0.0)]
+    exact = group.exact if group.exact is not None else tuple(Fraction(v) for v in a)
     out = []
     bounds = [0, *cuts, len(a)]
     for i, (k0, k1) in enumerate(zip(bounds[:-1], bounds[1:])):
-        base = a[k0]
+        base = exact[k0]
         segs = tuple(
-            Segment(s.start - base, s.end - base, s.intensity, s.breakable)
+            Segment(s.start - a[k0], s.end - a[k0], s.intensity, s.breakable)
             for s in group.segments
             if (i == 0 and s.end <= a[0]) or (i == len(bounds) - 2 and s.start >= a[-1])
         )
-        cluster = Group(tuple(v - base for v in a[k0:k1]), group.loads[k0:k1], segs)
-        out.append((cluster, a[k0] - a[k0 - 1] if k0 else 0.0))
+        own = tuple(v - base for v in exact[k0:k1])
+        cluster = Group(tuple(float(v) for v in own), group.loads[k0:k1], segs, own)
+        out.append((cluster, float(exact[k0] - exact[k0 - 1]) if k0 else 0.0))
     return out
 
 
