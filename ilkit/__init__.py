@@ -20,6 +20,7 @@ from ilkit.errors import (
     LoadInputError,
     MissingDependencyError,
     NoDerivationError,
+    PlacementTooLargeError,
     SideRequiredError,
     StiffnessRequiredError,
     UnitsError,
@@ -72,6 +73,7 @@ __all__ = [
     "NoDerivationError",
     "views",
     "LoadInputError",
+    "PlacementTooLargeError",
     # moving loads (published models: ilkit.loads)
     "AxleTrain",
     "TrainUniform",

@@ -20,6 +20,7 @@ __all__ = [
     "UnsupportedResultError",
     "NoDerivationError",
     "LoadInputError",
+    "PlacementTooLargeError",
 ]
 
 
@@ -135,3 +136,38 @@ class LoadInputError(_InputError):
         The offending value as given.
     """
 
+
+
+class PlacementTooLargeError(LoadInputError):
+    """A placement search would take more work than ilkit allows (a train with very many axles on the
+    beam at once, or very many varying spacings).
+
+    Raised before any work is done.  Attributes
+    ----------
+    work:
+        The estimated number of ordinate evaluations.
+    limit:
+        The most allowed (``ilkit.loads.placement.WORK_LIMIT``).
+    axles, variable, breakpoints, on_beam:
+        The train's axles and varying spacings, the line's breakpoints and the
+        most axles that can stand on the beam at once.
+    """
+
+    def __init__(
+        self,
+        message: str,
+        *,
+        work: float,
+        limit: float,
+        axles: int,
+        variable: int,
+        breakpoints: int,
+        on_beam: int,
+    ) -> None:
+        super().__init__(message, field="load")
+        self.work = work
+        self.limit = limit
+        self.axles = axles
+        self.variable = variable
+        self.breakpoints = breakpoints
+        self.on_beam = on_beam

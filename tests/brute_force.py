@@ -20,6 +20,7 @@ from __future__ import annotations
 import itertools
 
 import numpy as np
+import pytest
 
 MAX_COMBINATIONS = 400
 
@@ -57,15 +58,23 @@ def spacing_sets(train, knots: np.ndarray, grid: int = 6) -> list[np.ndarray]:
 
 
 def combinations(sets: list[np.ndarray]) -> np.ndarray:
-    sizes = [len(s) for s in sets]
-    total = int(np.prod(sizes)) if sets else 1
+    """Every combination of one value from each set, or an even sample of at most ``MAX_COMBINATIONS`` of
+    them (decoded from their rank: the product is never built)."""
     if not sets:
         return np.zeros((1, 0))
-    combos = np.array(list(itertools.product(*sets)))
-    if total > MAX_COMBINATIONS:  # keep the corners and an even sample
-        keep = np.unique(np.linspace(0, total - 1, MAX_COMBINATIONS).astype(int))
-        combos = combos[keep]
-    return combos
+    sizes = [len(s) for s in sets]
+    total = 1
+    for n in sizes:
+        total *= n
+    if total <= MAX_COMBINATIONS:
+        return np.array(list(itertools.product(*sets)))
+    ranks = sorted({round(k * (total - 1) / (MAX_COMBINATIONS - 1)) for k in range(MAX_COMBINATIONS)})
+    out = np.empty((len(ranks), len(sets)))
+    for row, rank in enumerate(ranks):
+        for col in range(len(sets) - 1, -1, -1):
+            rank, digit = divmod(rank, sizes[col])
+            out[row, col] = sets[col][digit]
+    return out
 
 
 def brute_force(line, train, *, eps_rel: float = 1e-8, step_rel: float = 1 / 997) -> tuple[float, float]:
@@ -87,9 +96,32 @@ def brute_force(line, train, *, eps_rel: float = 1e-8, step_rel: float = 1 / 997
             leads = np.concatenate((leads - eps, leads + eps))
             grid = np.arange(-offsets[-1] - L * step_rel, L + L * step_rel, L * step_rel)
             xs = np.concatenate((leads, grid))[:, None] + orientation[None, :]
-            best_max = max(best_max, float((np.asarray(high(xs)) @ loads).max()))
-            best_min = min(best_min, float((np.asarray(low(xs)) @ loads).min()))
+            top = np.asarray(high(xs)) @ loads + uniform_parts(line, train, xs, 1)
+            bottom = np.asarray(low(xs)) @ loads + uniform_parts(line, train, xs, -1)
+            best_max = max(best_max, float(top.max()))
+            best_min = min(best_min, float(bottom.min()))
     return best_max, best_min
+
+
+def uniform_parts(line, train, xs: np.ndarray, sense: int) -> np.ndarray:
+    """Effect of the uniform loads travelling ahead of and behind the train, for axles at ``xs`` (one row
+    per placement, lead axle first): each covers the line from its clearance on, away from the train
+    (only the parts of the wanted sign where it is breakable)."""
+    total = np.zeros(xs.shape[0])
+    if xs.shape[1] == 0:
+        return total
+    lead, last = xs[:, 0], xs[:, -1]
+    lead_left = lead <= last  # the train travels right to left (its lead axle is its leftmost)
+    for extra, at, away in ((train.ahead, lead, -1.0), (train.behind, last, 1.0)):
+        if extra is None:
+            continue
+        h = line.part("positive" if sense > 0 else "negative") if extra.breakable else line
+        direction = np.where(lead_left, away, -away)  # which way the uniform load runs from the axle
+        edge = at + direction * extra.clearance
+        whole = float(h.cumulative(np.inf))
+        covered = np.where(direction > 0, whole - h.cumulative(edge), h.cumulative(edge))
+        total += extra.intensity * covered
+    return total
 
 
 def lipschitz(line, train) -> float:
@@ -114,3 +146,29 @@ def effect_scale(line, train) -> float:
     q = line.quantity
     typical = line.length if q.is_moment else 1.0  # a moment ordinate is a length, a force one a ratio
     return float(np.sum(train.loads)) * max(ordinate, 1e-6 * typical)
+
+
+def check_table(e, line, train) -> None:
+    """The placement table of one extreme is what it says (see the module docstring)."""
+    scale = effect_scale(line, train)
+    frame = e.to_frame()
+    column = next(c for c in frame.columns if c.startswith("factored effect"))
+    assert float(frame[column].sum()) == pytest.approx(e.value, rel=1e-12, abs=1e-12 * scale)
+    (p,) = e.placements
+    assert p.factored == pytest.approx(e.value, rel=1e-12, abs=1e-12 * scale)
+    big = max(float(np.abs(line(np.linspace(0, line.length, 501))).max()), 1e-300)
+    for a in p.axles:
+        expected = {"left": line.left, "right": line.right, None: line}[a.side](a.x)
+        assert a.ordinate == pytest.approx(float(expected), rel=1e-12, abs=1e-12 * big)
+        if a.side:  # a face is named only where the line jumps
+            assert line.left(a.x) != line.right(a.x)
+        assert a.effect == (a.load * a.ordinate if a.counted else 0.0)
+    assert p.effect == pytest.approx(
+        sum(a.effect for a in p.axles) + sum(q.effect for q in p.patches), rel=1e-12, abs=1e-12 * scale
+    )
+    xs = [a.x for a in p.axles]
+    for k, ((lo, hi), s) in enumerate(zip(train.spacings, p.spacings)):
+        assert lo <= s <= hi
+        assert abs(xs[k + 1] - xs[k]) == pytest.approx(s, rel=1e-9, abs=1e-9 * line.length)
+    if not train.is_variable:  # one rigid train moves as one: every named face is the same
+        assert len({a.side for a in p.axles if a.side}) <= 1

@@ -26,9 +26,8 @@ from __future__ import annotations
 from fractions import Fraction
 from math import gcd
 
-import numpy as np
 import pytest
-from brute_force import brute_force, effect_scale, lipschitz
+from brute_force import brute_force, check_table, effect_scale, lipschitz
 from continuous_strategies import elastic_beams
 from hypothesis import HealthCheck, assume, given, settings
 from hypothesis import strategies as st
@@ -136,32 +135,6 @@ def typed_trains(draw, h: float, ranges: bool = True):
 
 
 # ------------------------------------------------------------------ checks
-def check_table(e, line, train) -> None:
-    """The placement table of one extreme is what it says (see the module docstring)."""
-    scale = effect_scale(line, train)
-    frame = e.to_frame()
-    column = next(c for c in frame.columns if c.startswith("factored effect"))
-    assert float(frame[column].sum()) == pytest.approx(e.value, rel=1e-12, abs=1e-12 * scale)
-    (p,) = e.placements
-    assert p.factored == pytest.approx(e.value, rel=1e-12, abs=1e-12 * scale)
-    big = max(float(np.abs(line(np.linspace(0, line.length, 501))).max()), 1e-300)
-    for a in p.axles:
-        expected = {"left": line.left, "right": line.right, None: line}[a.side](a.x)
-        assert a.ordinate == pytest.approx(float(expected), rel=1e-12, abs=1e-12 * big)
-        if a.side:  # a face is named only where the line jumps
-            assert line.left(a.x) != line.right(a.x)
-        assert a.effect == (a.load * a.ordinate if a.counted else 0.0)
-    assert p.effect == pytest.approx(
-        sum(a.effect for a in p.axles) + sum(q.effect for q in p.patches), rel=1e-12, abs=1e-12 * scale
-    )
-    xs = [a.x for a in p.axles]
-    for k, ((lo, hi), s) in enumerate(zip(train.spacings, p.spacings)):
-        assert lo <= s <= hi
-        assert abs(xs[k + 1] - xs[k]) == pytest.approx(s, rel=1e-9, abs=1e-9 * line.length)
-    if not train.is_variable:  # one rigid train moves as one: every named face is the same
-        assert len({a.side for a in p.axles if a.side}) <= 1
-
-
 def check_against_brute_force(line, train, two_sided: bool) -> None:
     found = extremes(line, train)
     own = train.converted(line.units)

@@ -34,11 +34,17 @@ two trucks at least a given distance apart.  Parts of a train that can never
 be on the beam together (a spacing longer than the beam) are searched apart
 (:func:`split`).  At the optimum each gap is either at a bound (the
 neighbours move as one block) or free (each block at one of its own
-candidates): with few variable gaps every pattern of held and free gaps is
-searched, the free ones by dynamic programming over the candidates; with more,
-:mod:`ilkit.loads._chain` runs one dynamic programme over the whole chain,
-whose state is the position of a group and whose step handles held and free
-gaps together.
+candidates): with up to :data:`PATTERN_GAPS` varying gaps every pattern of
+held and free gaps is searched, the free ones by dynamic programming over the
+candidates (:func:`best_in_chain`); with more, :mod:`ilkit.loads._chain` runs
+one dynamic programme over the whole chain, whose state is the position of a
+group and whose step handles held and free gaps together, so that the work
+grows with the number of gaps, not as ``3^k``.  :func:`cost` estimates the
+work of either before it starts.
+
+Memory stays bounded whatever the length of a train: only the point loads
+that can be on the beam are evaluated for a candidate, in batches of at most
+:data:`CHUNK` ordinates.
 """
 
 from __future__ import annotations
@@ -277,25 +283,35 @@ class Lines:
     tol: float
 
 
-def _window(offsets: np.ndarray, lo: np.ndarray, hi: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
-    """Indices of the offsets within ``[lo, hi]`` per row (padded), and the mask of the real ones."""
-    first = np.searchsorted(offsets, lo, side="left")
-    stop = np.searchsorted(offsets, hi, side="right")
+CHUNK = 1 << 20
+"""Most ordinates evaluated in one array: longer searches run in batches, so memory stays bounded."""
+
+
+def _span(group: Group, lines: Lines, knot, anchor, shift, reach: float | np.ndarray = 0.0):
+    """For each candidate, the first and the stop index of the point loads that can be on the beam
+    (``reach``: a further travel to cover)."""
+    a, _ = group.arrays
+    base = anchor - knot - shift
+    first = np.searchsorted(a, base - reach - lines.tol, side="left")
+    stop = np.searchsorted(a, base + lines.axle.length + lines.tol, side="right")
+    return first, stop
+
+
+def _batches(first: np.ndarray, stop: np.ndarray, per_row: int = 1):
+    """Slices of the candidates such that each batch evaluates at most :data:`CHUNK` ordinates."""
     width = int((stop - first).max(initial=0))
+    step = max(1, CHUNK // max(width * per_row, 1))
+    for start in range(0, first.size, step):
+        yield slice(start, start + step), width
+
+
+def _gather(group: Group, first, stop, width: int) -> tuple[np.ndarray, np.ndarray]:
+    """Offsets and loads of the point loads from ``first`` to ``stop`` per row (padded with zero loads)."""
+    a, w = group.arrays
     idx = first[:, None] + np.arange(width)[None, :]
     mask = idx < stop[:, None]
-    return np.minimum(idx, max(offsets.size - 1, 0)), mask
-
-
-def _on_beam(group: Group, lines: Lines, knot: np.ndarray, anchor: np.ndarray, shift: np.ndarray, reach: float = 0.0):
-    """Positions and loads of the point loads that can be on the beam for each candidate (``reach``: further
-    travel to cover)."""
-    a, w = group.arrays
-    tol = lines.tol
-    base = anchor - knot - shift
-    idx, mask = _window(a, base - reach - tol, base + lines.axle.length + tol)
-    x = knot[:, None] + (a[idx] - anchor[:, None]) + shift[:, None]
-    return x, np.where(mask, w[idx], 0.0)
+    idx = np.minimum(idx, max(a.size - 1, 0))
+    return a[idx], np.where(mask, w[idx], 0.0)
 
 
 def _segment_effect(group: Group, lines: Lines, knot, anchor, shift) -> np.ndarray:
@@ -311,10 +327,31 @@ def effect(group: Group, lines: Lines, knot, anchor, shift, side) -> np.ndarray:
     """Effect of the group at candidates (arrays of the fields of :class:`Candidates`)."""
     total = _segment_effect(group, lines, knot, anchor, shift)
     if group.offsets:
-        x, w = _on_beam(group, lines, knot, anchor, shift)
-        values, _, _ = ordinates(lines.axle, x, np.asarray(side)[:, None], lines.tol)
-        total = total + (values * w).sum(axis=1)
+        side = np.asarray(side)
+        first, stop = _span(group, lines, knot, anchor, shift)
+        for rows, width in _batches(first, stop):
+            a, w = _gather(group, first[rows], stop[rows], width)
+            x = knot[rows, None] + (a - anchor[rows, None]) + shift[rows, None]
+            values, _, _ = ordinates(lines.axle, x, side[rows, None], lines.tol)
+            total[rows] += (values * w).sum(axis=1)
     return total
+
+
+def _event_values(group: Group, lines: Lines, knot, anchor) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+    """Effect of the point loads at events, from the left and from the right, and whether a load stands at
+    a jump."""
+    left, right = np.zeros(knot.size), np.zeros(knot.size)
+    faces = np.zeros(knot.size, dtype=bool)
+    zero = np.zeros(knot.size)
+    first, stop = _span(group, lines, knot, anchor, zero)
+    for rows, width in _batches(first, stop):
+        a, w = _gather(group, first[rows], stop[rows], width)
+        x = knot[rows, None] + (a - anchor[rows, None])
+        lo, hi, face = _both_sides(lines.axle, x, lines.tol)
+        left[rows] = (lo * w).sum(axis=1)
+        right[rows] = (hi * w).sum(axis=1)
+        faces[rows] = (face & (w != 0)).any(axis=1)
+    return left, right, faces
 
 
 def _rate(group: Group, lines: Lines, knot, anchor, shift) -> np.ndarray:
@@ -322,14 +359,12 @@ def _rate(group: Group, lines: Lines, knot, anchor, shift) -> np.ndarray:
     2-d (one row per interval)."""
     total = np.zeros(shift.shape)
     if group.offsets:
-        a, w = group.arrays
-        tol = lines.tol
-        base = anchor - knot
-        far = shift.max(axis=1)
-        idx, mask = _window(a, base - far - tol, base + lines.axle.length + tol)
-        x = knot[:, None, None] + (a[idx] - anchor[:, None])[:, None, :] + shift[:, :, None]
-        slopes = np.asarray(lines.axle.slope(x.ravel())).reshape(x.shape)
-        total = total + (slopes * np.where(mask, w[idx], 0.0)[:, None, :]).sum(axis=2)
+        first, stop = _span(group, lines, knot, anchor, np.zeros(knot.size), shift.max(axis=1))
+        for rows, width in _batches(first, stop, shift.shape[1]):
+            a, w = _gather(group, first[rows], stop[rows], width)
+            x = knot[rows, None, None] + (a - anchor[rows, None])[:, None, :] + shift[rows, :, None]
+            slopes = np.asarray(lines.axle.slope(x.ravel())).reshape(x.shape)
+            total[rows] += (slopes * w[:, None, :]).sum(axis=2)
     for seg, h in zip(group.segments, lines.segments):
         for end, sign in ((seg.end, 1.0), (seg.start, -1.0)):
             if math.isfinite(end):  # an end at infinity is off the beam: ordinate 0
@@ -389,11 +424,8 @@ def candidates(group: Group, lines: Lines) -> Candidates:
     left = right = seg
     faces = np.zeros(knot.size, dtype=bool)
     if group.offsets:
-        x, w = _on_beam(group, lines, knot, anchor, zero)
-        lo, hi, face = _both_sides(lines.axle, x, lines.tol)
-        left = seg + (lo * w).sum(axis=1)
-        right = seg + (hi * w).sum(axis=1)
-        faces = (face & (w != 0)).any(axis=1)
+        lo, hi, faces = _event_values(group, lines, knot, anchor)
+        left, right = seg + lo, seg + hi
     # an event with a load at a jump is two candidates, one per face; any other is one
     parts = [
         (knot, anchor, zero, np.where(faces, RIGHT, EXACT), right),
@@ -707,3 +739,54 @@ def assemble(cut: Split, index: int, best: ChainOptimum, tol: float) -> ChainOpt
         if o is not None:
             original[o] = gaps[k]
     return ChainOptimum(best.value, ordered, tuple(original))
+
+
+# --------------------------------------------------------------------- cost
+PATTERN_GAPS = 2
+"""Most varying gaps searched by patterns of held and free gaps (3^k patterns); more go to the programme."""
+
+MATRIX_LIMIT = 4_000_000
+"""Largest table of pairs of candidates the pattern search may build; larger chains go to the programme."""
+
+
+@dataclass(frozen=True)
+class Cost:
+    """What a search of a chain on a line takes: ``work`` ordinate evaluations (an estimate), and the
+    numbers behind it; ``patterns`` says whether the pattern search is used."""
+
+    work: float
+    axles: int
+    variable: int
+    breakpoints: int
+    on_beam: int
+    patterns: bool
+
+
+def on_beam_at_once(group: Group, length: float) -> int:
+    """The most point loads of ``group`` that fit on a stretch of ``length``."""
+    a, _ = group.arrays
+    if not a.size:
+        return 0
+    return int((np.searchsorted(a, a + length, side="right") - np.arange(a.size)).max())
+
+
+def cost(chain: Chain, lines_of: Callable[[Group], Lines]) -> Cost:
+    """The cost of searching ``chain`` (one part of a split chain), before any search is done."""
+    work, knots, widest = 0.0, 0, 0
+    sizes = []
+    for g in chain.groups:
+        lines = lines_of(g)
+        k = knot_table(lines.axle).x.size if g.offsets else 0
+        k_seg = sum(2 * knot_table(h).x.size for h in lines.segments)
+        w = on_beam_at_once(g, lines.axle.length)
+        nodes = max(_degree(g, lines) + 2, 2)
+        events = k * len(g.offsets) + k_seg
+        work += events * max(w, 1) * (2 + nodes)
+        knots, widest = max(knots, k), max(widest, w)
+        sizes.append(2 * events)
+    pairs = sum(a * b for a, b in zip(sizes[:-1], sizes[1:]))
+    patterns = chain.variable <= PATTERN_GAPS and pairs <= MATRIX_LIMIT
+    if patterns:
+        work = work * 3**chain.variable + pairs * 3**chain.variable
+    axles = sum(len(g.offsets) for g in chain.groups)
+    return Cost(work, axles, chain.variable, knots, widest, patterns)

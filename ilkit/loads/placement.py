@@ -24,9 +24,10 @@ import numpy as np
 
 from ilkit._check import choice, finite
 from ilkit._exact import fmt
-from ilkit.errors import LoadInputError, UnitsError
+from ilkit.errors import LoadInputError, PlacementTooLargeError, UnitsError
 from ilkit.influence import InfluenceLine
 from ilkit.loads import _search
+from ilkit.loads._chain import best_by_programme
 from ilkit.loads.combination import Combination, LoadModel, as_model
 from ilkit.loads.primitives import OVERFLOW, AxleTrain, KnifeEdge, Load, UniformBlocks, UniformLoad
 from ilkit.loads.results import AxlePosition, Direction, Extreme, Extremes, LoadPlacement, Patch
@@ -38,6 +39,10 @@ Sense = Literal["max", "min"]
 _SIDES = {_search.LEFT: "left", _search.RIGHT: "right", _search.EXACT: None}
 _TIE = 1e-12
 """Relative difference below which two cases or two placements are a tie (the first found is kept)."""
+
+WORK_LIMIT = 2e8
+"""Most ordinate evaluations one placement search may take (a few seconds); more raise
+:class:`~ilkit.PlacementTooLargeError` before any work is done."""
 
 
 def place(
@@ -216,15 +221,45 @@ class _Study:
         if key not in self._chains:
             find = self.finder(isinstance(load, AxleTrain) and load.drop_adverse_axles, sense)
             best: tuple[Direction, _search.Split, _search.ChainOptimum] | None = None
+            drop = isinstance(load, AxleTrain) and load.drop_adverse_axles
+
+            def lines_of(group: _search.Group) -> _search.Lines:
+                return self.lines(group, drop, sense)
+
             for direction, chain in _layouts(load):
                 cut = _search.split(chain, self.line.length)
                 for index in range(len(cut.parts)):
-                    opt = _search.best_in_chain(cut.part(index), find, sense, self.tol)
+                    part = cut.part(index)
+                    plan = _search.cost(part, lines_of)
+                    self.check(load, plan)
+                    if plan.patterns:
+                        opt = _search.best_in_chain(part, find, sense, self.tol)
+                    else:
+                        opt = best_by_programme(part, lines_of, sense, self.tol)
                     if best is None or sense * opt.value > sense * best[2].value + _TIE * abs(best[2].value):
                         best = (direction, cut, _search.assemble(cut, index, opt, self.tol))
             assert best is not None
             self._chains[key] = best
         return self._chains[key]
+
+    def check(self, load: AxleTrain | UniformBlocks | KnifeEdge, plan: _search.Cost) -> None:
+        """Refuse a search that would take more than :data:`WORK_LIMIT` ordinate evaluations."""
+        if plan.work <= WORK_LIMIT:
+            return
+        raise PlacementTooLargeError(
+            f"{load.name} on {self.line.quantity.label}: the search for the worst placement would take about "
+            f"{plan.work:.3g} ordinate evaluations ({plan.axles} axles, up to {plan.on_beam} on the beam at "
+            f"once, {plan.variable} varying spacings, {plan.breakpoints} breakpoints of the line), more than "
+            f"the limit of {WORK_LIMIT:.3g}. Give fewer axles (e.g. an equivalent uniform load for a long "
+            "train), fix some spacings, or raise ilkit.loads.placement.WORK_LIMIT if the time and memory "
+            "are available.",
+            work=plan.work,
+            limit=WORK_LIMIT,
+            axles=plan.axles,
+            variable=plan.variable,
+            breakpoints=plan.breakpoints,
+            on_beam=plan.on_beam,
+        )
 
     def describe(
         self,
