@@ -35,7 +35,20 @@ from profiles import examples
 from strategies import determinate_beams
 
 import ilkit
-from ilkit.loads import AxleTrain, extremes
+from ilkit.loads import (
+    AxleTrain,
+    Combination,
+    KnifeEdge,
+    TrainUniform,
+    UniformBlocks,
+    UniformLoad,
+    cooper,
+    extremes,
+    hl93,
+    lm1,
+    lm71,
+    sw0,
+)
 
 SETTINGS = settings(max_examples=examples(40), deadline=None, suppress_health_check=list(HealthCheck))
 MANY = settings(SETTINGS, max_examples=examples(150))
@@ -67,7 +80,7 @@ def typings(draw):
 
 @st.composite
 def typed_lines(draw, continuous: bool = False):
-    """A line of a random beam whose positions are typed in floats (kN-m)."""
+    """A line of a random beam whose positions are typed in floats (kN-m), the step of the typing, the beam."""
     if continuous:
         topo = draw(elastic_beams(max_spans=3, varying_ei=False))
     else:
@@ -95,7 +108,7 @@ def typed_lines(draw, continuous: bool = False):
     if kind == "reaction":
         rigid = [s.at for s in beam.supports if s.spring is None]
         assume(rigid)
-        return beam.reaction(draw(st.sampled_from(rigid))), h
+        return beam.reaction(draw(st.sampled_from(rigid))), h, beam
     cells = int(topo.length / unit)
     c = draw(st.integers(0, cells))
     where = draw(st.sampled_from(["cell", "between", "third"]))
@@ -109,7 +122,7 @@ def typed_lines(draw, continuous: bool = False):
         line = getattr(beam, kind)(x, side=side)
     except ilkit.IlkitError:
         assume(False)
-    return line, h
+    return line, h, beam
 
 
 @st.composite
@@ -155,7 +168,7 @@ def check_against_brute_force(line, train, two_sided: bool) -> None:
 @MANY
 @given(data=st.data())
 def test_place_is_never_beaten_on_typed_determinate_beams(data):
-    line, h = data.draw(typed_lines())
+    line, h, _ = data.draw(typed_lines())
     train = data.draw(typed_trains(h))
     check_against_brute_force(line, train, two_sided=line.is_exact and not train.is_variable)
 
@@ -163,7 +176,7 @@ def test_place_is_never_beaten_on_typed_determinate_beams(data):
 @SETTINGS
 @given(data=st.data())
 def test_place_is_never_beaten_on_typed_continuous_beams(data):
-    line, h = data.draw(typed_lines(continuous=True))
+    line, h, _ = data.draw(typed_lines(continuous=True))
     train = data.draw(typed_trains(h))
     check_against_brute_force(line, train, two_sided=False)
 
@@ -176,3 +189,42 @@ def test_brute_force_catches_a_lost_face():
     # both axles left of the section: -100 (0.9 + 0.6) / 10 (simple span shear line, -x/L left of it)
     assert b_min == pytest.approx(-15.0, abs=1e-5)
     assert b_min < -3.0  # the value the search used to give
+
+
+def _models():
+    """Published models and a combination of our own with every kind of part."""
+    own = Combination(
+        "crane and stock",
+        [
+            AxleTrain([40, 65, 65], [2.4, (1.2, 3.6)], units="kN-m", name="crane", drop_adverse_axles=True,
+                      behind=TrainUniform(6.5, 1.1, breakable=True)),
+            UniformBlocks(12.0, [2.5, 2.5], [1.7], units="kN-m", name="stock"),
+            KnifeEdge(30.0, units="kN-m", name="post"),
+            UniformLoad(3.0, units="kN-m", name="crowd"),
+        ],
+        dynamic_allowance=0.25,
+        dynamic_on=["crane"],
+        factor=1.1,
+    )
+    return [hl93(), lm1(), lm71(), sw0(), cooper(), own]
+
+
+@SETTINGS
+@given(data=st.data(), model=st.sampled_from(range(6)))
+def test_every_placement_table_sums_to_its_value(data, model):
+    line, _, beam = data.draw(typed_lines(continuous=data.draw(st.booleans())))
+    chosen = _models()[model]
+    found = extremes(line, chosen, beam=beam)
+    scale = 1e-12 * max(abs(found.maximum.value), abs(found.minimum.value), 1e-300)
+    for e in (found.maximum, found.minimum):
+        frame = e.to_frame()
+        if frame.empty:  # nothing on the beam: no rows, nothing added
+            assert e.value == 0.0
+        else:
+            column = next(c for c in frame.columns if c.startswith("factored effect"))
+            assert float(frame[column].sum()) == pytest.approx(e.value, rel=1e-12, abs=scale)
+        assert sum(p.factored for p in e.placements) == pytest.approx(e.value, rel=1e-12, abs=scale)
+        for p in e.placements:
+            for a in p.axles:  # an axle named on a face carries that face's ordinate
+                face = {"left": line.left, "right": line.right, None: line}[a.side]
+                assert a.ordinate == pytest.approx(float(face(a.x)), rel=1e-12, abs=1e-12)
