@@ -154,7 +154,7 @@ def envelope(
             raise LoadInputError(
                 f"at: x={fmt_precise(pos)} is off the beam; give sections from 0 to {fmt(L)}.", field="at", value=raw
             )
-        points.add(pos)
+        points.add(beam.position(pos))  # a section within the merge tolerance of a support is the support
     faces = set(supports) | set(releases)
 
     studies: dict[int, Extremes] = {}
