@@ -21,6 +21,7 @@ from ilkit.errors import (
     LoadInputError,
     MissingDependencyError,
     NoDerivationError,
+    PlacementTooLargeError,
     SideRequiredError,
     StiffnessRequiredError,
     UnitsError,
@@ -76,6 +77,7 @@ __all__ = [
     "LoadInputError",
     "ExportError",
     "WriteError",
+    "PlacementTooLargeError",
     # moving loads (published models: ilkit.loads)
     "AxleTrain",
     "TrainUniform",

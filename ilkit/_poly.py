@@ -1,15 +1,16 @@
 """Real roots of many small polynomials at once (vectorised), for influence lines and placement.
 
-Polynomials have degree at most 3 and are given one per row of a 2-D array
-of ascending coefficients.  Roots are wanted inside an interval, so each row
-is first mapped to ``(-1, 1)``.
+Polynomials have small degree (up to 4 in practice) and are given one per
+row of a 2-D array of ascending coefficients.  Roots are wanted inside an
+interval, so each row is first mapped to ``(-1, 1)`` and normalised, so that
+the result does not depend on the size of the numbers.
 """
 
 from __future__ import annotations
 
 import numpy as np
 
-__all__ = ["unit_roots", "roots_in_pieces"]
+__all__ = ["normalised", "unit_roots", "roots_in_pieces"]
 
 
 def _polyval(coefficients: np.ndarray, u: np.ndarray) -> np.ndarray:
@@ -38,18 +39,32 @@ def _quadratic_roots(coefficients: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
     return np.concatenate(rows), np.concatenate(roots)
 
 
-def unit_roots(coefficients: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
-    """Real roots inside (-1, 1) of polynomials of degree <= 3 (one row of ascending coefficients each).
+def normalised(coefficients: np.ndarray) -> np.ndarray:
+    """Each row divided by a power of two near its largest coefficient (rows of zeros unchanged).
 
-    Returns the row index and the root of each.  Quadratics are solved in
-    closed form; a cubic is split at the roots of its derivative into
-    monotone stretches, and a stretch whose ends differ in sign holds one
-    root, found by Newton steps kept inside a shrinking bracket (bisection
-    where a step would leave it), to rounding.
+    The roots do not change, and the arithmetic that finds them (``b² - 4ac``,
+    Newton steps) neither overflows nor underflows whatever the size of the
+    numbers (loads of 1e200 or 1e-200 N).
+    """
+    top = np.abs(coefficients).max(axis=1) if coefficients.size else np.zeros(coefficients.shape[0])
+    _, exponent = np.frexp(np.where(top > 0, top, 1.0))
+    return np.ldexp(coefficients, -exponent[:, None])
+
+
+def unit_roots(coefficients: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+    """Real roots inside (-1, 1) of polynomials of small degree (one row of ascending coefficients each).
+
+    Returns the row index and the root of each.  Rows are first normalised
+    (:func:`normalised`).  Quadratics are solved in closed form; a higher
+    degree is split at the roots of its derivative into monotone stretches,
+    and a stretch whose ends differ in sign holds one root, found by Newton
+    steps kept inside a shrinking bracket (bisection where a step would leave
+    it), to rounding.
     """
     n, width = coefficients.shape
     if width <= 1 or n == 0:
         return np.zeros(0, dtype=int), np.zeros(0)
+    coefficients = normalised(coefficients)
     if width == 2:
         c0, c1 = coefficients[:, 0], coefficients[:, 1]
         with np.errstate(divide="ignore", invalid="ignore"):
@@ -116,7 +131,14 @@ def roots_in_pieces(coefficients: np.ndarray, widths: np.ndarray) -> tuple[np.nd
     :func:`unit_roots`, and mapped back.
     """
     n = coefficients.shape[1]
-    scaled = coefficients * widths[:, None] ** np.arange(n)[None, :]  # in s = t / width
+    # in s = t / width: c_k width^k, with mantissas and exponents apart so that no power overflows
+    mantissa, exponent = np.frexp(coefficients)
+    w_mantissa, w_exponent = np.frexp(widths)
+    powers = np.arange(n)[None, :]
+    exponent = exponent + w_exponent[:, None] * powers
+    live = mantissa != 0
+    top = np.where(live.any(axis=1), np.where(live, exponent, -(10**6)).max(axis=1, initial=-(10**6)), 0)
+    scaled = np.ldexp(mantissa * w_mantissa[:, None] ** powers, exponent - top[:, None])
     bernstein = scaled @ _bernstein(n).T
     mixed = np.nonzero((bernstein.min(axis=1) < 0) & (bernstein.max(axis=1) > 0))[0]
     c = scaled[mixed] * 0.5 ** np.arange(n)[None, :]  # in v = 2 s

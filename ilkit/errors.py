@@ -22,6 +22,7 @@ __all__ = [
     "LoadInputError",
     "ExportError",
     "WriteError",
+    "PlacementTooLargeError",
 ]
 
 
@@ -140,7 +141,6 @@ class LoadInputError(_InputError):
     """
 
 
-
 class ExportError(_InputError):
     """An export that cannot be written as asked, before any file is touched: two results whose Excel sheet
     names would be the same (after the characters Excel forbids are replaced, its 31-character limit applied
@@ -172,3 +172,40 @@ class WriteError(IlkitError, OSError):
     def __init__(self, message: str, *, path: object = None) -> None:
         super().__init__(message)
         self.path = path
+
+
+class PlacementTooLargeError(LoadInputError):
+    """A placement search would take more work than ilkit allows (a train with very many axles on the
+    beam at once, or very many varying spacings).
+
+    Raised before any work is done.
+
+    Attributes
+    ----------
+    work:
+        The estimated number of ordinate evaluations.
+    limit:
+        The most allowed (``ilkit.loads.placement.WORK_LIMIT``).
+    axles, variable, breakpoints, on_beam:
+        The train's axles and varying spacings, the line's breakpoints and the
+        most axles that can stand on the beam at once.
+    """
+
+    def __init__(
+        self,
+        message: str,
+        *,
+        work: float,
+        limit: float,
+        axles: int,
+        variable: int,
+        breakpoints: int,
+        on_beam: int,
+    ) -> None:
+        super().__init__(message, field="load")
+        self.work = work
+        self.limit = limit
+        self.axles = axles
+        self.variable = variable
+        self.breakpoints = breakpoints
+        self.on_beam = on_beam

@@ -31,13 +31,14 @@ from closed_forms import shear as cshear
 from continuous_strategies import elastic_beams
 from hypothesis import HealthCheck, assume, given, settings
 from hypothesis import strategies as st
+from profiles import examples
 from strategies import determinate_beams
 
 import ilkit
 from ilkit.loads import AxleTrain, TrainUniform, UniformBlocks, extremes
 
 STEP = 0.0173  # brute-force step, deliberately not a divisor of the 0.5 lattice
-SETTINGS = settings(max_examples=60, deadline=None, suppress_health_check=[HealthCheck.too_slow])
+SETTINGS = settings(max_examples=examples(60), deadline=None, suppress_health_check=[HealthCheck.too_slow])
 
 
 # ------------------------------------------------------------------ strategies

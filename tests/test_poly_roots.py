@@ -57,3 +57,25 @@ def test_roots_in_pieces_maps_back_to_each_width():
     rows, t = roots_in_pieces(c, np.array([4.0, 0.5]))
     assert rows.tolist() == [0, 0, 1]
     assert t == pytest.approx([1.0, 3.0, 0.25])
+
+
+@settings(max_examples=100, deadline=None)
+@given(
+    st.lists(st.lists(coefficient, min_size=3, max_size=5), min_size=1, max_size=6),
+    st.sampled_from([2.0**-830, 2.0**-400, 2.0**400, 2.0**830]),
+)
+def test_roots_do_not_depend_on_the_size_of_the_coefficients(rows, size):
+    # the same polynomials times about 1e250 or 1e-250 (loads of any size): b^2 - 4ac must neither overflow
+    # nor underflow.  Powers of two scale without rounding, so the roots must be the very same.
+    width = max(len(r) for r in rows)
+    c = np.array([r + [0.0] * (width - len(r)) for r in rows])
+    idx, roots = unit_roots(c)
+    idx_s, roots_s = unit_roots(c * size)
+    assert idx.tolist() == idx_s.tolist() and roots.tolist() == roots_s.tolist()
+    widths = np.linspace(0.5, 3.0, len(rows))
+    for scale in (2.0**-20, 1.0, 2.0**20):  # pieces of any length (about 1e-6 to 1e6): roots scaled with them
+        k = np.arange(width)
+        r1, t1 = roots_in_pieces(c * size, widths)
+        r2, t2 = roots_in_pieces(c / scale**k, widths * scale)
+        assert r1.tolist() == r2.tolist()
+        assert t2.tolist() == (t1 * scale).tolist()

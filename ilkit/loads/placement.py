@@ -24,9 +24,10 @@ import numpy as np
 
 from ilkit._check import choice, finite
 from ilkit._exact import fmt
-from ilkit.errors import LoadInputError, UnitsError
+from ilkit.errors import LoadInputError, PlacementTooLargeError, UnitsError
 from ilkit.influence import InfluenceLine
 from ilkit.loads import _search
+from ilkit.loads._chain import best_by_programme
 from ilkit.loads.combination import Combination, LoadModel, as_model
 from ilkit.loads.primitives import OVERFLOW, AxleTrain, KnifeEdge, Load, UniformBlocks, UniformLoad
 from ilkit.loads.results import AxlePosition, Direction, Extreme, Extremes, LoadPlacement, Patch
@@ -36,6 +37,12 @@ __all__ = ["place", "extremes"]
 
 Sense = Literal["max", "min"]
 _SIDES = {_search.LEFT: "left", _search.RIGHT: "right", _search.EXACT: None}
+_TIE = 1e-12
+"""Relative difference below which two cases or two placements are a tie (the first found is kept)."""
+
+WORK_LIMIT = 2e8
+"""Most ordinate evaluations one placement search may take (a few seconds); more raise
+:class:`~ilkit.PlacementTooLargeError` before any work is done."""
 
 
 def place(
@@ -77,10 +84,11 @@ class _Study:
     load: Load | Combination | LoadModel
     beam: Beam | None = None
     model: LoadModel = field(init=False)
+    tol: float = field(init=False)
     _parts: dict[int, InfluenceLine] = field(init=False, default_factory=dict)
     _cands: dict[tuple[object, ...], _search.Candidates] = field(init=False, default_factory=dict)
     _effects: dict[tuple[int, int], float] = field(init=False, default_factory=dict)
-    _chains: dict[tuple[int, int], tuple[Direction, _search.Chain, _search.ChainOptimum]] = field(
+    _chains: dict[tuple[int, int], tuple[Direction, _search.Split, _search.ChainOptimum]] = field(
         init=False, default_factory=dict
     )
 
@@ -105,6 +113,7 @@ class _Study:
                 field="units",
             )
         self.model = model.converted(self.line.units)
+        self.tol = _search.COINCIDENT * self.line.length
 
     # -------------------------------------------------------------- lines
     def signed(self, sense: int) -> InfluenceLine:
@@ -113,34 +122,21 @@ class _Study:
             self._parts[sense] = self.line.part("positive" if sense > 0 else "negative")
         return self._parts[sense]
 
-    def _key(self, group: _search.Group, drop: bool, sense: int) -> tuple[_search.Group, int, int]:
-        # the axles see the signed line when adverse axles are dropped; breakable segments always do
-        axle_key = sense if drop and group.offsets else 0
-        seg_key = sense if any(s.breakable for s in group.segments) else 0
-        return (group, axle_key, seg_key)
-
-    def prefetch(self, wanted: list[tuple[_search.Group, bool]], sense: int) -> None:
-        """Search many groups at once: one vectorised pass per set of lines they see."""
-        batches: dict[tuple[int, int], dict[_search.Group, None]] = {}
-        for group, drop in wanted:
-            key = self._key(group, drop, sense)
-            if key not in self._cands:
-                batches.setdefault(key[1:], {})[group] = None
-        for (axle_key, seg_key), groups in batches.items():
-            axle_line = self.signed(sense) if axle_key else self.line
-            seg_lines = tuple(
-                tuple(self.signed(sense) if seg_key and s.breakable else self.line for s in g.segments) for g in groups
-            )
-            for group, found in zip(groups, _search.candidates_of_groups(tuple(groups), axle_line, seg_lines)):
-                self._cands[(group, axle_key, seg_key)] = found
+    def lines(self, group: _search.Group, drop: bool, sense: int) -> _search.Lines:
+        """The lines a group is searched on: the signed part for axles when adverse axles are dropped and
+        for breakable uniform loads, the line itself otherwise."""
+        axle = self.signed(sense) if drop and group.offsets else self.line
+        segments = tuple(self.signed(sense) if s.breakable else self.line for s in group.segments)
+        return _search.Lines(axle, segments, self.tol)
 
     def finder(self, drop: bool, sense: int) -> Callable[[_search.Group], _search.Candidates]:
-        """Candidates of a group, searched on the lines it sees."""
+        """Candidates of a group, searched on the lines it sees (cached)."""
 
         def find(group: _search.Group) -> _search.Candidates:
-            key = self._key(group, drop, sense)
+            axle_sense = sense if drop and group.offsets else 0
+            key = (group, axle_sense, sense if any(s.breakable for s in group.segments) else 0)
             if key not in self._cands:
-                self.prefetch([(group, drop)], sense)
+                self._cands[key] = _search.candidates(group, self.lines(group, drop, sense))
             return self._cands[key]
 
         return find
@@ -155,26 +151,18 @@ class _Study:
 
     def _extreme(self, sense: int) -> Extreme:
         cases = [case for case in self.model.cases if self.applies(case, sense)]
-        wanted = [
-            (block, isinstance(part, AxleTrain) and part.drop_adverse_axles)
-            for case in cases
-            for part in case.parts
-            if not isinstance(part, UniformLoad)
-            for _, chain in _layouts(part)
-            for pattern in _search.patterns(chain)
-            for block in pattern.blocks
-        ]
-        self.prefetch(wanted, sense)
         best: tuple[float, Combination] | None = None
         for case in cases:
             total = sum(case.part_factor(part) * self.effect(part, sense) for part in case.parts)
-            if best is None or sense * total > sense * best[0] + 1e-12 * max(1.0, abs(best[0])):
+            if best is None or sense * total > sense * best[0] + _TIE * abs(best[0]):
                 best = (total, case)
         assert best is not None  # a model always has a case that applies everywhere
-        total, case = best
+        _, case = best
         placements = tuple(self.placement(part, sense, case.part_factor(part)) for part in case.parts)
+        # the value is the sum of the table: what each load, as described, adds
+        total = float(sum(p.factored for p in placements))
         return Extreme(
-            self.line.quantity, "max" if sense > 0 else "min", float(total), case.name, placements, self.line.units
+            self.line.quantity, "max" if sense > 0 else "min", total, case.name, placements, self.line.units
         )
 
     def applies(self, case: Combination, sense: int) -> bool:
@@ -222,77 +210,117 @@ class _Study:
     def placement(self, part: Load, sense: int, factor: float) -> LoadPlacement:
         if isinstance(part, UniformLoad):
             patches = self.patches_on_sign(part.intensity, [(-np.inf, np.inf)], sense)
-            return LoadPlacement(part.name, self.effect(part, sense), factor, None, (), (), patches, line=self.line)
-        direction, chain, opt = self.best_chain(part, sense)
+            effect = float(sum(p.effect for p in patches))
+            return LoadPlacement(part.name, effect, factor, None, (), (), patches, line=self.line)
+        direction, cut, opt = self.best_chain(part, sense)
         drop = isinstance(part, AxleTrain) and part.drop_adverse_axles
-        return self.describe(part, None if isinstance(part, KnifeEdge) else direction, chain, opt, sense, drop, factor)
+        return self.describe(part, direction, cut, opt, sense, drop, factor)
 
     def best_chain(
         self, load: AxleTrain | UniformBlocks | KnifeEdge, sense: int
-    ) -> tuple[Direction, _search.Chain, _search.ChainOptimum]:
+    ) -> tuple[Direction, _search.Split, _search.ChainOptimum]:
+        """The worst placement of a travelling load, over both directions and every part of it that can be
+        on the beam alone."""
         key = (id(load), sense)
         if key not in self._chains:
             find = self.finder(isinstance(load, AxleTrain) and load.drop_adverse_axles, sense)
-            best: tuple[Direction, _search.Chain, _search.ChainOptimum] | None = None
+            best: tuple[Direction, _search.Split, _search.ChainOptimum] | None = None
+            drop = isinstance(load, AxleTrain) and load.drop_adverse_axles
+
+            def lines_of(group: _search.Group) -> _search.Lines:
+                return self.lines(group, drop, sense)
+
             for direction, chain in _layouts(load):
-                opt = _search.best_in_chain(chain, find, sense)
-                if best is None or sense * opt.value > sense * best[2].value + 1e-12 * max(1.0, abs(best[2].value)):
-                    best = (direction, chain, opt)
+                cut = _search.split(chain, self.line.length)
+                for index in range(len(cut.parts)):
+                    part = cut.part(index)
+                    plan = _search.cost(part, lines_of)
+                    self.check(load, plan)
+                    if plan.patterns:
+                        opt = _search.best_in_chain(part, find, sense, self.tol)
+                    else:
+                        opt = best_by_programme(part, lines_of, sense, self.tol)
+                    if best is None or sense * opt.value > sense * best[2].value + _TIE * abs(best[2].value):
+                        best = (direction, cut, _search.assemble(cut, index, opt, self.tol))
             assert best is not None
             self._chains[key] = best
         return self._chains[key]
 
+    def check(self, load: AxleTrain | UniformBlocks | KnifeEdge, plan: _search.Cost) -> None:
+        """Refuse a search that would take more than :data:`WORK_LIMIT` ordinate evaluations."""
+        if plan.work <= WORK_LIMIT:
+            return
+        raise PlacementTooLargeError(
+            f"{load.name} on {self.line.quantity.label}: the search for the worst placement would take about "
+            f"{plan.work:.3g} ordinate evaluations ({plan.axles} axles, up to {plan.on_beam} on the beam at "
+            f"once, {plan.variable} varying spacings, {plan.breakpoints} breakpoints of the line), more than "
+            f"the limit of {WORK_LIMIT:.3g}. Give fewer axles (e.g. an equivalent uniform load for a long "
+            "train), fix some spacings, or raise ilkit.loads.placement.WORK_LIMIT if the time and memory "
+            "are available.",
+            work=plan.work,
+            limit=WORK_LIMIT,
+            axles=plan.axles,
+            variable=plan.variable,
+            breakpoints=plan.breakpoints,
+            on_beam=plan.on_beam,
+        )
+
     def describe(
         self,
         load: AxleTrain | UniformBlocks | KnifeEdge,
-        direction: Direction | None,
-        chain: _search.Chain,
+        direction: Direction,
+        cut: _search.Split,
         opt: _search.ChainOptimum,
         sense: int,
         drop: bool,
         factor: float,
     ) -> LoadPlacement:
-        line = self.line
-        xs: list[float] = []
-        sides: list[int] = []
-        segments: list[tuple[float, float, _search.Segment]] = []
-        for group, y, side in zip(chain.groups, opt.positions, opt.sides):
-            xs.extend(y + a for a in group.offsets)
-            sides.extend(side for _ in group.offsets)
-            segments.extend((y + s.start, y + s.end, s) for s in group.segments)
-        if direction == "left to right":  # the lead axle is the rightmost
-            xs.reverse()
-            sides.reverse()
+        """The placement as a table: every axle at the position the search evaluated, with the ordinate of
+        the face it stands on, every loaded stretch, and their sum."""
+        line, tol = self.line, self.tol
+        standings = opt.standings
+        xs = np.concatenate([s.axles() for s in standings])
+        sides = np.concatenate([np.full(len(s.block.offsets), s.side) for s in standings])
+        if drop:  # the positions the search evaluated on the signed part, moved onto its knots
+            xs, _ = _search.snap(self.signed(sense), xs, tol)
+        values, xs, faces = _search.ordinates(line, xs, sides, tol)
+        lead_last = direction == "left to right"  # the mirrored chain: the lead axle is the rightmost
+        order = np.arange(xs.size)[::-1] if lead_last else np.arange(xs.size)
         loads = load.loads if isinstance(load, AxleTrain) else ((load.load,) if isinstance(load, KnifeEdge) else ())
         axles = []
-        for number, (x, side, p) in enumerate(zip(xs, sides, loads), start=1):
-            if side == _search.LEFT:
-                ordinate = float(line.left(x))
-            elif side == _search.RIGHT:
-                ordinate = float(line.right(x))
-            else:
-                ordinate = float(line(x))
+        for number, (k, p) in enumerate(zip(order, loads), start=1):
+            x, face, ordinate = float(xs[k]), int(faces[k]), float(values[k])
             on_beam = 0.0 <= x <= line.length and not (
-                (side == _search.LEFT and x <= 0.0) or (side == _search.RIGHT and x >= line.length)
+                (face == _search.LEFT and x <= 0.0) or (face == _search.RIGHT and x >= line.length)
             )
             counted = on_beam and (not drop or sense * ordinate > 0)
-            axles.append(AxlePosition(number, p, x, _SIDES[side], ordinate, counted))
-        spacings = tuple(abs(b - a) for a, b in zip(xs[:-1], xs[1:]))
+            axles.append(AxlePosition(number, p, x, _SIDES[face], ordinate, counted))
         patches: list[Patch] = []
-        for start, end, seg in sorted(segments, key=lambda s: s[0]):
+        segments = sorted(((s.at(g.start), s.at(g.end), g) for s in standings for g in s.block.segments),
+                          key=lambda item: item[0])
+        for start, end, seg in segments:
             if seg.breakable:
                 patches.extend(self.patches_on_sign(seg.intensity, [(start, end)], sense))
             else:
                 a, b = max(start, 0.0), min(end, line.length)
                 if b > a:
                     patches.append(Patch(a, b, seg.intensity, seg.intensity * line.integral(a, b)))
-        # the front: offset 0 of the first group when travelling right to left (the natural
-        # chain), the far end of the last group of the mirrored chain when travelling left to right
-        last = chain.groups[-1]
-        front = opt.positions[-1] + last.extent if direction == "left to right" else opt.positions[0]
-        return LoadPlacement(
-            load.name, opt.value, factor, direction, spacings, tuple(axles), tuple(patches), front, line
+        spacings: tuple[float, ...] = ()
+        if isinstance(load, AxleTrain):
+            chosen = iter(reversed(opt.gaps) if lead_last else opt.gaps)
+            spacings = tuple(lo if lo == hi else next(chosen) for lo, hi in load.spacings)
+        # the front: offset 0 of the first group when travelling right to left (the natural chain), the
+        # far end of the last group of the mirrored chain when travelling left to right
+        groups = cut.chain.groups
+        head, tail = standings[0], standings[-1]
+        front = (
+            tail.at(tail.members[-1][1] + groups[tail.members[-1][0]].extent)
+            if lead_last
+            else head.at(head.members[0][1])
         )
+        effect = float(sum(a.effect for a in axles) + sum(p.effect for p in patches))
+        shown = None if isinstance(load, KnifeEdge) else direction
+        return LoadPlacement(load.name, effect, factor, shown, spacings, tuple(axles), tuple(patches), front, line)
 
     def patches_on_sign(self, intensity: float, spans: list[tuple[float, float]], sense: int) -> tuple[Patch, ...]:
         """Patches of a breakable load limited to ``spans``: the parts of the line of the wanted sign."""

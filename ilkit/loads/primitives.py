@@ -385,21 +385,22 @@ class AxleTrain:
         """Groups between variable spacings, lead axle at the left (the train travelling right to left)."""
         groups: list[Group] = []
         gaps: list[tuple[float, float]] = []
-        offsets, loads = [0.0], [self.loads[0]]
+        spacings: list[float] = []
+        loads = [self.loads[0]]
         for (lo, hi), load in zip(self.spacings, self.loads[1:]):
             if lo == hi:
-                offsets.append(offsets[-1] + lo)
+                spacings.append(lo)
                 loads.append(load)
             else:
-                groups.append(Group(tuple(offsets), tuple(loads)))
+                groups.append(Group.of(spacings, loads))
                 gaps.append((lo, hi))
-                offsets, loads = [0.0], [load]
-        groups.append(Group(tuple(offsets), tuple(loads)))
+                spacings, loads = [], [load]
+        groups.append(Group.of(spacings, loads))
         if self.ahead is not None:
             a = self.ahead
             first = groups[0]
             lead = Segment(-math.inf, -a.clearance, a.intensity, a.breakable)
-            groups[0] = Group(first.offsets, first.loads, (*first.segments, lead))
+            groups[0] = Group(first.offsets, first.loads, (*first.segments, lead), first.exact)
         if self.behind is not None:
             b = self.behind
             last = groups[-1]
@@ -407,6 +408,7 @@ class AxleTrain:
                 last.offsets,
                 last.loads,
                 (*last.segments, Segment(last.extent + b.clearance, math.inf, b.intensity, b.breakable)),
+                last.exact,
             )
         return Chain(tuple(groups), tuple(gaps))
 
@@ -583,7 +585,7 @@ class KnifeEdge:
 
     def chain(self) -> Chain:
         """One group of one load at offset 0."""
-        return Chain((Group((0.0,), (self.load,)),))
+        return Chain((Group.of([], [self.load]),))
 
 
 Load = AxleTrain | UniformLoad | UniformBlocks | KnifeEdge

@@ -171,7 +171,7 @@ def _spacings(load: Travelling, spacings: Sequence[float] | None) -> list[float]
     out = []
     for k, (raw, (lo, hi)) in enumerate(zip(given, ranges)):
         value = number(raw, f"stand: spacing {k + 1}", strict=False)
-        tol = 1e-9 * max(1.0, lo, hi if math.isfinite(hi) else lo)
+        tol = 1e-9 * max(lo, hi if math.isfinite(hi) else lo)  # relative: spacings of any size
         if not lo - tol <= value <= hi + tol:
             allowed = fmt(lo) if lo == hi else f"{fmt(lo)} to {fmt(hi) if math.isfinite(hi) else 'any length'}"
             raise LoadInputError(
