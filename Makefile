@@ -19,7 +19,7 @@ demo: $(STAMP)
 	$(PY) -m ilkit.demo --out out/demo
 
 lint: $(STAMP)
-	$(PY) -m ruff check ilkit tests benchmarks tools
+	$(PY) -m ruff check ilkit tests benchmarks tools notebooks
 
 test: $(STAMP) lint
 	$(PY) -m pytest --nbval --nbval-current-env -p no:cacheprovider
