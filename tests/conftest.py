@@ -3,6 +3,7 @@ import sys
 
 sys.path.insert(0, os.path.dirname(__file__))
 
+import pytest
 from hypothesis import HealthCheck, settings
 
 # No test depends on the speed of the machine: hypothesis neither fails an
@@ -14,3 +15,32 @@ settings.register_profile("any-machine", **ANY_MACHINE)
 # reproducible); locally hypothesis explores new examples on every run.
 settings.register_profile("ci", derandomize=True, database=None, print_blob=True, **ANY_MACHINE)
 settings.load_profile("ci" if os.environ.get("CI") else "any-machine")
+
+
+# ilkit as a user installs it (tests/installed.py): built once per session, shared by
+# tests/test_install.py and the offline-page browser test.
+@pytest.fixture(scope="session")
+def built_dist(tmp_path_factory):
+    """The sdist and the wheel of the checkout (``python -m build``)."""
+    import installed
+
+    return installed.build(tmp_path_factory.mktemp("dist"))
+
+
+@pytest.fixture(scope="session")
+def clean_install(built_dist, tmp_path_factory):
+    """A clean virtual environment with the wheel and its notebook extra, nothing else."""
+    import installed
+
+    return installed.install(*built_dist, tmp_path_factory.mktemp("clean"))
+
+
+@pytest.fixture(scope="session")
+def installed_demo(clean_install):
+    """``python -m ilkit.demo`` run in the clean environment on the shipped notebooks: (output folder, run)."""
+    import installed
+
+    out = clean_install.workdir / "demo"
+    done = clean_install.run("-m", "ilkit.demo", "--out", out, "--notebooks", installed.ROOT / "notebooks",
+                             timeout=1800)
+    return out, done
