@@ -139,15 +139,14 @@ def _copy_mathjax(out: Path) -> str:
 # The page template: JupyterLab's look, and nothing loaded from the network.  MathJax
 # comes from beside the page; require.js, the widget manager and mermaid are left out
 # (a page without a kernel shows stills and text instead of widgets).
-PAGE_TEMPLATE = r"""{%- extends 'index.html.j2' -%}
+PAGE_TEMPLATE = """{%- extends 'index.html.j2' -%}
 {%- block html_head_js_requirejs -%}{%- endblock html_head_js_requirejs -%}
 {% block jupyter_widgets %}{% endblock jupyter_widgets %}
 {%- block html_head_js_mermaidjs -%}{%- endblock html_head_js_mermaidjs -%}
 {%- block html_head_js_mathjax -%}
 <script>
 window.MathJax = {
-  tex: {inlineMath: [['$', '$'], ['\(', '\)']], displayMath: [['$$', '$$'], ['\[', '\]']],
-        processEscapes: true, processEnvironments: true},
+  tex: {inlineMath: [['$', '$']], displayMath: [['$$', '$$']], processEscapes: true},
   svg: {fontCache: 'global'},
   options: {enableMenu: false}
 };
