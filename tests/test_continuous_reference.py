@@ -22,7 +22,7 @@ import ilkit
 # as printed in beam-diagram tables such as "Beam Diagrams and Formulas" of
 # the AISC Steel Construction Manual (quoted from memory):
 #   R1 = P b / (4 L³) [4 L² - a (L + a)]
-#   R2 = P a / (2 L³) [2 L² + b (L + a)]       (= x (3L² - x²) / (2L³), the form in the issue)
+#   R2 = P a / (2 L³) [2 L² + b (L + a)]       (= P a (3L² - a²) / (2L³), since b (L + a) = L² - a²)
 #   R3 = -P a b / (4 L³) (L + a)
 #   M2 (over the middle support) = -P a b (L + a) / (4 L²)
 #   M under the load = P a b / (4 L³) [4 L² - a (L + a)]
@@ -51,7 +51,7 @@ def test_two_equal_spans_handbook_closed_forms(a):
     want = _two_span(a, L)
     assert beam.reaction(0, exact=True).ordinate_exact(a) == want["R1"]
     assert beam.reaction(L, exact=True).ordinate_exact(a) == want["R2"]
-    assert want["R2"] == a * (3 * L**2 - a**2) / (2 * L**3)  # the issue's form of the same reaction
+    assert want["R2"] == a * (3 * L**2 - a**2) / (2 * L**3)  # the same reaction simplified (derived above)
     assert beam.reaction(2 * L, exact=True).ordinate_exact(a) == want["R3"]
     assert beam.moment(L, exact=True).ordinate_exact(a) == want["M2"]
     assert beam.moment(a, exact=True).ordinate_exact(a) == want["M_load"]
