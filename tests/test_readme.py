@@ -41,3 +41,16 @@ def test_readme_examples_run(tmp_path, monkeypatch):
         girder, vehicle = namespace["girder"], namespace["vehicle"]
         assert explorer.value == pytest.approx(ilkit.stand(girder.moment(28), vehicle, 45.0).effect)
         explorer.close()
+
+
+def test_quick_start_girder_is_the_girder_of_the_notebooks():
+    """Regression: the first example was a stock short beam (fixed end, hinge, roller, overhang, round
+    numbers) unrelated to the studies; it is now the suspended-span girder the notebooks study."""
+    from ilkit.views.demo import suspended_span_girder
+
+    namespace: dict = {}
+    exec(compile(blocks()[0], str(README), "exec"), namespace)
+    assert namespace["beam"] == suspended_span_girder()
+    notebook = (README.parent / "tools" / "nb_hinged_girder.py").read_text(encoding="utf-8")
+    assert 'supports={0: "pin", 32: "roller", 76: "roller", 108: "roller"}' in notebook
+    assert "hinges=[41, 67]" in notebook
