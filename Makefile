@@ -1,18 +1,21 @@
 # The two commands of the README:
 #   make demo  - set up and run the demo study, results in out/demo/
 #   make test  - set up and run the whole test suite (lint, unit, property,
-#                reference, notebook and browser tests)
+#                reference, notebook, install and browser tests)
+# Both create .venv on first use, which needs the package index (PyPI).
 PYTHON ?= python3
 VENV   := .venv
 PY     := $(VENV)/bin/python
 STAMP  := $(VENV)/.installed
 
-.PHONY: demo test lint bench clean
+.PHONY: demo test lint bench dist clean
 
+# An editable install (changes to ilkit/ need no reinstall); setuptools' notice
+# about editable installs is left out of the first-use output.
 $(STAMP): pyproject.toml
 	$(PYTHON) -m venv $(VENV)
 	$(PY) -m pip install --quiet --upgrade pip
-	$(PY) -m pip install --quiet -e ".[notebook,test]"
+	PYTHONWARNINGS="ignore:Editable installation" $(PY) -m pip install --quiet -e ".[notebook,test]"
 	touch $(STAMP)
 
 demo: $(STAMP)
@@ -27,5 +30,11 @@ test: $(STAMP) lint
 bench: $(STAMP)
 	@for f in benchmarks/*.py; do echo "== $$f"; $(PY) $$f || exit 1; done
 
+# The sdist and the wheel in dist/, with their metadata checked.
+dist: $(STAMP)
+	rm -rf dist
+	$(PY) -m build --outdir dist .
+	$(PY) -m twine check --strict dist/*
+
 clean:
-	rm -rf $(VENV) out .pytest_cache
+	rm -rf $(VENV) out dist build *.egg-info .pytest_cache
