@@ -21,7 +21,6 @@ import argparse
 import base64
 import html
 import os
-import shutil
 import sys
 import uuid
 from pathlib import Path
@@ -66,20 +65,20 @@ def run(out: Path, notebooks: Path | None = None) -> Path:
     for path in sorted(source.glob("*.ipynb")):
         print(f"running {path.name} ...", flush=True)
         nb = nbformat.read(path, as_version=4)
-        NotebookClient(nb, timeout=900, km=_kernel_manager(), resources={"metadata": {"path": str(out)}}).execute()
-        nbformat.write(nb, out / path.name)
+        NotebookClient(nb, timeout=900, km=kernel_manager(), resources={"metadata": {"path": str(out)}}).execute()
+        _write(out / path.name, nbformat.writes(nb))
         title = next(
             (c.source.lstrip("# ").splitlines()[0] for c in nb.cells if c.cell_type == "markdown"), path.stem
         )
         body, _ = _page_exporter(mathjax_url).from_notebook_node(nb, resources={"metadata": {"name": title}})
-        (out / f"{path.stem}.html").write_text(body, encoding="utf-8")
+        _write(out / f"{path.stem}.html", body)
         count = 0
         for cell in nb.cells:
             for output in cell.get("outputs", []):
                 data = output.get("data", {})
                 if "image/png" in data:
                     count += 1
-                    (figures / f"{path.stem}-{count}.png").write_bytes(base64.b64decode(data["image/png"]))
+                    _write(figures / f"{path.stem}-{count}.png", base64.b64decode(data["image/png"]))
         entries.append((path.stem, title, count))
     for extra in _extra_outputs(out):
         entries.append(extra)
@@ -92,29 +91,53 @@ def run(out: Path, notebooks: Path | None = None) -> Path:
             (e[0] if e[0].endswith((".html", ".md")) else f"{e[0]}.html", e[1], e[2]) for e in entries
         )
     )
-    index.write_text(
+    _write(
+        index,
         "<!doctype html><html><head><meta charset='utf-8'><title>ilkit demo study</title></head>"
         "<body style='font-family: sans-serif; max-width: 50em; margin: 2em auto'>"
         "<h1>ilkit demo study</h1>"
         f"<p><strong>Caution.</strong> {html.escape(CAUTION)}</p>"
         f"<ul>{items}</ul></body></html>",
-        encoding="utf-8",
     )
     return index
 
 
-def _kernel_manager() -> Any:
-    """A kernel manager for one notebook: local sockets, so the kernel warns of no unencrypted TCP."""
+def _write(path: Path, data: str | bytes) -> None:
+    """Write ``data`` (text as UTF-8) to ``path`` atomically: a temporary file beside it, then a rename,
+    so that a failed write leaves an existing file untouched."""
+    temporary = path.with_name(f".{path.name}.{uuid.uuid4().hex[:8]}.tmp")
+    try:
+        temporary.write_bytes(data.encode("utf-8") if isinstance(data, str) else data)
+        os.replace(temporary, path)
+    finally:
+        temporary.unlink(missing_ok=True)
+
+
+def kernel_manager() -> Any:
+    """A Jupyter kernel manager for this very Python, talking over local sockets.
+
+    The kernel runs ``sys.executable`` (the interpreter that has ilkit), whatever
+    kernelspecs named "python3" the machine's Jupyter folders hold; on Unix its
+    channels are domain sockets in the Jupyter runtime folder, so the kernel has
+    no unencrypted TCP to warn about (on Windows: TCP, encrypted where the kernel
+    can).  Used by the demo runner, and by the tests that start kernels.
+    """
+    from ipykernel.kernelspec import get_kernel_dict
     from jupyter_client import KernelManager
+    from jupyter_client.kernelspec import KernelSpec, KernelSpecManager
     from jupyter_core.paths import jupyter_runtime_dir
 
-    manager = KernelManager(kernel_name="python3")
-    if os.name == "posix":  # Unix domain sockets in the Jupyter runtime folder
+    class ThisPython(KernelSpecManager):  # type: ignore[misc]
+        def get_kernel_spec(self, kernel_name: str) -> KernelSpec:
+            return KernelSpec(resource_dir="", **get_kernel_dict())
+
+    manager = KernelManager(kernel_name="python3", kernel_spec_manager=ThisPython())
+    if os.name == "posix":
         runtime = Path(jupyter_runtime_dir())
         runtime.mkdir(parents=True, exist_ok=True)
         manager.transport = "ipc"
-        manager.ip = str(runtime / f"ilkit-demo-{uuid.uuid4().hex[:12]}")
-    elif manager.has_trait("transport_encryption"):  # Windows: TCP, encrypted where the kernel can
+        manager.ip = str(runtime / f"ilkit-kernel-{uuid.uuid4().hex[:12]}")
+    elif manager.has_trait("transport_encryption"):
         manager.transport_encryption = "auto"
     return manager
 
@@ -132,7 +155,7 @@ def _copy_mathjax(out: Path) -> str:
     target = out / MATHJAX
     target.mkdir(parents=True, exist_ok=True)
     for name in ("es5/tex-svg-full.js", "LICENSE"):
-        shutil.copyfile(source / name, target / Path(name).name)
+        _write(target / Path(name).name, (source / name).read_bytes())
     return f"{MATHJAX}/tex-svg-full.js"
 
 

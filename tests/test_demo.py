@@ -95,3 +95,38 @@ def test_pages_load_nothing_from_the_network_and_have_their_study_as_title(tmp_p
     page = (out / "pier.html").read_text(encoding="utf-8")
     assert 'src="_static/mathjax/tex-svg-full.js"' in page
     assert "<title>Moment over the pier</title>" in page
+
+
+def test_demo_runs_the_notebooks_in_this_python(tmp_path, monkeypatch):
+    """A kernelspec named python3 in the machine's Jupyter folders (another Python, without ilkit) does not
+    decide where the demo runs: its kernels are this interpreter."""
+    import json
+    import sys
+
+    spec = tmp_path / "jupyter" / "kernels" / "python3"
+    spec.mkdir(parents=True)
+    (spec / "kernel.json").write_text(json.dumps({"argv": ["/nonexistent/python", "-m", "ipykernel_launcher", "-f",
+                                                            "{connection_file}"],
+                                                   "display_name": "Python 3 (elsewhere)", "language": "python"}))
+    monkeypatch.setenv("JUPYTER_PATH", str(tmp_path / "jupyter"))
+    folder = tmp_path / "nbs"
+    folder.mkdir()
+    nb = nbformat.v4.new_notebook()
+    nb.cells = [nbformat.v4.new_code_cell("import sys, ilkit\nprint(sys.executable)")]
+    nbformat.write(nb, folder / "where.ipynb")
+    demo.run(tmp_path / "out", notebooks=folder)
+    executed = nbformat.read(tmp_path / "out" / "where.ipynb", as_version=4)
+    assert executed.cells[0].outputs[0]["text"].strip() == sys.executable
+
+
+def test_a_failed_page_write_leaves_the_existing_page_untouched(tmp_path):
+    page = tmp_path / "study.html"
+    page.write_text("the page of the last run", encoding="utf-8")
+    try:
+        demo._write(page, "half a page \ud800")  # a lone surrogate cannot be written as UTF-8
+    except UnicodeEncodeError:
+        pass
+    assert page.read_text(encoding="utf-8") == "the page of the last run"
+    assert [p.name for p in tmp_path.iterdir()] == ["study.html"]  # no temporary file left
+    demo._write(page, "the new page")
+    assert page.read_text(encoding="utf-8") == "the new page"

@@ -35,9 +35,13 @@ print(explorer.slider.model_id, explorer.slider.value)
 
 @pytest.fixture(scope="module")
 def kernel():
-    from jupyter_client.manager import start_new_kernel
+    from ilkit.demo import kernel_manager
 
-    manager, client = start_new_kernel(kernel_name="python3")
+    manager = kernel_manager()  # this Python, whatever kernelspecs the machine holds
+    manager.start_kernel()
+    client = manager.client()
+    client.start_channels()
+    client.wait_for_ready(timeout=120)
     yield client
     client.stop_channels()
     manager.shutdown_kernel(now=True)

@@ -54,3 +54,38 @@ def test_quick_start_girder_is_the_girder_of_the_notebooks():
     notebook = (README.parent / "tools" / "nb_hinged_girder.py").read_text(encoding="utf-8")
     assert 'supports={0: "pin", 32: "roller", 76: "roller", 108: "roller"}' in notebook
     assert "hinges=[41, 67]" in notebook
+
+
+def section(title: str) -> str:
+    text = README.read_text(encoding="utf-8")
+    start = text.index(f"\n## {title}\n")
+    end = text.find("\n## ", start + 1)
+    return text[start:end if end > 0 else None]
+
+
+def test_readme_says_what_first_use_needs_and_how_to_install_each_extra():
+    """Regression: the README did not say that the two commands need the package index, how long they take
+    or how big the environment is, nor how to install ilkit elsewhere with only the extras needed."""
+    import sys
+
+    if sys.version_info >= (3, 11):
+        import tomllib
+    else:  # pragma: no cover - Python 3.10
+        tomllib = pytest.importorskip("tomli")
+    first_use = section("Two commands")
+    assert "package index (PyPI)" in first_use
+    assert re.search(r"\d+(\.\d+)? GB on disk", first_use) and re.search(r"\d+ MB", first_use)
+    assert re.search(r"about \d+ minutes?", first_use) and re.search(r"about \d+ packages", first_use)
+    install = section("Installing ilkit in your own environment")
+    extras = tomllib.loads((README.parent / "pyproject.toml").read_text(encoding="utf-8"))["project"][
+        "optional-dependencies"]
+    for extra in set(extras) - {"test"}:
+        assert f'pip install -e ".[{extra}]"' in install, extra
+    assert "pip install -e ." in install and ".whl[notebook]" in install
+
+
+def test_readme_lists_the_versions_the_suite_was_run_with():
+    tested = section("Tested with")
+    for name in ("Python", "numpy", "sympy", "pandas", "matplotlib", "jupyterlab", "ipywidgets", "nbval",
+                 "pytest", "Chromium"):
+        assert re.search(rf"\b{name} \d+\.\d+", tested), name
