@@ -74,8 +74,8 @@ def test_readme_says_what_first_use_needs_and_how_to_install_each_extra():
         tomllib = pytest.importorskip("tomli")
     first_use = section("Two commands")
     assert "package index (PyPI)" in first_use
-    assert re.search(r"\d+(\.\d+)? GB on disk", first_use) and re.search(r"\d+ MB", first_use)
-    assert re.search(r"about \d+ minutes?", first_use) and re.search(r"about \d+ packages", first_use)
+    assert re.search(r"\d+(\.\d+)?\s+GB\s+on\s+disk", first_use) and re.search(r"\d+\s+MB", first_use)
+    assert re.search(r"about\s+\d+\s+minutes?", first_use) and re.search(r"about\s+\d+\s+packages", first_use)
     install = section("Installing ilkit in your own environment")
     extras = tomllib.loads((README.parent / "pyproject.toml").read_text(encoding="utf-8"))["project"][
         "optional-dependencies"]
