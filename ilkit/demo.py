@@ -52,7 +52,6 @@ def run(out: Path, notebooks: Path | None = None) -> Path:
     """Execute the notebooks and write the rendered results to ``out``; return the index page."""
     try:
         import nbformat
-        from nbclient import NotebookClient
     except ImportError as err:  # pragma: no cover - exercised without the extra only
         raise _missing(err) from err
 
@@ -65,7 +64,7 @@ def run(out: Path, notebooks: Path | None = None) -> Path:
     for path in sorted(source.glob("*.ipynb")):
         print(f"running {path.name} ...", flush=True)
         nb = nbformat.read(path, as_version=4)
-        NotebookClient(nb, timeout=900, km=kernel_manager(), resources={"metadata": {"path": str(out)}}).execute()
+        execute(nb, cwd=out)
         _write(out / path.name, nbformat.writes(nb))
         title = next(
             (c.source.lstrip("# ").splitlines()[0] for c in nb.cells if c.cell_type == "markdown"), path.stem
@@ -111,6 +110,18 @@ def _write(path: Path, data: str | bytes) -> None:
         os.replace(temporary, path)
     finally:
         temporary.unlink(missing_ok=True)
+
+
+def execute(nb: Any, cwd: Path, timeout: float = 900) -> Any:
+    """Run every cell of the notebook ``nb`` (in place) in a kernel of this Python started in ``cwd``;
+    the kernel is shut down afterwards.  Returns ``nb``."""
+    try:
+        from nbclient import NotebookClient
+    except ImportError as err:  # pragma: no cover - exercised without the extra only
+        raise _missing(err) from err
+    client = NotebookClient(nb, timeout=timeout, km=kernel_manager(), resources={"metadata": {"path": str(cwd)}})
+    # the client does not own a manager it is given: ask it to shut the kernel down all the same
+    return client.execute(cleanup_kc=True)
 
 
 def kernel_manager() -> Any:

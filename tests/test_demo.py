@@ -53,9 +53,11 @@ def test_pages_show_the_still_of_the_explorer(tmp_path):
     assert (tmp_path / "out" / "figures" / "live-1.png").stat().st_size > 10_000
 
 
-def test_demo_kernels_do_not_warn_of_unencrypted_tcp(tmp_path, capfd):
+def test_demo_kernels_do_not_warn_of_unencrypted_tcp(tmp_path, capfd, monkeypatch):
     """Regression: `make demo` printed the kernel's "running over TCP without encryption" warning once
-    per notebook; the kernels now talk over local sockets."""
+    per notebook; the kernels now talk over local sockets, and each is shut down after its notebook."""
+    runtime = tmp_path / "runtime"
+    monkeypatch.setenv("JUPYTER_RUNTIME_DIR", str(runtime))
     folder = tmp_path / "nbs"
     folder.mkdir()
     for name in ("a", "b"):
@@ -66,6 +68,7 @@ def test_demo_kernels_do_not_warn_of_unencrypted_tcp(tmp_path, capfd):
     out, err = capfd.readouterr()
     assert "running a.ipynb" in out and "running b.ipynb" in out
     assert "without encryption" not in out + err and "WARNING" not in out + err
+    assert sorted(p.name for p in runtime.iterdir()) == []  # no connection file or socket left: kernels shut down
 
 
 def test_pages_load_nothing_from_the_network_and_have_their_study_as_title(tmp_path):

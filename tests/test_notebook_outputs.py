@@ -64,14 +64,12 @@ def repeat_a_vertex(svg: str) -> str:
 
 
 def executed(tmp_path: Path) -> nbformat.NotebookNode:
-    from nbclient import NotebookClient
-
-    from ilkit.demo import kernel_manager
+    from ilkit.demo import execute
 
     nb = nbformat.v4.new_notebook()
     nb.metadata["kernelspec"] = {"name": "python3", "display_name": "Python 3", "language": "python"}
     nb.cells = [nbformat.v4.new_code_cell(src) for src in (BEAM_CELL, BEAM_CELL, PLOT_CELL, PLOT_CELL, BEAM_CELL)]
-    NotebookClient(nb, timeout=120, km=kernel_manager(), resources={"metadata": {"path": str(tmp_path)}}).execute()
+    execute(nb, cwd=tmp_path, timeout=120)
     return nb
 
 
