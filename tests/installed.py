@@ -3,7 +3,8 @@
 ``build`` makes the sdist and the wheel (``python -m build``: the wheel is
 built from the sdist, so a file missing from the sdist shows);
 ``install`` creates a virtual environment with nothing in it and installs the
-wheel with the notebook extra only (``pip install "ilkit-….whl[notebook]"``);
+wheel with the notebook extra only (``pip install "ilkit-….whl[notebook]"``,
+by this environment's pip);
 ``run_demo`` runs ``python -m ilkit.demo`` there on the shipped notebooks.
 Everything runs outside the checkout, so ``import ilkit`` finds the installed
 copy.  Needs the package index (as ``make test`` does to set up ``.venv``).
@@ -72,13 +73,17 @@ def build(out: Path) -> tuple[Path, Path]:
 
 
 def install(wheel: Path, sdist: Path, folder: Path) -> Environment:
-    """A new virtual environment in ``folder`` with ``wheel[notebook]`` installed, and nothing else."""
+    """A new virtual environment in ``folder`` with ``wheel[notebook]`` installed, and nothing else.
+
+    The environment is made without pip (no ensurepip run) and filled by this
+    environment's pip (``pip --python``), so it holds the wheel and what its
+    notebook extra requires, and not even pip.
+    """
     venv = folder / "venv"
-    checked([sys.executable, "-m", "venv", str(venv)], cwd=folder)
+    checked([sys.executable, "-m", "venv", "--without-pip", str(venv)], cwd=folder, timeout=120)
     python = venv / ("Scripts/python.exe" if os.name == "nt" else "bin/python")
     workdir = folder / "work"
     workdir.mkdir()
-    environment = Environment(folder, python, wheel, sdist, workdir)
-    environment.run("-m", "pip", "install", "--disable-pip-version-check", "--quiet", f"{wheel}[notebook]",
-                    timeout=1800)
-    return environment
+    checked([sys.executable, "-m", "pip", "--python", str(python), "install", "--disable-pip-version-check",
+             "--quiet", f"{wheel}[notebook]"], cwd=workdir, timeout=1800)
+    return Environment(folder, python, wheel, sdist, workdir)
