@@ -90,9 +90,11 @@ class MissingDependencyError(IlkitError, ImportError):
 class IllConditionedError(IlkitError):
     """The stiffness system of the beam is too ill-conditioned for float arithmetic.
 
-    Stiffness ratios, span ratios or spring stiffnesses so far apart that
-    double precision cannot resolve them would give ordinates that are mostly
-    rounding noise; ilkit refuses them.
+    Stiffness ratios or spring stiffnesses so far apart (a condition number
+    above :data:`ilkit.stiffness.CONDITION_LIMIT`, typically a value in the
+    wrong units) that float ordinates would be mostly rounding noise; ilkit
+    refuses them, and ``exact=True`` still answers.  Milder cases (very close
+    points included) are solved exactly and rounded instead.
 
     Attributes
     ----------

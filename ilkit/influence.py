@@ -89,6 +89,12 @@ class InfluenceLine(RichDisplay):
     may be pint quantities when the beam declares its units; they are
     converted into the beam's length unit.
 
+    Ordinates are the quantity per unit downward load, in :attr:`unit` (for
+    example kN/kN for a force, kN·m/kN for a moment, m/kN for a deflection),
+    with the sign conventions of :mod:`ilkit.model` (reactions upward, moments
+    sagging, deflections downward positive); areas are in that unit times the
+    length unit.
+
     Build lines with the beam's methods (``beam.reaction(x)``, ``beam.shear(x)``
     ...), not with this constructor.
     """
@@ -148,6 +154,8 @@ class InfluenceLine(RichDisplay):
         width = self._degree + 1
         table = np.zeros((width, len(coefficients)))
         for j, cs in enumerate(coefficients):
+            if exact:
+                cs = _stretched(cs, knots[j + 1] - knots[j], self._knots[j + 1] - self._knots[j])  # type: ignore[operator]
             table[: len(cs), j] = _finite_floats(cs, f"coefficients of piece {j + 1}")
         self._c = table
         self._knot_list = self._knots.tolist()
@@ -211,7 +219,7 @@ class InfluenceLine(RichDisplay):
         kind = "exact" if self.is_exact else "numeric"
         return (
             f"<InfluenceLine {self.quantity.label}, {kind}, {len(self._knot_list) - 1} pieces "
-            f"on 0..{fmt(self.length)}>"
+            f"on 0..{fmt_precise(self.length)}>"
         )
 
     # -------------------------------------------------------------- evaluation
@@ -328,8 +336,9 @@ class InfluenceLine(RichDisplay):
     @cached_property
     def _cumulative_at_knots(self) -> np.ndarray:
         k = self._knot_list
-        steps = [self._piece_integral(j, 0.0, k[j + 1] - k[j]) for j in range(len(k) - 1)]
-        return np.concatenate(([0.0], np.cumsum(steps)))
+        with np.errstate(over="ignore", invalid="ignore"):  # an overflow is refused in cumulative()
+            steps = [self._piece_integral(j, 0.0, k[j + 1] - k[j]) for j in range(len(k) - 1)]
+            return np.concatenate(([0.0], np.cumsum(steps)))
 
     def cumulative(self, x: float | np.ndarray) -> float | np.ndarray:
         """Integral of the line from the left end to ``x`` (vectorised).
@@ -344,9 +353,11 @@ class InfluenceLine(RichDisplay):
         t = xs - knots[idx]
         c = self._c
         y = np.zeros_like(t)
-        for p in range(self._degree, -1, -1):
-            y = (y + c[p][idx] / (p + 1)) * t
-        y = y + self._cumulative_at_knots[idx]
+        with np.errstate(over="ignore", invalid="ignore"):  # an overflow is refused below
+            for p in range(self._degree, -1, -1):
+                y = (y + c[p][idx] / (p + 1)) * t
+            y = y + self._cumulative_at_knots[idx]
+        self._finite(y, "the integral from the left end")
         return float(y[0]) if np.ndim(x) == 0 else y
 
     def part(self, sign: Literal["positive", "negative"]) -> InfluenceLine:
@@ -549,12 +560,27 @@ class InfluenceLine(RichDisplay):
 
     # ------------------------------------------------------------------ areas
     def _piece_integral(self, j: int, t0: float, t1: float) -> float:
+        """Integral of piece ``j`` from ``t0`` to ``t1`` (local coordinates), by Horner's rule, so that no
+        power of a coordinate overflows where the integral itself is within the float range."""
+        return self._piece_antiderivative(j, t1) - self._piece_antiderivative(j, t0)
+
+    def _piece_antiderivative(self, j: int, t: float) -> float:
         total = 0.0
-        for p in range(self._degree + 1):
-            c = self._c[p, j]
-            if c:
-                total += c * (t1 ** (p + 1) - t0 ** (p + 1)) / (p + 1)
-        return total
+        for p in range(self._degree, -1, -1):
+            total = (total + self._c[p, j] / (p + 1)) * t
+        return float(total)
+
+    def _finite(self, value: Any, what: str) -> Any:
+        """``value`` when every entry is finite; a typed error naming ``what`` when the float range is left."""
+        if np.all(np.isfinite(value)):
+            return value
+        raise BeamInputError(
+            f"{self.quantity.label}: {what} is beyond the range of floats (about 1e308) on a beam "
+            f"{fmt_precise(self.length)} long; give the beam's lengths in a larger unit (m rather than mm) so that "
+            "areas stay within it.",
+            field="x",
+            value=value,
+        )
 
     def integral(self, a: float, b: float) -> float:
         """Integral of the line from ``a`` to ``b`` (a uniform unit load over [a, b]; ``±inf`` allowed)."""
@@ -564,12 +590,13 @@ class InfluenceLine(RichDisplay):
         a = max(a, 0.0)
         b = min(b, self.length)
         total = 0.0
-        for j in range(len(self._knot_list) - 1):
-            k0, k1 = self._knot_list[j], self._knot_list[j + 1]
-            lo, hi = max(a, k0), min(b, k1)
-            if hi > lo:
-                total += self._piece_integral(j, lo - k0, hi - k0)
-        return total
+        with np.errstate(over="ignore", invalid="ignore"):  # an overflow is refused below
+            for j in range(len(self._knot_list) - 1):
+                k0, k1 = self._knot_list[j], self._knot_list[j + 1]
+                lo, hi = max(a, k0), min(b, k1)
+                if hi > lo:
+                    total += self._piece_integral(j, lo - k0, hi - k0)
+        return float(self._finite(total, f"the integral from x={fmt_precise(a)} to x={fmt_precise(b)}"))
 
     @cached_property
     def _signed_areas(self) -> tuple[float, float]:
@@ -686,6 +713,19 @@ def _finite_floats(values: Any, what: str) -> np.ndarray:
             value=values,
         )
     return out
+
+
+def _stretched(coefficients: tuple[Number, ...], exact_width: Fraction, float_width: float) -> tuple[Number, ...]:
+    """Exact coefficients of a piece for the local coordinate of its float knots.
+
+    The float knots of an exact line are rounded, so a piece's float width differs from its exact
+    width by a rounding.  On a short steep piece (a hinge 1e-8 from a support) evaluating the exact
+    polynomial over the float width would miss the end value by slope times that rounding; stretching
+    the polynomial to the float width makes both ends evaluate to the exact end values (rounded)."""
+    ratio = exact_width / Fraction(float_width)
+    if ratio == 1:
+        return coefficients
+    return tuple(c * ratio**p for p, c in enumerate(coefficients))  # type: ignore[operator]
 
 
 def _taylor_shift(coefficients: tuple[float, ...], shift: float) -> tuple[float, ...]:

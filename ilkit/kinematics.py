@@ -35,7 +35,7 @@ from fractions import Fraction
 from typing import TYPE_CHECKING
 
 from ilkit import _exact
-from ilkit._exact import Row, fmt
+from ilkit._exact import Row, fmt, fmt_precise
 from ilkit.errors import IlkitError, IndeterminateBeamError, UnstableBeamError
 from ilkit.influence import InfluenceLine
 from ilkit.quantity import Quantity
@@ -43,7 +43,9 @@ from ilkit.quantity import Quantity
 if TYPE_CHECKING:  # pragma: no cover
     from ilkit.model import Beam
 
-__all__ = ["Stability", "Mechanism", "PartMotion", "analyse_stability", "solve_mechanism", "exact_line"]
+__all__ = [
+    "Stability", "Mechanism", "PartMotion", "analyse_stability", "solve_mechanism", "exact_line", "nothing_released"
+]
 
 
 @dataclass(frozen=True)
@@ -269,23 +271,23 @@ def _describe_mechanism(
     names = _point_names(beam)
     motions = []
     for m in moving:
-        what = f"the part from x={fmt(m.start)} to x={fmt(m.end)}"
+        what = f"the part from x={fmt_precise(m.start)} to x={fmt_precise(m.end)}"
         if m.pivot is None:
             motions.append(f"{what} can move up and down without rotating")
         else:
-            at = names.get(m.pivot, f"the point x={fmt(m.pivot)}")
+            at = names.get(m.pivot, f"the point x={fmt_precise(m.pivot)}")
             motions.append(f"{what} can rotate about {at}")
     fixes = []
     if not beam.supports:
         fixes.append("add supports")
     first = moving[0]
-    fixes.append(f"add a support between x={fmt(first.start)} and x={fmt(first.end)}")
+    fixes.append(f"add a support between x={fmt_precise(first.start)} and x={fmt_precise(first.end)}")
     ends = [p for p in (first.start, first.end) if p in beam.hinges or p in beam.shear_releases]
     for p in ends:
-        fixes.append(f"remove the {names[p].split(' at ')[0].removeprefix('the ')} at x={fmt(p)}")
+        fixes.append(f"remove the {names[p].split(' at ')[0].removeprefix('the ')} at x={fmt_precise(p)}")
     pinned = [s for s in beam.supports if s.kind != "fixed" and first.start <= s.at <= first.end]
     if pinned and (pinned[0].at in (Fraction(0), beam.length)):
-        fixes.append(f"make the support at x={fmt(pinned[0].at)} fixed")
+        fixes.append(f"make the support at x={fmt_precise(pinned[0].at)} fixed")
     extra = len(basis) - 1
     more = f" ({extra} further independent way{'s' if extra > 1 else ''} to move)" if extra else ""
     message = (
@@ -302,11 +304,11 @@ def _describe_mechanism(
 def _point_names(beam: Beam) -> dict[Fraction, str]:
     names: dict[Fraction, str] = {}
     for h in beam.hinges:
-        names[h] = f"the hinge at x={fmt(h)}"
+        names[h] = f"the hinge at x={fmt_precise(h)}"
     for h in beam.shear_releases:
-        names[h] = f"the shear release at x={fmt(h)}"
+        names[h] = f"the shear release at x={fmt_precise(h)}"
     for s in beam.supports:
-        names[s.at] = f"the {s.kind} support at x={fmt(s.at)}" + (
+        names[s.at] = f"the {s.kind} support at x={fmt_precise(s.at)}" + (
             f" (with {names[s.at]})" if s.at in names else ""
         )
     return names
@@ -330,10 +332,7 @@ def solve_mechanism(beam: Beam, quantity: Quantity) -> Mechanism:
     nparts = len(bounds) - 1
     n = 2 * nparts
     if not imposed:
-        # the quantity is carried by no restraint here (moment at a hinge, shear at a shear release)
-        parts = tuple(PartMotion(bounds[k], bounds[k + 1], Fraction(0), Fraction(0)) for k in range(nparts))
-        why = "a hinge carries no moment" if quantity.kind == "moment" else "a shear release carries no shear"
-        return Mechanism(quantity, parts, tuple(constraints), f"none: {why}", release="", beam=beam)
+        return _no_release(beam, quantity)
     try:
         solution = _exact.solve([c.row for c in constraints], [c.rhs for c in constraints], n)
     except _exact.SingularSystemError:  # pragma: no cover - guarded by the stability check
@@ -345,6 +344,26 @@ def solve_mechanism(beam: Beam, quantity: Quantity) -> Mechanism:
         PartMotion(bounds[k], bounds[k + 1], solution[2 * k], solution[2 * k + 1]) for k in range(nparts)
     )
     return Mechanism(quantity, parts, tuple(constraints), imposed, release, beam=beam)
+
+
+def _no_release(beam: Beam, quantity: Quantity) -> Mechanism:
+    """The "mechanism" of a quantity that no restraint carries (moment at a hinge, shear at a shear
+    release): nothing to release, nothing moves."""
+    bounds, constraints, _, _ = _constraints(beam, quantity)
+    parts = tuple(PartMotion(a, b, Fraction(0), Fraction(0)) for a, b in zip(bounds[:-1], bounds[1:]))
+    why = "a hinge carries no moment" if quantity.kind == "moment" else "a shear release carries no shear"
+    return Mechanism(quantity, parts, tuple(constraints), f"none: {why}", release="", beam=beam)
+
+
+def nothing_released(beam: Beam, quantity: Quantity, *, exact: bool = True) -> InfluenceLine:
+    """The line of a quantity that no restraint carries: the moment at a hinge, the shear at a shear
+    release.  It is identically zero, for determinate and indeterminate beams alike; its origin is a
+    :class:`Mechanism` with nothing released, so that derivations and sketches say why."""
+    zero = Fraction(0) if exact else 0.0
+    knots = (Fraction(0), beam.length) if exact else (0.0, float(beam.length))
+    return InfluenceLine(
+        quantity=quantity, knots=knots, coefficients=((zero,),), units=beam.units, origin=_no_release(beam, quantity)
+    )
 
 
 def exact_line(beam: Beam, quantity: Quantity) -> InfluenceLine:

@@ -27,8 +27,9 @@ from typing import TYPE_CHECKING, Any
 
 from ilkit._check import choice, flag, listed
 from ilkit._display import RichDisplay
-from ilkit._exact import fmt, fmt_precise, is_quantity
+from ilkit._exact import fmt_precise, is_quantity
 from ilkit.errors import BeamInputError, SideRequiredError, UnitsError
+from ilkit.positions import RELEASE, STIFFNESS, SUPPORT, Point, merge_points, nearest, snap, tolerance
 from ilkit.quantity import KINDS, Quantity, QuantityKind, Side
 from ilkit.supports import Spring, Support, SupportKind, read_supports
 from ilkit.units import FLEXURAL_STIFFNESS, LENGTH, QuantityLike, UnitSystem, conversion, magnitude_in, unit_system
@@ -75,6 +76,16 @@ class Beam(RichDisplay):
         Name of a consistent unit system (``"kN-m"``, ``"kip-ft"``, see
         :data:`ilkit.units.SYSTEMS`) or ``None``.
 
+    Positions (supports, hinges, shear releases, ends of ``EI`` ranges, and
+    the sections given to the quantity methods) that lie within
+    :data:`ilkit.positions.MERGE_TOLERANCE` (1e-9) times the length of each
+    other are one point: they are placed at the beam end if one of them is an
+    end, else at the support, else at the release, so that positions typed as
+    float arithmetic (``3.3*s`` beside ``2*s + 1.3*s``) make no phantom
+    segment.  Where two supports or two releases would become one point the
+    beam is refused with a :class:`~ilkit.BeamInputError` (see
+    :mod:`ilkit.positions`).
+
     Numbers given as ints, fractions or decimal strings stay exact; floats are
     taken by their decimal text (``12.5`` is 25/2).  With pint installed,
     lengths (length, positions, EI ranges) and ``EI`` may be pint quantities
@@ -101,16 +112,21 @@ class Beam(RichDisplay):
                 field="length",
                 value=length,
             )
-        support_list = read_supports(supports, L, system)
-        hinge_list = _read_releases(hinges, L, "hinges", support_list, system)
-        shear_list = _read_releases(shear_releases, L, "shear_releases", support_list, system)
+        given_supports = read_supports(supports, L, system)
+        given_hinges = _read_positions(hinges, L, "hinges", system)
+        given_shear = _read_positions(shear_releases, L, "shear_releases", system)
+        given_ei = _read_ei(EI, L, system)
+        moved = merge_points(L, _given_points(given_supports, given_hinges, given_shear, given_ei))
+        support_list = [Support(moved.get(s.at, s.at), s.kind, s.spring) for s in given_supports]
+        hinge_list = _check_releases(given_hinges, moved, L, "hinges", support_list)
+        shear_list = _check_releases(given_shear, moved, L, "shear_releases", support_list)
         _check_release_overlap(hinge_list, shear_list, support_list)
-        ei = _read_ei(EI, L, system)
+        ei = _check_ei(given_ei, moved, L, EI)
 
         object.__setattr__(self, "_length", L)
         object.__setattr__(self, "_supports", tuple(support_list))
-        object.__setattr__(self, "_hinges", tuple(hinge_list))
-        object.__setattr__(self, "_shear_releases", tuple(shear_list))
+        object.__setattr__(self, "_hinges", tuple(at for _, at in hinge_list))
+        object.__setattr__(self, "_shear_releases", tuple(at for _, at in shear_list))
         object.__setattr__(self, "_EI", ei)
         object.__setattr__(self, "_units", system)
         object.__setattr__(self, "_lines", {})
@@ -272,16 +288,16 @@ class Beam(RichDisplay):
         return self.stability.degree == 0
 
     def __repr__(self) -> str:
-        sup = ", ".join(f"{fmt(s.at)}: {s.spec!r}" for s in self.supports)
-        parts = [f"length={fmt(self.length)}", f"supports={{{sup}}}"]
+        sup = ", ".join(f"{fmt_precise(s.at)}: {s.spec!r}" for s in self.supports)
+        parts = [f"length={fmt_precise(self.length)}", f"supports={{{sup}}}"]
         if self.hinges:
-            parts.append(f"hinges=[{', '.join(fmt(h) for h in self.hinges)}]")
+            parts.append(f"hinges=[{', '.join(fmt_precise(h) for h in self.hinges)}]")
         if self.shear_releases:
-            parts.append(f"shear_releases=[{', '.join(fmt(h) for h in self.shear_releases)}]")
+            parts.append(f"shear_releases=[{', '.join(fmt_precise(h) for h in self.shear_releases)}]")
         if isinstance(self.EI, Fraction):
-            parts.append(f"EI={fmt(self.EI)}")
+            parts.append(f"EI={fmt_precise(self.EI)}")
         elif self.EI is not None:
-            ranges = ", ".join(f"({fmt(a)}, {fmt(b)}, {fmt(ei)})" for a, b, ei in self.EI)
+            ranges = ", ".join(f"({fmt_precise(a)}, {fmt_precise(b)}, {fmt_precise(ei)})" for a, b, ei in self.EI)
             parts.append(f"EI=[{ranges}]")
         if self.units is not None:
             parts.append(f"units={self.units.name!r}")
@@ -317,14 +333,15 @@ class Beam(RichDisplay):
     def moment_reaction(self, at: Number, *, exact: bool = False) -> InfluenceLine:
         """Influence line of the moment reaction (positive counter-clockwise) of the fixed support at ``at``.
 
-        For a support with a rotational spring it is the spring moment.
+        Ordinates in force x length per unit load (kN·m/kN).  For a support with
+        a rotational spring it is the spring moment.
         """
         pos = self._support_at(at, "moment_reaction")
         if not any(s.at == pos and s.restrains_rotation for s in self.supports):
-            fixed = [fmt(s.at) for s in self.supports if s.restrains_rotation]
-            hint = f"fixed supports are at x={', '.join(fixed)}" if fixed else "this beam has no fixed support"
+            fixed = [s.at for s in self.supports if s.restrains_rotation]
+            hint = _nearest_words(pos, fixed, "fixed support") if fixed else "this beam has no fixed support"
             raise BeamInputError(
-                f"moment_reaction: the support at x={fmt(pos)} is not fixed ({hint}); "
+                f"moment_reaction: the support at x={fmt_precise(pos)} is not fixed ({hint}); "
                 "only a fixed support (or one with a rotational spring) has a moment reaction.",
                 field="at",
                 value=at,
@@ -335,7 +352,7 @@ class Beam(RichDisplay):
         """Influence line of the shear at the section ``at``.
 
         Positive when the forces on the part left of the section add up to an
-        upward resultant.  At an interior support the shear jumps: name the
+        upward resultant; ordinates in force per unit load (kN/kN).  At an interior support the shear jumps: name the
         face with ``side="left"`` or ``side="right"``.  At the beam ends the
         inner face is taken.
         """
@@ -346,7 +363,8 @@ class Beam(RichDisplay):
     def moment(self, at: Number, side: Side | None = None, *, exact: bool = False) -> InfluenceLine:
         """Influence line of the bending moment (sagging positive) at the section ``at``.
 
-        Identically zero at a hinge.  At an interior support that restrains
+        Ordinates in force x length per unit load (kN·m/kN).  Identically zero
+        at a hinge.  At an interior support that restrains
         rotation (fixed, rotational spring) the moment jumps: name the face
         with ``side``.
         """
@@ -388,9 +406,9 @@ class Beam(RichDisplay):
         """
         pos = self._position(at, "hinge_shear")
         if pos not in self.hinges:
-            listed = ", ".join(fmt(h) for h in self.hinges) or "none"
+            hint = _nearest_words(pos, list(self.hinges), "hinge") if self.hinges else "the beam has no hinge"
             raise BeamInputError(
-                f"hinge_shear: there is no hinge at x={fmt(pos)} (hinges: {listed}); "
+                f"hinge_shear: there is no hinge at x={fmt_precise(pos)} ({hint}); "
                 "use beam.shear(x) for a section that is not a hinge.",
                 field="at",
                 value=at,
@@ -404,7 +422,8 @@ class Beam(RichDisplay):
         the method of that name (``beam.line("moment", 12)`` is ``beam.moment(12)``).
 
         ``kind`` is one of :data:`ilkit.quantity.KINDS`.  Quantities that need no
-        side (reactions) accept only ``side=None``.
+        side (reactions) accept only ``side=None``.  Units and signs are those of
+        the method (see :mod:`ilkit.model`).
         """
         method = self._method(kind)
         if kind in _AT_SUPPORTS:
@@ -416,6 +435,19 @@ class Beam(RichDisplay):
                 )
             return method(at, exact=exact)  # type: ignore[no-any-return]
         return method(at, side=side, exact=exact)  # type: ignore[no-any-return]
+
+    def position(self, at: Number) -> Fraction:
+        """The section ilkit takes for ``at`` (exact, in the beam's length unit).
+
+        ``at`` itself, or the beam's end, support, release or change of ``EI``
+        that lies within :data:`ilkit.positions.MERGE_TOLERANCE` times the
+        length of it: ``beam.position(10 / 3)`` is ``Fraction(10, 3)`` on a
+        beam with a support at 10/3.  The quantity methods take their sections
+        this way; use it to tell whether a section is a support
+        (``beam.position(x) in beam.locations("reaction")``).  A position off the
+        beam is an error.
+        """
+        return self._position(at, "position")
 
     def locations(self, kind: str) -> tuple[Fraction, ...] | None:
         """Where the quantity named ``kind`` can be taken.
@@ -468,11 +500,22 @@ class Beam(RichDisplay):
             cache[key] = line
         return line
 
+    @cached_property
+    def _points(self) -> tuple[Fraction, ...]:
+        """Every point of the beam, left to right: ends, supports, releases and changes of ``EI``."""
+        points = {Fraction(0), self.length, *(s.at for s in self.supports), *self.hinges, *self.shear_releases}
+        points.update(x for a, b, _ in self.EI_ranges for x in (a, b))
+        return tuple(sorted(points))
+
     def _position(self, at: Number, what: str) -> Fraction:
+        """A section as given, moved onto the beam's point within the merge tolerance of it
+        (:mod:`ilkit.positions`)."""
         pos = magnitude_in(at, dims=LENGTH, system=self.units, field=f"{what} position")
+        pos = snap(pos, self._points, self.length)
         if pos < 0 or pos > self.length:
             raise BeamInputError(
-                f"{what}: x={fmt_precise(pos)} is off the beam; give a position from 0 to {fmt(self.length)}.",
+                f"{what}: x={fmt_precise(pos)} is off the beam; give a position from 0 to "
+                f"{fmt_precise(self.length)}.",
                 field="at",
                 value=at,
             )
@@ -481,9 +524,9 @@ class Beam(RichDisplay):
     def _support_at(self, at: Number, what: str) -> Fraction:
         pos = self._position(at, what)
         if not self._has_support(pos):
-            listed = ", ".join(fmt(s.at) for s in self.supports)
             raise BeamInputError(
-                f"{what}: there is no support at x={fmt(pos)}; supports are at x={listed}.",
+                f"{what}: there is no support at x={fmt_precise(pos)}; "
+                f"{_nearest_words(pos, [s.at for s in self.supports], 'support')}.",
                 field="at",
                 value=at,
             )
@@ -492,13 +535,19 @@ class Beam(RichDisplay):
     def _has_support(self, pos: Fraction) -> bool:
         return any(s.at == pos for s in self.supports)
 
+    def _point_name(self, pos: Fraction) -> str:
+        """What stands at ``pos`` in words (for messages)."""
+        if self._has_support(pos):
+            return "the support"
+        return "the hinge" if pos in self.hinges else "the shear release"
+
     def _side(self, pos: Fraction, side: Side | None, what: str, *, jumps: bool) -> Side | None:
         choice(side, ("left", "right"), what=f"{what}: side", field="side", optional=True)
         if pos == 0 or pos == self.length:
             inner: Side = "right" if pos == 0 else "left"
             if side is not None and side != inner:
                 raise BeamInputError(
-                    f"{what}: x={fmt(pos)} is an end of the beam; there is no beam on its {side} "
+                    f"{what}: x={fmt_precise(pos)} is an end of the beam; there is no beam on its {side} "
                     f"side. Leave side out or give side={inner!r}.",
                     field="side",
                     value=side,
@@ -506,81 +555,126 @@ class Beam(RichDisplay):
             return inner if jumps else None
         if jumps and side is None:
             raise SideRequiredError(
-                f"{what}: the {what.replace('_', ' ')} jumps at the support at x={fmt(pos)}; "
+                f"{what}: the {what.replace('_', ' ')} jumps at {self._point_name(pos)} at x={fmt_precise(pos)}; "
                 "say which face you mean with side='left' or side='right'."
             )
         return side if jumps else None
 
 
-def _read_releases(
-    values: Iterable[Number], L: Fraction, field: str, supports: list[Support], system: UnitSystem | None
-) -> list[Fraction]:
+def _nearest_words(pos: Fraction, places: list[Fraction], name: str) -> str:
+    """``the nearest support is at x=..., ... away; supports are at x=...`` at full precision."""
+    near = nearest(pos, sorted(places))
+    assert near is not None
+    listed = ", ".join(fmt_precise(p) for p in places)
+    return (
+        f"the nearest {name} is at x={fmt_precise(near)}, {fmt_precise(abs(near - pos))} away ({name}s are at "
+        f"x={listed}); give the position of a {name}"
+    )
+
+
+Given = tuple[Fraction, Fraction]
+"""A position as read, exact, and where it stands after merging: ``(given, at)``."""
+GivenRange = tuple[Fraction, Fraction, Fraction, object]
+"""An ``EI`` range as read: ``(start, end, EI, the item as given)``."""
+
+
+def _at(given: Fraction, at: Fraction) -> str:
+    """``x=...`` for a message, saying where a merged position came from."""
+    if given == at:
+        return f"x={fmt_precise(at)}"
+    return f"x={fmt_precise(given)} (within the merge tolerance of x={fmt_precise(at)}, so taken as that point)"
+
+
+def _read_positions(values: Iterable[Number], L: Fraction, field: str, system: UnitSystem | None) -> list[Fraction]:
+    """Release positions as given (exact); off the beam beyond the merge tolerance is refused."""
     positions = listed(values, wanted=f"{field}: give a list of positions, e.g. [12.5]", field=field, ordered=False)
     name = "hinge" if field == "hinges" else "shear release"
+    tol = tolerance(L)
     out: list[Fraction] = []
     for raw in positions:
         pos = magnitude_in(raw, dims=LENGTH, system=system, field=f"{field} position")
-        if pos <= 0 or pos >= L:
-            fixed_end = any(s.at == pos and s.restrains_rotation for s in supports)
-            if fixed_end:
-                raise BeamInputError(
-                    f"{field}: a {name} at the fixed end x={fmt(pos)} would leave the fixity "
-                    "undefined; use a 'pin' support there instead of a fixed support and a "
-                    f"{name}.",
-                    field=field,
-                    value=raw,
-                )
-            if 0 <= pos <= L:
-                raise BeamInputError(
-                    f"{field}: a {name} at the end x={fmt(pos)} of the beam releases nothing; "
-                    f"remove it (releases must lie strictly between 0 and {fmt(L)}).",
-                    field=field,
-                    value=raw,
-                )
+        if pos < -tol or pos > L + tol:
             raise BeamInputError(
                 f"{field}: the {name} at x={raw!r} is off the beam; releases must lie strictly "
-                f"between 0 and {fmt(L)}.",
+                f"between 0 and {fmt_precise(L)}.",
                 field=field,
                 value=raw,
             )
         if pos in out:
-            raise BeamInputError(
-                f"{field}: two {name}s at x={fmt(pos)}; keep one.", field=field, value=raw
-            )
+            raise BeamInputError(f"{field}: two {name}s at x={fmt_precise(pos)}; keep one.", field=field, value=raw)
         out.append(pos)
-    return sorted(out)
+    return out
 
 
-def _check_release_overlap(
-    hinges: list[Fraction], shear_releases: list[Fraction], supports: list[Support]
-) -> None:
-    both = sorted(set(hinges) & set(shear_releases))
-    if both:
-        raise BeamInputError(
-            f"hinges/shear_releases: a hinge and a shear release at the same point x={fmt(both[0])} "
-            "would cut the beam in two; move one of them or remove one.",
-            field="shear_releases",
-            value=both[0],
-        )
-    for s in supports:
-        if s.restrains_rotation and s.at in hinges:
+def _given_points(
+    supports: list[Support], hinges: list[Fraction], shear: list[Fraction], ei: Fraction | list[GivenRange] | None
+) -> list[Point]:
+    """Every position of the beam as given, for merging (:mod:`ilkit.positions`)."""
+    points = [Point(s.at, SUPPORT, "the support", "supports") for s in supports]
+    points += [Point(h, RELEASE, "the hinge", "hinges") for h in hinges]
+    points += [Point(h, RELEASE, "the shear release", "shear_releases") for h in shear]
+    if isinstance(ei, list):
+        points += [Point(x, STIFFNESS, "the end of an EI range", "EI") for a, b, _, _ in ei for x in (a, b)]
+    return points
+
+
+def _check_releases(
+    given: list[Fraction], moved: dict[Fraction, Fraction], L: Fraction, field: str, supports: list[Support]
+) -> list[Given]:
+    """Merged release positions, left to right; a release at an end of the beam is refused."""
+    name = "hinge" if field == "hinges" else "shear release"
+    out: list[Given] = []
+    for raw in given:
+        pos = moved.get(raw, raw)
+        if pos in (0, L):
+            where = _at(raw, pos)
+            if any(s.at == pos and s.restrains_rotation for s in supports):
+                raise BeamInputError(
+                    f"{field}: a {name} at the fixed end {where} would leave the fixity undefined; use a 'pin' "
+                    f"support there instead of a fixed support and a {name}.",
+                    field=field,
+                    value=raw,
+                )
             raise BeamInputError(
-                f"hinges: a hinge at the fixed support x={fmt(s.at)} leaves the fixity undefined; "
-                "use a 'pin' support there instead, or move the hinge off the support.",
-                field="hinges",
-                value=s.at,
+                f"{field}: a {name} at the end {where} of the beam releases nothing; remove it (releases must lie "
+                f"strictly between 0 and {fmt_precise(L)}).",
+                field=field,
+                value=raw,
             )
-        if s.at in shear_releases:
+        out.append((raw, pos))
+    return sorted(out, key=lambda g: g[1])
+
+
+def _check_release_overlap(hinges: list[Given], shear_releases: list[Given], supports: list[Support]) -> None:
+    slides = {at: raw for raw, at in shear_releases}
+    for raw, at in hinges:
+        if at in slides:
             raise BeamInputError(
-                f"shear_releases: a shear release at the support x={fmt(s.at)} leaves it unclear which "
+                f"hinges/shear_releases: a hinge at {_at(raw, at)} and a shear release at {_at(slides[at], at)} "
+                "would cut the beam in two; move one of them or remove one.",
+                field="shear_releases",
+                value=at,
+            )
+    for s in supports:
+        for raw, at in hinges:
+            if s.restrains_rotation and at == s.at:
+                raise BeamInputError(
+                    f"hinges: a hinge at the fixed support {_at(raw, at)} leaves the fixity undefined; use a 'pin' "
+                    "support there instead, or move the hinge off the support.",
+                    field="hinges",
+                    value=s.at,
+                )
+        if s.at in slides:
+            raise BeamInputError(
+                f"shear_releases: a shear release at the support {_at(slides[s.at], s.at)} leaves it unclear which "
                 "side the support carries; move the release off the support.",
                 field="shear_releases",
                 value=s.at,
             )
 
 
-def _read_ei(EI: object, L: Fraction, system: UnitSystem | None) -> Fraction | tuple[StiffnessRange, ...] | None:
-    """One positive number, or ranges ``(start, end, EI)`` covering ``0..L`` (merged where equal)."""
+def _read_ei(EI: object, L: Fraction, system: UnitSystem | None) -> Fraction | list[GivenRange] | None:
+    """One positive number, or the ranges ``(start, end, EI)`` as given (checked after merging)."""
     if EI is None:
         return None
     if isinstance(EI, Mapping):
@@ -592,7 +686,8 @@ def _read_ei(EI: object, L: Fraction, system: UnitSystem | None) -> Fraction | t
         )
     if is_quantity(EI) or isinstance(EI, (str, bytes)) or not isinstance(EI, Iterable) or getattr(EI, "ndim", 1) == 0:
         return _positive_ei(EI, EI, system)
-    ranges: list[StiffnessRange] = []
+    tol = tolerance(L)
+    ranges: list[GivenRange] = []
     for item in EI:
         listlike = isinstance(item, Iterable) and not isinstance(item, (str, bytes)) and getattr(item, "ndim", 1) == 1
         triple = list(item) if listlike else []
@@ -605,42 +700,64 @@ def _read_ei(EI: object, L: Fraction, system: UnitSystem | None) -> Fraction | t
         raw_a, raw_b, raw_ei = triple
         a = magnitude_in(raw_a, dims=LENGTH, system=system, field="EI range start")
         b = magnitude_in(raw_b, dims=LENGTH, system=system, field="EI range end")
-        if not 0 <= a < b <= L:
+        if not -tol <= a < b <= L + tol:
             raise BeamInputError(
-                f"EI: the range ({raw_a!r}, {raw_b!r}) must have 0 <= start < end <= {fmt(L)} "
+                f"EI: the range ({raw_a!r}, {raw_b!r}) must have 0 <= start < end <= {fmt_precise(L)} "
                 "(the beam's length).",
                 field="EI",
                 value=item,
             )
-        ranges.append((a, b, _positive_ei(raw_ei, item, system)))
+        ranges.append((a, b, _positive_ei(raw_ei, item, system), item))
     if not ranges:
         raise BeamInputError(
             "EI: the list of ranges is empty; give [(0, L, EI)] or leave EI out.", field="EI", value=EI
         )
+    return ranges
+
+
+def _check_ei(
+    given: Fraction | list[GivenRange] | None, moved: dict[Fraction, Fraction], L: Fraction, raw: object
+) -> Fraction | tuple[StiffnessRange, ...] | None:
+    """Merged ``EI`` ranges covering ``0..L`` without gaps or overlaps (merged where equal); ``raw`` is
+    the ``EI`` argument as given."""
+    if not isinstance(given, list):
+        return given
+    ranges: list[StiffnessRange] = []
+    for a, b, ei, item in given:
+        start, end = moved.get(a, a), moved.get(b, b)
+        if start == end:
+            raise BeamInputError(
+                f"EI: the range {item!r} is shorter than the merge tolerance ({fmt_precise(tolerance(L))}); its ends "
+                "are one point. Remove it, or give it a real length.",
+                field="EI",
+                value=item,
+            )
+        ranges.append((start, end, ei))
     ranges.sort()
     reach = Fraction(0)
     for a, b, _ in ranges:
         if a > reach:
             raise BeamInputError(
-                f"EI: no stiffness is given from x={fmt(reach)} to x={fmt(a)}; add a range "
-                f"({fmt(reach)}, {fmt(a)}, EI) so that the ranges cover the beam from 0 to {fmt(L)}.",
+                f"EI: no stiffness is given from x={fmt_precise(reach)} to x={fmt_precise(a)}; add a range "
+                f"({fmt_precise(reach)}, {fmt_precise(a)}, EI) so that the ranges cover the beam from 0 to "
+                f"{fmt_precise(L)}.",
                 field="EI",
-                value=EI,
+                value=raw,
             )
         if a < reach:
             raise BeamInputError(
-                f"EI: two ranges overlap from x={fmt(a)} to x={fmt(min(b, reach))}; each point of the "
-                "beam must lie in exactly one range.",
+                f"EI: two ranges overlap from x={fmt_precise(a)} to x={fmt_precise(min(b, reach))}; each point of "
+                "the beam must lie in exactly one range.",
                 field="EI",
-                value=EI,
+                value=raw,
             )
         reach = b
     if reach != L:
         raise BeamInputError(
-            f"EI: no stiffness is given from x={fmt(reach)} to x={fmt(L)}; add a range "
-            f"({fmt(reach)}, {fmt(L)}, EI) so that the ranges cover the whole beam.",
+            f"EI: no stiffness is given from x={fmt_precise(reach)} to x={fmt_precise(L)}; add a range "
+            f"({fmt_precise(reach)}, {fmt_precise(L)}, EI) so that the ranges cover the whole beam.",
             field="EI",
-            value=EI,
+            value=raw,
         )
     merged: list[StiffnessRange] = [ranges[0]]
     for a, b, ei in ranges[1:]:

@@ -7,7 +7,7 @@ from fractions import Fraction
 from typing import Literal
 
 from ilkit._check import choice
-from ilkit._exact import fmt, to_exact
+from ilkit._exact import fmt_precise, to_exact
 
 __all__ = ["Quantity", "QuantityKind", "Side", "KINDS"]
 
@@ -26,6 +26,9 @@ KINDS: dict[str, tuple[str, str]] = {
     "deflection": ("δ", "deflection"),
     "rotation": ("θ", "rotation"),
 }
+"""The quantities a line can be asked for: ``kind -> (symbol, words)``; each is a method of
+:class:`~ilkit.Beam` of the same name (``beam.moment(at)``).  Units and signs: see
+:mod:`ilkit.model`."""
 
 
 @dataclass(frozen=True)
@@ -58,9 +61,10 @@ class Quantity:
 
     @property
     def label(self) -> str:
-        """Text such as ``"V at x=18 (left)"``."""
+        """Text such as ``"V at x=18 (left)"``; the position at full precision (``x=3.3333333333333335``
+        for 10/3), so that two sections a rounding apart read differently."""
         side = f" ({self.side})" if self.side else ""
-        return f"{self.symbol} at x={fmt(self.at)}{side}"
+        return f"{self.symbol} at x={fmt_precise(self.at)}{side}"
 
     @property
     def is_force(self) -> bool:

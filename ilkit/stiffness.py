@@ -28,15 +28,17 @@ precise as a closed form.  With ``exact=True`` the same steps run in
 :class:`fractions.Fraction` arithmetic (sparse exact elimination instead of the
 float inverse), giving the exact rational piecewise-cubic line.
 
-Float lines are refused with :class:`ilkit.IllConditionedError` when the
-scaled stiffness matrix is too ill-conditioned for double precision.
+Where float arithmetic would lose digits (points very close together, a very
+stiff short piece, a condition number above :data:`EXACT_CONDITION`), float
+lines are the exact lines rounded (:func:`float_trouble` says why); beyond
+:data:`CONDITION_LIMIT` they are refused with :class:`ilkit.IllConditionedError`.
 """
 
 from __future__ import annotations
 
 import bisect
 import math
-from dataclasses import dataclass, field
+from dataclasses import dataclass, field, replace
 from fractions import Fraction
 from typing import TYPE_CHECKING, Any
 
@@ -52,7 +54,19 @@ from ilkit.quantity import Quantity
 if TYPE_CHECKING:  # pragma: no cover
     from ilkit.model import Beam
 
-__all__ = ["ElasticModel", "UnitShape", "elastic_line", "elastic_model", "CONDITION_LIMIT"]
+__all__ = [
+    "ElasticModel", "UnitShape", "elastic_line", "elastic_model", "float_trouble", "CONDITION_LIMIT",
+    "EXACT_CONDITION", "SPREAD_LIMIT",
+]
+
+SPREAD_LIMIT = 10**5
+"""Largest ratio of the elements' bending stiffness ``EI/h²`` for which float lines are computed in floats
+(see :func:`float_trouble`); beyond it they are computed exactly and rounded."""
+
+EXACT_CONDITION = 1e6
+"""Largest condition number of the scaled stiffness matrix for which float lines are computed in floats
+(an error of at most about 1e-10 of the largest ordinate); from it up to :data:`CONDITION_LIMIT` they are
+computed exactly and rounded (ordinary girders, haunches included, stay near 1e3)."""
 
 CONDITION_LIMIT = 1e10
 """Largest accepted condition number of the diagonally scaled stiffness matrix.
@@ -72,7 +86,10 @@ class UnitShape:
     nodal values of that shape before the factor, at ``nodes`` (the left face
     where a release separates the faces); ``unit_action`` is the action
     applied inside an element (``None`` for a unit movement of a restraint);
-    ``beam`` the beam analysed (for derivations and drawings).
+    ``beam`` the beam analysed (for derivations and drawings);
+    ``exact_because`` says, for a float line, why its shape was solved in
+    exact arithmetic and rounded (empty when it was solved in floats, see
+    :func:`float_trouble`).
     """
 
     quantity: Quantity
@@ -83,6 +100,7 @@ class UnitShape:
     rotations: tuple[Fraction | float, ...]
     unit_action: Action | None = None
     beam: Beam | None = field(default=None, repr=False, compare=False)
+    exact_because: str = ""
 
 
 @dataclass(frozen=True)
@@ -116,11 +134,7 @@ class ElasticModel:
     def _mesh(self, beam: Beam) -> None:
         """Nodes, degrees of freedom and elements."""
         ranges = beam.EI_ranges
-        points = {Fraction(0), beam.length}
-        points.update(s.at for s in beam.supports)
-        points.update(p for p, _ in beam.releases)
-        points.update(a for a, _, _ in ranges[1:])
-        nodes = sorted(points)
+        nodes = mesh_nodes(beam)
         self.nodes: list[Fraction] = nodes
         self.node_floats = [float(p) for p in nodes]
         hinges, slides = set(beam.hinges), set(beam.shear_releases)
@@ -346,8 +360,8 @@ class ElasticModel:
             (
                 ei[hi] / ei[lo],
                 f"EI varies by a factor of {ei[hi] / ei[lo]:.1e} along the beam (EI={fmt(ei[lo])} near "
-                f"x={fmt(self.nodes[lo])}, EI={fmt(ei[hi])} near x={fmt(self.nodes[hi])}); check the values and "
-                "their units",
+                f"x={fmt_precise(self.nodes[lo])}, EI={fmt(ei[hi])} near x={fmt_precise(self.nodes[hi])}); check the "
+                "values and their units",
             )
         )
         h = [float(v) for v in self.h]
@@ -366,12 +380,64 @@ class ElasticModel:
             power = 1 if spring.rotational else 3
             beam_k = max(float(self.EI[j]) / float(self.h[j]) ** power for j in near)
             ratio = float(spring.stiffness) / beam_k
-            what = f"the {'rotational' if spring.rotational else 'vertical'} spring at x={fmt(self.nodes[spring.node])}"
+            kind = "rotational" if spring.rotational else "vertical"
+            what = f"the {kind} spring at x={fmt_precise(self.nodes[spring.node])}"
             if ratio >= 1:
                 causes.append((ratio, f"{what} is {ratio:.1e} times stiffer than the beam beside it; make it rigid"))
             else:
                 causes.append((1 / ratio, f"{what} is {1 / ratio:.1e} times softer than the beam beside it; check it"))
         return max(causes)[1]
+
+
+def mesh_nodes(beam: Beam) -> list[Fraction]:
+    """The nodes of the stiffness model: ends, supports, releases and changes of ``EI``, left to right."""
+    points = {Fraction(0), beam.length}
+    points.update(s.at for s in beam.supports)
+    points.update(p for p, _ in beam.releases)
+    points.update(a for a, _, _ in beam.EI_ranges[1:])
+    return sorted(points)
+
+
+def float_trouble(beam: Beam) -> str:
+    """Why float arithmetic cannot give this beam's lines to about 1e-10, in words; empty when it can.
+
+    Two causes, both checked:
+
+    * In floats the stiffness terms of an element (``12EI/h³``, ``6EI/h²``, ``4EI/h``) are rounded
+      apart, so the element resists a rigid-body rotation with a spurious stiffness of about
+      ``ε·EI/h²`` (``ε`` about 1e-16).  Compared with the element of the smallest ``EI/h²`` this is a
+      relative error of about ``ε`` times their ratio: two points of the beam very close together (a
+      short element) or a very stiff short piece beside a long flexible one.  The condition number
+      of the matrix does not see it.  Beyond :data:`SPREAD_LIMIT` the float model is not even built.
+    * The condition number ``κ`` of the (diagonally scaled) stiffness matrix costs about ``log10 κ``
+      digits: beyond :data:`EXACT_CONDITION` (and up to :data:`CONDITION_LIMIT`, past which the
+      beam is refused with :class:`~ilkit.IllConditionedError`).
+
+    Where it says why, the float lines are the exact lines rounded (exact arithmetic is slower:
+    about 0.1 s a line for 100 spans).
+    """
+    nodes = mesh_nodes(beam)
+    ranges = beam.EI_ranges
+    if ranges and len(nodes) > 2:
+        terms = [_ei_at(ranges, (a + b) / 2) / (b - a) ** 2 for a, b in zip(nodes[:-1], nodes[1:])]
+        j = max(range(len(terms)), key=terms.__getitem__)
+        k = min(range(len(terms)), key=terms.__getitem__)
+        if terms[j] > SPREAD_LIMIT * terms[k]:
+            short, long = (nodes[j], nodes[j + 1]), (nodes[k], nodes[k + 1])
+            close = " (the points are very close together)" if short[1] - short[0] < (long[1] - long[0]) / 100 else ""
+            return (
+                f"the element from x={fmt_precise(short[0])} to x={fmt_precise(short[1])} is "
+                f"{float(terms[j] / terms[k]):.1e} times stiffer in bending (EI/h²) than the one from "
+                f"x={fmt_precise(long[0])} to x={fmt_precise(long[1])}{close}"
+            )
+    model = elastic_model(beam)  # refuses a condition number beyond CONDITION_LIMIT
+    if model.condition > EXACT_CONDITION:
+        return (
+            f"the stiffness system's condition number is about {model.condition:.1e}, which would cost about "
+            f"{math.log10(model.condition):.0f} of the 16 digits of floating point; likely cause: "
+            f"{model._likely_cause()}"
+        )
+    return ""
 
 
 def _ei_at(ranges: tuple[tuple[Fraction, Fraction, Fraction], ...], x: Fraction) -> Fraction:
@@ -391,11 +457,22 @@ def elastic_model(beam: Beam, *, exact: bool = False) -> ElasticModel:
     return model
 
 
+def _trouble(beam: Beam) -> str:
+    """:func:`float_trouble` of ``beam``, cached on it."""
+    cache: dict[str, str] = beam._models  # type: ignore[attr-defined]
+    if "trouble" not in cache:
+        cache["trouble"] = float_trouble(beam)
+    return cache["trouble"]
+
+
 def elastic_line(beam: Beam, quantity: Quantity, *, exact: bool = False) -> InfluenceLine:
     """Influence line of ``quantity`` from the elastic (stiffness) analysis of ``beam``.
 
     Works for every stable beam with ``EI``, determinate or not, springs
-    included.  Float pieces unless ``exact=True``.
+    included.  Float pieces unless ``exact=True``; where float arithmetic
+    would lose digits (:func:`float_trouble`: points very close together, a
+    very stiff short piece, a condition number above :data:`EXACT_CONDITION`)
+    the float line is the exact line rounded.
     """
     if beam.EI is None:
         if quantity.kind in ("deflection", "rotation"):
@@ -411,13 +488,41 @@ def elastic_line(beam: Beam, quantity: Quantity, *, exact: bool = False) -> Infl
             field="EI",
             value=None,
         )
+    kind, at = quantity.kind, quantity.at
+    if (kind == "moment" and at in beam.hinges) or (kind in ("shear", "hinge_shear") and at in beam.shear_releases):
+        from ilkit.kinematics import nothing_released
+
+        return nothing_released(beam, quantity, exact=exact)
+    if not exact and _trouble(beam):
+        return _rounded(_shape_of(beam, quantity, exact=True), _trouble(beam))
+    return _shape_of(beam, quantity, exact=exact)
+
+
+def _rounded(line: InfluenceLine, because: str) -> InfluenceLine:
+    """The float copy of an exact line (and of its origin), saying why it was solved exactly."""
+    origin = line.origin
+    assert isinstance(origin, UnitShape)
+    origin = replace(
+        origin,
+        factor=float(origin.factor),
+        deflections=tuple(float(v) for v in origin.deflections),
+        rotations=tuple(float(v) for v in origin.rotations),
+        exact_because=because,
+    )
+    return InfluenceLine(
+        quantity=line.quantity,
+        knots=tuple(float(k) for k in line.exact_breakpoints or ()),
+        coefficients=tuple(piece.coefficients for piece in line.pieces),
+        units=line.units,
+        origin=origin,
+    )
+
+
+def _shape_of(beam: Beam, quantity: Quantity, *, exact: bool) -> InfluenceLine:
+    """The line of ``quantity`` as the beam's shape under its unit action (see the module notes)."""
     model = elastic_model(beam, exact=exact)
     kind, at = quantity.kind, quantity.at
-    where = f"at x={fmt(at)}"
-    if (kind == "moment" and at in beam.hinges) or (kind in ("shear", "hinge_shear") and at in beam.shear_releases):
-        zero = Fraction(0) if exact else 0.0
-        knots = (Fraction(0), beam.length) if exact else (0.0, float(beam.length))
-        return InfluenceLine(quantity=quantity, knots=knots, coefficients=((zero,),), units=beam.units, origin=None)
+    where = f"at x={fmt_precise(at)}"
     if kind in ("reaction", "moment_reaction"):
         support = next(s for s in beam.supports if s.at == at)
         node = bisect.bisect_left(model.nodes, at)

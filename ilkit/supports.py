@@ -14,6 +14,7 @@ from typing import Any, Literal
 from ilkit._check import choice
 from ilkit._exact import fmt, fmt_precise, to_exact
 from ilkit.errors import BeamInputError
+from ilkit.positions import tolerance
 from ilkit.units import LENGTH, QuantityLike, UnitSystem, magnitude_in
 
 __all__ = ["Spring", "Support", "SupportKind", "SUPPORT_KINDS", "read_supports"]
@@ -161,6 +162,8 @@ class Support:
 def read_supports(
     supports: Mapping[Number, str | Support], L: Fraction, system: UnitSystem | None
 ) -> list[Support]:
+    """The supports as given, left to right; positions within the merge tolerance of the beam
+    (:mod:`ilkit.positions`) are accepted here and merged by the beam."""
     if not isinstance(supports, Mapping):
         raise BeamInputError(
             "supports: give a mapping {position: kind}, e.g. {0: 'pin', 20: 'roller'}.",
@@ -168,12 +171,13 @@ def read_supports(
             value=supports,
         )
     out: dict[Fraction, Support] = {}
+    tol = tolerance(L)
     for raw_pos, raw_kind in supports.items():
         pos = magnitude_in(raw_pos, dims=LENGTH, system=system, field="supports position")
-        if pos < 0 or pos > L:
+        if pos < -tol or pos > L + tol:
             raise BeamInputError(
                 f"supports: the support at x={raw_pos!r} is off the beam; positions must lie "
-                f"from 0 to {fmt(L)}.",
+                f"from 0 to {fmt_precise(L)}.",
                 field="supports",
                 value=raw_pos,
             )
@@ -198,14 +202,14 @@ def read_supports(
                 else " or an ilkit.Spring(...)"
             )
             raise BeamInputError(
-                f"supports: unknown support kind {raw_kind!r} at x={fmt(pos)}; "
+                f"supports: unknown support kind {raw_kind!r} at x={fmt_precise(pos)}; "
                 f"choose one of {', '.join(repr(k) for k in SUPPORT_KINDS)}{hint}.",
                 field="supports",
                 value=raw_kind,
             )
         if pos in out:
             raise BeamInputError(
-                f"supports: two supports at x={fmt(pos)}; keep one (use 'fixed' for a support "
+                f"supports: two supports at x={fmt_precise(pos)}; keep one (use 'fixed' for a support "
                 "that also restrains rotation).",
                 field="supports",
                 value=raw_pos,

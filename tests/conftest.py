@@ -17,6 +17,18 @@ settings.register_profile("ci", derandomize=True, database=None, print_blob=True
 settings.load_profile("ci" if os.environ.get("CI") else "any-machine")
 
 
+# The verification record: the ``reference`` fixture of reference tests and the hooks that write
+# ``--verification-json`` (the documentation's verification manual), in tests/_verification.py.
+from _verification import (  # noqa: E402, F401
+    pytest_addoption,
+    pytest_collection_modifyitems,
+    pytest_configure,
+    pytest_runtest_makereport,
+    pytest_sessionfinish,
+    reference,
+)
+
+
 # ilkit as a user installs it (tests/installed.py): built once per session, shared by
 # tests/test_install.py and the offline-page browser test.
 @pytest.fixture(scope="session")

@@ -106,7 +106,8 @@ def test_single_pin_is_a_mechanism():
 
 def test_request_errors():
     beam = ilkit.Beam(20, {0: "pin", 10: "roller", 20: "roller"}, hinges=[15])
-    with pytest.raises(BeamInputError, match="no support at x=5; supports are at x=0, 10, 20"):
+    nearest = r"no support at x=5; the nearest support is at x=0, 5 away \(supports are at x=0, 10, 20\)"
+    with pytest.raises(BeamInputError, match=nearest):
         beam.reaction(5)
     with pytest.raises(BeamInputError, match="not fixed"):
         beam.moment_reaction(0)

@@ -87,7 +87,7 @@ def test_shear_faces_at_a_support_differ_by_the_reaction(gerber):
     assert right(xs) - left(xs) == pytest.approx(gerber.reaction(100)(xs), abs=1e-12)
 
 
-def test_interior_reaction_two_truck_rule_by_hand(gerber, gerber_env):
+def test_interior_reaction_two_truck_rule_by_hand(gerber, gerber_env, reference):
     # R at x=100 (influence line: x/100 on 0..120 up to 1.2 at the hinge, down to 0 at x=130 over the
     # drop-in span, 0 beyond).  Lane area 120 x 1.2 / 2 + 10 x 1.2 / 2 = 78 ft -> 0.64 x 78 = 49.92 kip.
     # One truck: 32 at 120, 32 at 106, 8 at 92 -> 38.4 + 33.92 + 7.36 = 79.68 kip -> 1.33 x 79.68 + 49.92.
@@ -97,8 +97,13 @@ def test_interior_reaction_two_truck_rule_by_hand(gerber, gerber_env):
     one = 1.33 * 79.68 + 49.92
     two = 0.9 * (1.33 * 103.2 + 49.92)
     assert two > one
-    assert row["R max [kip]"] == pytest.approx(two, rel=1e-12)
-    assert row["R max case"] == "90 % (two design trucks + lane)"
+    reference("HL-93, hinged girder, interior reaction at 100 ft: 0.9 (1.33 x 103.2 + 49.92)", expected=two,
+              computed=row["R max [kip]"], rel=1e-12, unit="kip",
+              source="AASHTO LRFD Bridge Design Specifications; hand calculation from the influence line",
+              clause="3.6.1.2, 3.6.1.3.1 (two-truck rule, from memory)", from_memory=True)
+    reference("the two-truck rule governs the interior reaction", expected="90 % (two design trucks + lane)",
+              computed=row["R max case"], source="AASHTO LRFD Bridge Design Specifications", clause="3.6.1.3.1",
+              from_memory=True)
     # end supports: the rule does not apply
     assert "two design trucks" not in gerber_env.reactions.set_index("x [ft]").loc[0.0, "R max case"]
 
@@ -118,16 +123,22 @@ def test_absolute_maximum_moment_is_at_least_every_section(gerber_env):
     assert 0 < float(best.quantity.at) < 250 and best.quantity.kind == "moment"
 
 
-def test_simple_span_envelope_under_a_uniform_load():
+def test_simple_span_envelope_under_a_uniform_load(reference):
     # closed form: M max(x) = w x (L - x) / 2, V max(x) = w (L - x)^2 / (2L), V min(x) = -w x^2 / (2L);
     # absolute maximum w L^2 / 8 at midspan
     L, w = 36.0, 2.5
     env = envelope(ilkit.Beam(L, {0: "pin", L: "roller"}, units="kN-m"), UniformLoad(w, units="kN-m"), divisions=12)
     x = env.sections["x [m]"].to_numpy()
-    assert env.sections["M max [kN·m]"].to_numpy() == pytest.approx(w * x * (L - x) / 2)
-    assert env.sections["V max [kN]"].to_numpy() == pytest.approx(w * (L - x) ** 2 / (2 * L))
-    assert env.sections["V min [kN]"].to_numpy() == pytest.approx(-w * x**2 / (2 * L))
-    assert env.absolute_maximum_moment.value == pytest.approx(w * L**2 / 8)
+    ref = dict(rel=1e-12, abs=1e-12, source="closed forms for a uniform load on a simple span (common practice)",
+               clause="areas of the influence lines")
+    reference("M max(x) = w x (L - x) / 2 at twelfth points", expected=w * x * (L - x) / 2,
+              computed=env.sections["M max [kN·m]"].to_numpy(), unit="kN·m", **ref)
+    reference("V max(x) = w (L - x)² / (2L)", expected=w * (L - x) ** 2 / (2 * L),
+              computed=env.sections["V max [kN]"].to_numpy(), unit="kN", **ref)
+    reference("V min(x) = -w x² / (2L)", expected=-w * x**2 / (2 * L), computed=env.sections["V min [kN]"].to_numpy(),
+              unit="kN", **ref)
+    reference("absolute maximum moment w L² / 8", expected=w * L**2 / 8, computed=env.absolute_maximum_moment.value,
+              unit="kN·m", **ref)
 
 
 def test_extra_sections_and_lookup_of_a_governing_placement(gerber):

@@ -179,14 +179,28 @@ def test_which_method_answers():
 
 # ---------------------------------------------------------------- conditioning
 def test_ill_conditioned_beam_is_refused_and_exact_still_works():
-    beam = ilkit.Beam(20, SPANS, EI=[(0, 5, 1), (5, 15, F(10) ** 13), (15, 20, 1)])
+    # a pin whose rotational spring is 1e14 times softer than the beam: nearly a mechanism
+    beam = ilkit.Beam(10, {0: Spring(rotational=1e-15)}, EI=1)
     with pytest.raises(ilkit.IllConditionedError) as info:
-        beam.moment(10)
+        beam.deflection(10)
     message = str(info.value)
-    assert "EI varies by a factor of 1.0e+13" in message and "exact=True" in message
+    assert "rotational spring at x=0 is 1.0e+14 times softer" in message and "exact=True" in message
     assert info.value.condition > info.value.limit
-    exact = beam.moment(10, exact=True)
+    exact = beam.deflection(10, exact=True)
     assert exact.is_exact
+    # rigid-body rotation about the spring, 10 / k per unit load at 10, plus the cantilever's bending
+    assert exact.ordinate_exact(10) == 10 * 10 * 10**15 + F(1000, 3)
+
+
+def test_an_extreme_stiffness_contrast_is_solved_exactly_not_refused():
+    # EI 1e13 times larger in the middle: rounding the stiffness terms apart in floats would give a
+    # spurious stiffness of the order of the flexible parts' own, so the float line is the exact line rounded
+    beam = ilkit.Beam(20, SPANS, EI=[(0, 5, 1), (5, 15, F(10) ** 13), (15, 20, 1)])
+    line, exact = beam.moment(10), beam.moment(10, exact=True)
+    assert not line.is_exact and "1.0e+13 times stiffer in bending" in line.origin.exact_because
+    xs = np.linspace(0, 20, 201)
+    truth = np.array([float(exact.ordinate_exact(float(x))) for x in xs])
+    assert np.max(np.abs(line(xs) - truth)) <= 1e-14 * np.max(np.abs(truth))
     assert exact.ordinate_exact(3) < 0
 
 

@@ -115,7 +115,9 @@ def envelope(
 
     ``divisions``: equal parts per span and per overhang (10 gives tenth
     points).  ``at``: further section positions.  The load is converted to
-    the beam's units; a beam without units is an error.
+    the beam's units; a beam without units is an error.  Values are in the
+    beam's units with the signs of :mod:`ilkit.model` (sagging moment positive,
+    reactions upward).
     """
     import pandas as pd
 
@@ -154,7 +156,7 @@ def envelope(
             raise LoadInputError(
                 f"at: x={fmt_precise(pos)} is off the beam; give sections from 0 to {fmt(L)}.", field="at", value=raw
             )
-        points.add(pos)
+        points.add(beam.position(pos))  # a section within the merge tolerance of a support is the support
     faces = set(supports) | set(releases)
 
     studies: dict[int, Extremes] = {}

@@ -582,6 +582,7 @@ class KnifeEdge:
         return self if system == self.units else KnifeEdge(self.load * ff, units=system, name=self.name)
 
     def chain(self) -> Chain:
+        """One group of one load at offset 0."""
         return Chain((Group((0.0,), (self.load,)),))
 
 

@@ -158,7 +158,9 @@ def derivation(line: InfluenceLine, method: Method = "auto") -> Derivation:
 
         if isinstance(origin, ForceMethod) or beam is None:  # without a beam: derive_origin says why not
             return derive_origin(origin, line)
-        return derive_origin(force_method(beam, line.quantity, exact=line.is_exact), line)
+        # a float line that had to be solved exactly (points very close together) is checked exactly too
+        exact = line.is_exact or bool(getattr(origin, "exact_because", ""))
+        return derive_origin(force_method(beam, line.quantity, exact=exact), line)
     if not isinstance(origin, UnitShape):
         made_by = "nothing (origin=None)" if origin is None else type(origin).__name__
         raise NoDerivationError(

@@ -133,8 +133,8 @@ def _(origin: UnitShape, line: InfluenceLine) -> Derivation:
         blocks += _loads(origin, line, nodes, ei_of)
     blocks += [
         Heading("4. Nodal displacements", 3),
-        Para((f"Solving K d = f {'exactly, in rational arithmetic' if exact else 'in floating point'} gives the "
-              "deflection and rotation of every node (left face where a release separates the faces):",)),
+        Para((f"Solving K d = f {_solved(exact, origin.exact_because)} gives the deflection and rotation of every "
+              "node (left face where a release separates the faces):",)),
         Table(("node", "x", ident("v", "i"), ident("θ", "i")),
               tuple((str(i + 1), num(x), value_math(v, scale), value_math(r, scale))
                     for i, (x, v, r) in enumerate(zip(nodes, origin.deflections, origin.rotations))),
@@ -157,6 +157,15 @@ def _(origin: UnitShape, line: InfluenceLine) -> Derivation:
         blocks.append(Para(("Coefficients rounded to six significant figures for display; ask for the exact line "
                             "with exact=True.",)))
     return Derivation(title, _numbered(blocks), line.expr)
+
+
+def _solved(exact: bool, because: str) -> str:
+    if exact:
+        return "exactly, in rational arithmetic,"
+    if because:
+        return (f"exactly, in rational arithmetic, then rounded to floats (floating point alone would not do: "
+                f"{because})")
+    return "in floating point"
 
 
 def line_cases(line: InfluenceLine, lhs: Math = ETA) -> Cases:

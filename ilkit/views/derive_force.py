@@ -100,7 +100,8 @@ def _(fm: ForceMethod, line: InfluenceLine) -> Derivation:
     n = len(fm.redundants)
     title, blocks = header(line)
     exact = fm.exact
-    reference = line if line.origin is not fm else fm.beam.line(q.kind, q.at, q.side, exact=exact)
+    own = line.origin is not fm and line.is_exact == exact
+    reference = line if own else fm.beam.line(q.kind, q.at, q.side, exact=exact)
     blocks.append(Para((
         f"Force (flexibility) method. The beam is statically indeterminate to degree {fm.beam.degree}: release "
         f"{n} restraint{'s' if n > 1 else ''} to leave a statically determinate primary structure; the forces "
@@ -262,6 +263,8 @@ def _ordinates(fm: ForceMethod, reference: InfluenceLine) -> list[Block]:
     if fm.exact:
         check = ("The exact ordinates equal those of the stiffness method's exact line (and so does every piece "
                  "of the line in step 7).") if worst == 0 else f"Largest difference: {worst:.3g}."
+    elif size <= 1e-300:
+        check = f"Largest difference from the stiffness method: {worst:.2g} (the line is zero)."
     else:
         check = (f"Largest difference from the stiffness method: {worst:.2g} (the largest ordinate is "
                  f"{size:.4g}): rounding.")
