@@ -22,7 +22,7 @@ import ilkit
 # as printed in beam-diagram tables such as "Beam Diagrams and Formulas" of
 # the AISC Steel Construction Manual (quoted from memory):
 #   R1 = P b / (4 L³) [4 L² - a (L + a)]
-#   R2 = P a / (2 L³) [2 L² + b (L + a)]       (= x (3L² - x²) / (2L³), the form in the issue)
+#   R2 = P a / (2 L³) [2 L² + b (L + a)]       (= P a (3L² - a²) / (2L³), since b (L + a) = L² - a²)
 #   R3 = -P a b / (4 L³) (L + a)
 #   M2 (over the middle support) = -P a b (L + a) / (4 L²)
 #   M under the load = P a b / (4 L³) [4 L² - a (L + a)]
@@ -61,7 +61,7 @@ def test_two_equal_spans_handbook_closed_forms(a, reference):
               computed=beam.reaction(0, exact=True).ordinate_exact(a), **ref)
     reference(f"R2 = P a [2L² + b(L + a)] / (2L³), {at}", expected=want["R2"],
               computed=beam.reaction(L, exact=True).ordinate_exact(a), **ref)
-    assert want["R2"] == a * (3 * L**2 - a**2) / (2 * L**3)  # the issue's form of the same reaction
+    assert want["R2"] == a * (3 * L**2 - a**2) / (2 * L**3)  # the same reaction simplified (derived above)
     reference(f"R3 = -P a b (L + a) / (4L³), {at}", expected=want["R3"],
               computed=beam.reaction(2 * L, exact=True).ordinate_exact(a), **ref)
     reference(f"M2 = -P a b (L + a) / (4L²) over the middle support, {at}", expected=want["M2"],

@@ -7,6 +7,7 @@ import sys
 
 import pandas as pd
 import pytest
+from scenarios import built_in_girder
 
 import ilkit
 from ilkit.views import table, to_csv, to_excel, to_latex
@@ -14,25 +15,26 @@ from ilkit.views.plot import short
 
 
 def girder() -> ilkit.Beam:
-    return ilkit.Beam(30, {0: "fixed", 25: "roller"}, hinges=[10], units="kN-m")
+    return built_in_girder()
 
 
 def test_line_table_has_units_and_the_core_ordinates() -> None:
-    line = girder().moment(5)
+    line = girder().moment(4.8)
     frame = table(line)
     assert list(frame.columns) == ["x [m]", "left [kN·m/kN]", "right [kN·m/kN]"]
     for (x, left, right), (_, a, b) in zip(line.knot_values(), frame.itertuples(index=False, name=None)):
         assert (x, left, right)[1:] == (a, b)
-    assert frame.iloc[2].tolist() == [10.0, -5.0, -5.0]  # ordinate -5 at the hinge (see test_derivation)
+    # derived by hand: a load at the hinge (9.6) hangs on the cantilever arm of 9.6 - 4.8 m
+    assert frame.iloc[2].tolist() == [9.6, -4.8, -4.8]
 
 
 def test_beam_table_lists_supports_and_releases() -> None:
-    beam = ilkit.Beam(30, {0: "fixed", 14: "pin", 25: "roller"}, hinges=[10], shear_releases=[18], units="kip-ft")
+    beam = built_in_girder(supports={0: "fixed", 16.8: "pin", 31.2: "roller"}, shear_releases=[22.8], units="kip-ft")
     frame = table(beam)
     assert list(frame.columns) == ["x [ft]", "item"]
     assert frame.values.tolist() == [
-        [0.0, "fixed support"], [10.0, "hinge"], [14.0, "pin support"], [18.0, "shear release"],
-        [25.0, "roller support"],
+        [0.0, "fixed support"], [9.6, "hinge"], [16.8, "pin support"], [22.8, "shear release"],
+        [31.2, "roller support"],
     ]
 
 
@@ -42,8 +44,8 @@ def test_unknown_object_has_no_table() -> None:
 
 
 def test_csv_round_trip_is_exact(tmp_path) -> None:
-    line = girder().shear(18)
-    path = to_csv(line, tmp_path / "v18.csv")
+    line = girder().shear(15)
+    path = to_csv(line, tmp_path / "v15.csv")
     back = pd.read_csv(path, encoding="utf-8", skiprows=1)
     pd.testing.assert_frame_equal(back, table(line))  # floats written in full precision
     first, header = path.read_text(encoding="utf-8").splitlines()[:2]
@@ -55,29 +57,30 @@ def test_csv_round_trip_is_exact(tmp_path) -> None:
 
 def test_excel_round_trip_with_several_sheets(tmp_path) -> None:
     beam = girder()
-    path = to_excel({"M at 5 m": beam.moment(5), "V at 18/left?": beam.shear(18), "beam": beam}, tmp_path / "g.xlsx")
+    path = to_excel({"M at 4.8 m": beam.moment(4.8), "V at 15/left?": beam.shear(15), "beam": beam},
+                    tmp_path / "g.xlsx")
     sheets = pd.read_excel(path, sheet_name=None)
-    assert list(sheets) == ["M at 5 m", "V at 18_left_", "beam", "caution"]
+    assert list(sheets) == ["M at 4.8 m", "V at 15_left_", "beam", "caution"]
     assert "qualified engineer" in sheets["caution"].iloc[0, 0]  # the workbook carries the caution
     plain = to_excel({"beam": beam}, tmp_path / "plain.xlsx", caution=False)
     assert list(pd.read_excel(plain, sheet_name=None)) == ["beam"]
     with pytest.raises(ilkit.ExportError, match="'caution' and 'caution' both become the sheet"):
         to_excel({"caution": beam}, tmp_path / "clash.xlsx")
-    pd.testing.assert_frame_equal(sheets["M at 5 m"], table(beam.moment(5)), check_dtype=False)
+    pd.testing.assert_frame_equal(sheets["M at 4.8 m"], table(beam.moment(4.8)), check_dtype=False)
     pd.testing.assert_frame_equal(sheets["beam"], table(beam), check_dtype=False)
 
 
 def test_excel_without_openpyxl_names_the_install(monkeypatch: pytest.MonkeyPatch, tmp_path) -> None:
     monkeypatch.setitem(sys.modules, "openpyxl", None)
     with pytest.raises(ilkit.MissingDependencyError, match="pip install openpyxl"):
-        to_excel(girder().moment(5), tmp_path / "x.xlsx")
+        to_excel(girder().moment(4.8), tmp_path / "x.xlsx")
     assert not (tmp_path / "x.xlsx").exists()
 
 
 def test_latex_table_numbers_are_the_core_values(tmp_path) -> None:
-    line = girder().shear(18)
-    text = to_latex(line, tmp_path / "v18.tex", caption="Shear at x = 18 m", label="tab:v18")
-    assert (tmp_path / "v18.tex").read_text(encoding="utf-8") == text
+    line = girder().shear(15)
+    text = to_latex(line, tmp_path / "v15.tex", caption="Shear at x = 15 m", label="tab:v15")
+    assert (tmp_path / "v15.tex").read_text(encoding="utf-8") == text
     caution, *lines = text.splitlines()
     assert caution.startswith("% Caution: ") and "qualified engineer" in caution
     assert lines[:4] == [r"\begin{table}[htbp]", r"\centering", r"\begin{tabular}{rrr}", r"\toprule"]
@@ -89,11 +92,11 @@ def test_latex_table_numbers_are_the_core_values(tmp_path) -> None:
     cells = [[c.strip().strip("$") for c in re.sub(r"\\\\$", "", row).split("&")] for row in body]
     expected = [[short(v) for v in row] for row in line.knot_values()]
     assert cells == expected
-    assert r"\caption{Shear at x = 18 m}" in text and r"\label{tab:v18}" in text
+    assert r"\caption{Shear at x = 15 m}" in text and r"\label{tab:v15}" in text
 
 
 def test_latex_escapes_units_and_text() -> None:
-    text = to_latex(girder().moment(5))
+    text = to_latex(girder().moment(4.8))
     assert r"left [kN\ensuremath{\cdot}m/kN]" in text
     beam_text = to_latex(ilkit.Beam(10, {0: "pin", 10: "roller"}, shear_releases=[], units="kN-m"))
     assert "pin support" in beam_text and r"\begin{table}" not in beam_text

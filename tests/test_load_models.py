@@ -94,15 +94,25 @@ def test_hl93_midspan_moment_of_a_100_ft_span_by_hand(reference):
 
 
 def test_hl93_end_shear_of_a_100_ft_span_by_hand(reference):
-    # truck: rear axle at the support, 32 + 32 x 0.86 + 8 x 0.72 = 65.28 kip; lane 0.64 x 100 / 2 = 32
+    # Sources: AASHTO LRFD 3.6.1.2.2 (seen): design truck 8, 32, 32 kip, 14 ft, then 14 to 30 ft;
+    # 3.6.1.2.4 (seen): design lane 0.64 kip/ft, no dynamic allowance; Table 3.6.2.1-1 (seen): IM 33 % on
+    # the truck.  Derived in this test: the end-shear line of a simple span is 1 - x/L, so the truck stands
+    # with a 32 kip axle at the support, the other 32 kip axle 14 ft in (the shortest rear spacing) and the
+    # 8 kip axle 14 ft further: 32 + 32 x 0.86 + 8 x 0.72 = 65.28 kip (the HS20 shear of a 100 ft span in
+    # the appendix of the AASHTO Standard Specifications, 17th ed., 65.3 kip, agrees: from memory); the
+    # lane over the whole span: 0.64 x 100 / 2 = 32 kip.
     found = place(simple(100).shear(0), hl93())
     reference("HL-93, 100 ft simple span, end shear: 1.33 x 65.28 + 32", expected=1.33 * 65.28 + 32.0,
               computed=found.value, rel=1e-12, unit="kip", source=AASHTO + HAND, clause="3.6.1.2")
 
 
 def test_tandem_governs_the_midspan_moment_of_a_20_ft_span(reference):
-    # tandem: 25 x 5 + 25 x 3 = 200 kip-ft; truck: one 32 kip axle at midspan, 32 x 5 = 160 kip-ft (every
-    # other axle is 14 ft or more away, off the span); lane 0.64 x 400 / 8 = 32 kip-ft
+    # Sources: AASHTO LRFD 3.6.1.2.3 (seen): design tandem 2 x 25 kip, 4 ft apart; 3.6.1.2.2 (seen): design
+    # truck; 3.6.1.2.4 (seen): lane 0.64 kip/ft; Table 3.6.2.1-1 (seen): IM 33 % on tandem and truck.
+    # Derived in this test from the midspan moment line of a simple span (ordinate x/2, peak L/4 = 5 ft at
+    # midspan, 3 ft at 4 ft from it): tandem with one axle at midspan: 25 x 5 + 25 x 3 = 200 kip-ft; truck:
+    # one 32 kip axle at midspan, 32 x 5 = 160 kip-ft (every other axle is 14 ft or more away, off the
+    # span); lane 0.64 x 20^2 / 8 = 32 kip-ft.  So the tandem governs: 1.33 x 200 + 32.
     found = place(simple(20).moment(10), hl93())
     reference("HL-93, 20 ft simple span: the tandem governs", expected="design tandem + lane", computed=found.case,
               source=AASHTO + HAND, clause="3.6.1.2.1")
@@ -438,7 +448,8 @@ def test_alternate_live_load_governs_a_10_ft_span(reference):
 
 
 def test_memory_values_of_the_rail_models_can_be_overridden():
-    # every value recalled from memory is an argument (load-models.md)
+    # every value recalled from memory is an argument of the model's function (each docstring names the
+    # clause; `model.from_memory` lists them), so a user can set it from the licensed current edition
     blocks = sw2(intensity=140, length=20, gap=6).cases[0].parts[0]
     assert (blocks.intensity, blocks.lengths, blocks.gaps) == (140.0, (20.0, 20.0), (6.0,))
     assert sw0(intensity=120).cases[0].parts[0].intensity == 120.0

@@ -50,11 +50,11 @@ CASES = {
         "supports": {3: "pin", 14: "roller"},
         "sections": [Fraction(3, 2), Fraction(8), Fraction(16)],
     },
-    "cantilever with suspended span (rotation hinge)": {
-        "length": 30,
-        "supports": {0: "fixed", 25: "roller"},
-        "hinges": [10],
-        "sections": [Fraction(5), Fraction(18), Fraction(27)],
+    "girder built into the abutment, hinge, pier and cantilever end (rotation hinge)": {
+        "length": Fraction("37.2"),
+        "supports": {0: "fixed", Fraction("31.2"): "roller"},
+        "hinges": [Fraction("9.6")],
+        "sections": [Fraction("4.8"), Fraction(15), Fraction("34.2")],
     },
     "three spans, suspended centre span (two rotation hinges)": {
         "length": 65,
