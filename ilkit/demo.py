@@ -26,6 +26,7 @@ import uuid
 from pathlib import Path
 from typing import Any
 
+
 def _notebooks_folder() -> Path:
     here = Path(__file__).resolve().parent.parent / "notebooks"
     if not here.is_dir():
