@@ -282,3 +282,16 @@ def test_symmetric_girder_reports_both_mirror_positions_of_the_absolute_maximum(
     env = envelope(ilkit.Beam(30, {0: "pin", 12: "roller", 30: "roller"}, EI=1, units="kN-m"),
                    UniformLoad(5, units="kN-m"), divisions=10)
     assert len(env.absolute_maximum_positions) == 1
+
+
+def test_envelope_extreme_at_a_jump_asks_for_the_side():
+    # regression: env.extreme("shear", 105) at a pier silently returned the left side
+    beam = ilkit.Beam(200, {0: "pin", 105: "roller", 200: "roller"}, EI=1e6, units="kip-ft")
+    env = envelope(beam, hl93(), divisions=2)
+    with pytest.raises(ilkit.SideRequiredError, match="side='left'"):
+        env.extreme("shear", 105)
+    left, right = env.extreme("shear", 105, side="left"), env.extreme("shear", 105, side="right")
+    assert left.quantity.side == "left" and right.quantity.side == "right"
+    assert left.value != right.value
+    # the moment does not jump over a roller: both sides hold one value and no side is needed
+    assert env.extreme("moment", 105, "min").value == env.extreme("moment", 105, "min", side="right").value
