@@ -6,6 +6,7 @@ follow :mod:`ilkit.model` (sagging moment positive, shear positive when the part
 pushed up, reactions upward, deflections downward).
 """
 
+from ilkit.design.concurrent import ConcurrentForces, concurrent_forces, concurrent_value
 from ilkit.design.permanent import (
     QUANTITIES,
     DistributedLoad,
@@ -34,4 +35,8 @@ __all__ = [
     "permanent_effects",
     "PermanentEffects",
     "QUANTITIES",
+    # concurrent forces
+    "concurrent_forces",
+    "ConcurrentForces",
+    "concurrent_value",
 ]
