@@ -7,6 +7,7 @@ pushed up, reactions upward, deflections downward).
 """
 
 from ilkit.design.concurrent import ConcurrentForces, concurrent_forces, concurrent_value
+from ilkit.design.deflection import DeflectionCheck, DeflectionFactor, aashto_deflection_load, deflection_check
 from ilkit.design.permanent import (
     QUANTITIES,
     DistributedLoad,
@@ -39,4 +40,9 @@ __all__ = [
     "concurrent_forces",
     "ConcurrentForces",
     "concurrent_value",
+    # live-load deflection
+    "aashto_deflection_load",
+    "deflection_check",
+    "DeflectionCheck",
+    "DeflectionFactor",
 ]
