@@ -1,6 +1,6 @@
 """API reference pages: one page per public name, one summary page per package.
 
-The public names are the ``__all__`` of ``ilkit``, ``ilkit.loads`` and ``ilkit.views``.  A name
+The public names are the ``__all__`` of ``ilkit``, ``ilkit.loads``, ``ilkit.design`` and ``ilkit.views``.  A name
 listed by several packages (``ilkit.AxleTrain`` is ``ilkit.loads.AxleTrain``) is documented once,
 in the most specific package, and the others link to it.
 """
@@ -15,8 +15,8 @@ import sys
 from functools import cache
 from typing import Any
 
-PACKAGES = ("ilkit", "ilkit.loads", "ilkit.views")
-PAGE = {"ilkit": "ilkit", "ilkit.loads": "loads", "ilkit.views": "views"}
+PACKAGES = ("ilkit", "ilkit.loads", "ilkit.design", "ilkit.views")
+PAGE = {"ilkit": "ilkit", "ilkit.loads": "loads", "ilkit.design": "design", "ilkit.views": "views"}
 
 # groups of a package's summary, by the module that defines a name (first match wins)
 GROUPS: tuple[tuple[str, str], ...] = (
@@ -34,16 +34,22 @@ GROUPS: tuple[tuple[str, str], ...] = (
     ("ilkit.loads.standing", "Placement and envelopes"),
     ("ilkit.loads.envelope", "Placement and envelopes"),
     ("ilkit.loads.results", "Results of the placement"),
+    ("ilkit.design.sections", "Sections"),
+    ("ilkit.design.permanent", "Permanent loads, stages and settlement"),
+    ("ilkit.design.concurrent", "Concurrent forces"),
+    ("ilkit.design.deflection", "Live-load deflection"),
     ("ilkit.views.draw", "Drawings"),
     ("ilkit.views.plot", "Drawings"),
     ("ilkit.views.sketch", "Drawings"),
     ("ilkit.views.moving", "Drawings"),
+    ("ilkit.views.design_plots", "Drawings"),
     ("ilkit.views.derive", "Derivations"),
     ("ilkit.views.tables", "Tables and export"),
     ("ilkit.views.report", "Calculation sheets"),
     ("ilkit.views.explorer", "The explorer"),
     ("ilkit.views", "Subpackages"),
     ("ilkit.loads", "Subpackages"),
+    ("ilkit.design", "Subpackages"),
     ("ilkit", "Other names"),
 )
 

@@ -246,8 +246,10 @@ def _factors(
             "deflection_check: give the number of design lanes and of girders (lanes=2, girders=5: all lanes loaded, "
             "all girders deflecting equally), or the girder's share of one lane's load directly (share=0.4).",
             field="lanes" if lanes is None else "girders")
-    n = whole(lanes, what="lanes: the number of design lanes", field="lanes", minimum=1, error=LoadInputError)
-    ng = whole(girders, what="girders: the number of girders", field="girders", minimum=1, error=LoadInputError)
+    n = whole(lanes, what="lanes: the number of design lanes", field="lanes", minimum=1, maximum=100,
+              error=LoadInputError)
+    ng = whole(girders, what="girders: the number of girders", field="girders", minimum=1, maximum=1000,
+               error=LoadInputError)
     out.append(DeflectionFactor("lanes", float(n), "N_L", "all design lanes loaded (AASHTO LRFD 2.5.2.6.2)", True))
     if m is None:
         out.append(DeflectionFactor("multiple presence", multiple_presence(n), "m",

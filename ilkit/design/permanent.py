@@ -44,12 +44,12 @@ from dataclasses import dataclass, field
 from fractions import Fraction
 from typing import TYPE_CHECKING, Any, Literal
 
-from ilkit._check import choice, listed, whole
+from ilkit._check import choice, finite, listed, whole
 from ilkit._display import RichDisplay
 from ilkit._exact import fmt, fmt_precise, is_quantity, to_exact
 from ilkit.design.sections import Section, envelope_sections, load_ordinate
 from ilkit.errors import LoadInputError, SideRequiredError
-from ilkit.loads.primitives import read_name
+from ilkit.loads.primitives import OVERFLOW, read_name
 from ilkit.model import Beam
 from ilkit.positions import tolerance
 from ilkit.quantity import Side
@@ -568,6 +568,8 @@ def permanent_effects(
                     else:
                         line = stage.beam.line(kind, x, side)
                         value = sum((_effect(line, part, x, side) for part in applied), 0.0)
+                    finite(value, what=f"{load.name}: the {kind} at x={fmt(x)}", why=OVERFLOW, field="loads",
+                           error=LoadInputError)
                     rows.append({"quantity": kind, "x": float(x), "side": side or "", "stage": stage.name,
                                  "load": load.name, "category": load.category, "value": value})
     for stage in stages:
