@@ -22,8 +22,8 @@ part and is refused.
 
 Settlement (stiffness method, with Müller-Breslau's reading of the result): the influence line of
 the reaction of a rigid bearing is the beam's deflected shape when that bearing settles by 1 with
-every other restraint held (:mod:`ilkit.stiffness`).  A settlement ``Δ`` therefore deflects the beam
-by ``Δ`` times that line; its bending moment is ``-EI v''`` and its shear ``-EI v'''`` of that shape
+every other restraint held (:class:`ilkit.stiffness.UnitShape`).  A settlement ``Δ`` therefore
+deflects the beam by ``Δ`` times that line; its bending moment is ``-EI v''`` and its shear ``-EI v'''`` of that shape
 ``v`` (downward positive), and each reaction is the jump of the shear at its support.  On a
 statically determinate beam the settlement moves the beam as a rigid body: every force effect is
 zero, and the result says so in its notes.
