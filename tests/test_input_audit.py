@@ -349,7 +349,7 @@ def test_closed_word_arguments_of_loads_refuse_arrays_not_a_raw_truth_value_erro
     with load_error("stand: direction must be"):
         stand(SPAN.moment(5), KNIFE, 5, direction=words)  # type: ignore[arg-type]
     with load_error(r"per must be 'track' or 'rail'"):
-        cooper(per=words)  # type: ignore[arg-type]
+        cooper(per=words, impact=0)  # type: ignore[arg-type]
 
 
 def test_lm1_lane_is_a_lane_number_not_any_value_equal_to_it():
@@ -362,7 +362,7 @@ def test_lm1_lane_is_a_lane_number_not_any_value_equal_to_it():
 
 def test_any_alpha_must_be_a_flag_not_any_truthy_text():
     with load_error("any_alpha: give True or False, got 'no'"):
-        lm71(1.1, any_alpha="no")  # type: ignore[arg-type]
+        lm71(1.1, any_alpha="no", dynamic_factor=1.0)  # type: ignore[arg-type]
 
 
 def test_cooper_and_alternate_sequences_are_checked_not_multiplied_as_text():
@@ -592,7 +592,7 @@ ENTRY_POINTS = {
     "lm1 lane": lambda v: lm1(v),
     "hl93 factor": lambda v: hl93(factor=v),
     "multiple_presence": lambda v: multiple_presence(v),
-    "cooper per": lambda v: cooper(per=v),
+    "cooper per": lambda v: cooper(per=v, impact=0),
 }
 
 
