@@ -74,6 +74,7 @@ __all__ = [
     "UnsupportedResultError",
     "NoDerivationError",
     "views",
+    "design",
     "LoadInputError",
     "ExportError",
     "WriteError",
@@ -104,9 +105,9 @@ def __getattr__(name: str) -> Any:
         from ilkit._symbols import x
 
         return x
-    if name == "views":
-        # drawings, derivations, tables and calculation sheets: loaded on first use
+    if name in ("views", "design"):
+        # drawings, derivations, tables and calculation sheets; design effects: loaded on first use
         import importlib
 
-        return importlib.import_module("ilkit.views")
+        return importlib.import_module(f"ilkit.{name}")
     raise AttributeError(f"module 'ilkit' has no attribute {name!r}")
