@@ -23,6 +23,7 @@ from hypothesis import strategies as st
 
 import ilkit
 from ilkit import BeamInputError, IlkitError, IllConditionedError, LoadInputError, Quantity, Spring, Support
+from ilkit.design import Applied, Factor
 from ilkit.influence import InfluenceLine
 from ilkit.loads import (
     AxleTrain,
@@ -593,6 +594,15 @@ ENTRY_POINTS = {
     "hl93 factor": lambda v: hl93(factor=v),
     "multiple_presence": lambda v: multiple_presence(v),
     "cooper per": lambda v: cooper(per=v, impact=0),
+    "cooper impact": lambda v: cooper(impact=v),
+    "lm71 dynamic_factor": lambda v: lm71(dynamic_factor=v),
+    "Combination dynamic_factor": lambda v: Combination("c", [KNIFE], dynamic_factor=v, dynamic_on=["k"]),
+    "Combination dynamic_included": lambda v: Combination("c", [KNIFE], dynamic_included=v),
+    "Factor value": lambda v: Factor("load factor", v, "γ"),
+    "Factor kind": lambda v: Factor(v, 1.0, "γ"),
+    "Factor includes": lambda v: Factor("distribution", 1.0, "g", includes=v),
+    "Applied.then": lambda v: Applied().then(v),
+    "Applied.contains": lambda v: Applied().contains(v),
 }
 
 

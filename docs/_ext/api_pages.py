@@ -1,6 +1,6 @@
 """API reference pages: one page per public name, one summary page per package.
 
-The public names are the ``__all__`` of ``ilkit``, ``ilkit.loads`` and ``ilkit.views``.  A name
+The public names are the ``__all__`` of ``ilkit``, ``ilkit.loads``, ``ilkit.design`` and ``ilkit.views``.  A name
 listed by several packages (``ilkit.AxleTrain`` is ``ilkit.loads.AxleTrain``) is documented once,
 in the most specific package, and the others link to it.
 """
@@ -15,8 +15,8 @@ import sys
 from functools import cache
 from typing import Any
 
-PACKAGES = ("ilkit", "ilkit.loads", "ilkit.views")
-PAGE = {"ilkit": "ilkit", "ilkit.loads": "loads", "ilkit.views": "views"}
+PACKAGES = ("ilkit", "ilkit.loads", "ilkit.design", "ilkit.views")
+PAGE = {"ilkit": "ilkit", "ilkit.loads": "loads", "ilkit.design": "design", "ilkit.views": "views"}
 
 # groups of a package's summary, by the module that defines a name (first match wins)
 GROUPS: tuple[tuple[str, str], ...] = (
@@ -34,6 +34,17 @@ GROUPS: tuple[tuple[str, str], ...] = (
     ("ilkit.loads.standing", "Placement and envelopes"),
     ("ilkit.loads.envelope", "Placement and envelopes"),
     ("ilkit.loads.results", "Results of the placement"),
+    ("ilkit.design.factors", "Factors"),
+    ("ilkit.design.sections", "Sections and permanent loads"),
+    ("ilkit.design.permanent", "Sections and permanent loads"),
+    ("ilkit.design.lanes", "Lanes and distribution to a girder"),
+    ("ilkit.design.distribution", "Lanes and distribution to a girder"),
+    ("ilkit.design.transverse", "Lanes and distribution to a girder"),
+    ("ilkit.design.live", "Lanes and distribution to a girder"),
+    ("ilkit.design.combinations", "Limit states and factored envelopes"),
+    ("ilkit.design.factored", "Limit states and factored envelopes"),
+    ("ilkit.design.concurrent", "Concurrent forces and deflection"),
+    ("ilkit.design.deflection", "Concurrent forces and deflection"),
     ("ilkit.views.draw", "Drawings"),
     ("ilkit.views.plot", "Drawings"),
     ("ilkit.views.sketch", "Drawings"),
@@ -44,6 +55,7 @@ GROUPS: tuple[tuple[str, str], ...] = (
     ("ilkit.views.explorer", "The explorer"),
     ("ilkit.views", "Subpackages"),
     ("ilkit.loads", "Subpackages"),
+    ("ilkit.design", "Subpackages"),
     ("ilkit", "Other names"),
 )
 

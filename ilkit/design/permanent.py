@@ -294,7 +294,7 @@ class Settlement:
 
 
 PermanentLoad = DistributedLoad | SpanLoad | PointLoad | Settlement
-"""Any permanent load or imposed movement of :mod:`ilkit.design.permanent`."""
+"""Any permanent load or imposed movement of ``ilkit.design.permanent``."""
 
 _LOADS = (DistributedLoad, SpanLoad, PointLoad, Settlement)
 

@@ -81,7 +81,7 @@ class Envelope(RichDisplay):
 
     def to_frame(self) -> pd.DataFrame:
         """The section table (a copy), with a last column ``dynamic``: the dynamic effect the row's
-        governing cases contain (:attr:`ilkit.Extreme.dynamic`)."""
+        governing cases contain (``dynamic`` of each :class:`ilkit.Extreme`)."""
         frame = self.sections.copy()
         order = {"left": 0, None: 1, "right": 2}  # the rows: by position, the left side first
         keys = sorted((k for k in self._found if k[0] == "moment"), key=lambda k: (k[1], order[k[2]]))

@@ -158,6 +158,8 @@ class Extreme(RichDisplay):
     placements: tuple[LoadPlacement, ...]
     units: UnitSystem
     dynamic: DynamicEffect | None = None
+    """The dynamic effect ``value`` contains (the governing case's :attr:`ilkit.Combination.dynamic`), or
+    ``None`` when not recorded."""
 
     @property
     def unit(self) -> str:
