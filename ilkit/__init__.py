@@ -14,13 +14,16 @@ from typing import Any
 
 from ilkit.errors import (
     BeamInputError,
+    DesignInputError,
     ExportError,
+    FactorAppliedTwiceError,
     IlkitError,
     IllConditionedError,
     IndeterminateBeamError,
     LoadInputError,
     MissingDependencyError,
     NoDerivationError,
+    OutsideRangeError,
     PlacementTooLargeError,
     SideRequiredError,
     StiffnessRequiredError,
@@ -79,6 +82,9 @@ __all__ = [
     "ExportError",
     "WriteError",
     "PlacementTooLargeError",
+    "DesignInputError",
+    "FactorAppliedTwiceError",
+    "OutsideRangeError",
     # moving loads (published models: ilkit.loads)
     "AxleTrain",
     "TrainUniform",

@@ -23,6 +23,9 @@ __all__ = [
     "ExportError",
     "WriteError",
     "PlacementTooLargeError",
+    "DesignInputError",
+    "FactorAppliedTwiceError",
+    "OutsideRangeError",
 ]
 
 
@@ -209,3 +212,52 @@ class PlacementTooLargeError(LoadInputError):
         self.variable = variable
         self.breakpoints = breakpoints
         self.on_beam = on_beam
+
+
+class DesignInputError(_InputError):
+    """A design input (a factor, a limit state, lanes, a cross-section, a girder's share of the live load)
+    was described with a value that cannot be used.
+
+    Attributes
+    ----------
+    field:
+        The argument at fault (``"value"``, ``"limit_states"``, ``"spacing"`` ...).
+    value:
+        The offending value as given.
+    """
+
+
+class FactorAppliedTwiceError(DesignInputError):
+    """A factor was applied to a result that already contains a factor of its kind (a multiple presence
+    factor on top of an AASHTO approximate distribution factor that includes it, a second dynamic
+    allowance).
+
+    Attributes
+    ----------
+    kind:
+        The kind of factor applied twice (``"multiple presence"``, ``"dynamic allowance"`` ...).
+    """
+
+    def __init__(self, message: str, *, kind: str) -> None:
+        super().__init__(message, field="factors", value=kind)
+        self.kind = kind
+
+
+class OutsideRangeError(DesignInputError):
+    """An input lies outside the range of applicability of a formula (the AASHTO approximate live-load
+    distribution formulas): use another method (the lever rule, a refined analysis).
+
+    Attributes
+    ----------
+    field:
+        The parameter outside its range (``"spacing"``, ``"span"`` ...).
+    value:
+        Its value, in the formula's units.
+    low, high:
+        The range of applicability (inclusive; ``None`` for an open end).
+    """
+
+    def __init__(self, message: str, *, field: str, value: object, low: float | None, high: float | None) -> None:
+        super().__init__(message, field=field, value=value)
+        self.low = low
+        self.high = high

@@ -355,7 +355,7 @@ def continuous():
 
 @pytest.fixture(scope="module")
 def moving(continuous):
-    explorer = Explorer(continuous, [VEHICLE, ilkit.loads.lm71()], backend="inline")
+    explorer = Explorer(continuous, [VEHICLE, ilkit.loads.lm71(dynamic_factor=1.0)], backend="inline")
     explorer.load.value = "five-axle vehicle"
     yield explorer
     explorer.close()

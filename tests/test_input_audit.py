@@ -24,7 +24,9 @@ from hypothesis import strategies as st
 import ilkit
 from ilkit import BeamInputError, IlkitError, IllConditionedError, LoadInputError, Quantity, Spring, Support
 from ilkit.design import (
+    Applied,
     DistributedLoad,
+    Factor,
     PointLoad,
     Section,
     Settlement,
@@ -362,7 +364,7 @@ def test_closed_word_arguments_of_loads_refuse_arrays_not_a_raw_truth_value_erro
     with load_error("stand: direction must be"):
         stand(SPAN.moment(5), KNIFE, 5, direction=words)  # type: ignore[arg-type]
     with load_error(r"per must be 'track' or 'rail'"):
-        cooper(per=words)  # type: ignore[arg-type]
+        cooper(per=words, impact=0)  # type: ignore[arg-type]
 
 
 def test_lm1_lane_is_a_lane_number_not_any_value_equal_to_it():
@@ -375,7 +377,7 @@ def test_lm1_lane_is_a_lane_number_not_any_value_equal_to_it():
 
 def test_any_alpha_must_be_a_flag_not_any_truthy_text():
     with load_error("any_alpha: give True or False, got 'no'"):
-        lm71(1.1, any_alpha="no")  # type: ignore[arg-type]
+        lm71(1.1, any_alpha="no", dynamic_factor=1.0)  # type: ignore[arg-type]
 
 
 def test_cooper_and_alternate_sequences_are_checked_not_multiplied_as_text():
@@ -614,7 +616,16 @@ ENTRY_POINTS = {
     "lm1 lane": lambda v: lm1(v),
     "hl93 factor": lambda v: hl93(factor=v),
     "multiple_presence": lambda v: multiple_presence(v),
-    "cooper per": lambda v: cooper(per=v),
+    "cooper per": lambda v: cooper(per=v, impact=0),
+    "cooper impact": lambda v: cooper(impact=v),
+    "lm71 dynamic_factor": lambda v: lm71(dynamic_factor=v),
+    "Combination dynamic_factor": lambda v: Combination("c", [KNIFE], dynamic_factor=v, dynamic_on=["k"]),
+    "Combination dynamic_included": lambda v: Combination("c", [KNIFE], dynamic_included=v),
+    "Factor value": lambda v: Factor("load factor", v, "γ"),
+    "Factor kind": lambda v: Factor(v, 1.0, "γ"),
+    "Factor includes": lambda v: Factor("distribution", 1.0, "g", includes=v),
+    "Applied.then": lambda v: Applied().then(v),
+    "Applied.contains": lambda v: Applied().contains(v),
     "Section": lambda v: Section(v),
     "Section side": lambda v: Section(1, v),
     "envelope_sections at": lambda v: envelope_sections(TWO_SPANS, 2, at=[v]),

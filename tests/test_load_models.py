@@ -334,7 +334,7 @@ def test_lm71_on_a_simple_span_by_hand(reference):
     candidates = [lm71_by_hand(L, a, a - k * 1.6 * o, o) for k in range(4) for o in (1, -1)]
     grid = [lm71_by_hand(L, a, lead, 1) for lead in np.arange(5.0, 25.0, 0.001)]
     hand = max(max(candidates), max(grid))
-    found = place(simple(L, "kN-m").moment(a), lm71())
+    found = place(simple(L, "kN-m").moment(a), lm71(dynamic_factor=1.0))
     ref = dict(unit="kN·m", source=EN + HAND, clause="6.3.2", from_memory=True)
     reference("LM71, 30 m midspan moment vs axle-at-section candidates and a 1 mm grid", expected=hand,
               computed=found.value, rel=1e-7, **ref)
@@ -348,7 +348,7 @@ def test_lm71_uniform_part_only_where_unfavourable():
     # reaction at A of two equal continuous spans: positive in span 1, negative in span 2 (handbook closed
     # form); for the largest reaction the 80 kN/m may stand only on span 1
     line = creaction(25, "A", units="kN-m")
-    found = place(line, lm71())
+    found = place(line, lm71(dynamic_factor=1.0))
     (train,) = found.placements
     assert train.patches and all(p.end <= 25.0 + 1e-12 for p in train.patches)
     assert all(p.effect > 0 for p in train.patches)
@@ -359,8 +359,8 @@ def test_alpha_values_and_the_override(reference):
     reference("values of α for classified loads", expected=(0.75, 0.83, 0.91, 1.00, 1.10, 1.21, 1.33, 1.46),
               computed=ALPHA_VALUES, source=EN, clause="6.3.2", from_memory=True)
     with pytest.raises(ilkit.IlkitError, match="any_alpha=True"):
-        lm71(1.05)
-    assert lm71(1.05, any_alpha=True).cases[0].parts[0].loads[0] == pytest.approx(262.5)
+        lm71(1.05, dynamic_factor=1.0)
+    assert lm71(1.05, any_alpha=True, dynamic_factor=1.0).cases[0].parts[0].loads[0] == pytest.approx(262.5)
 
 
 def covered_area(L: float, b: float, g: float, y: float) -> float:
@@ -380,8 +380,10 @@ def covered_area(L: float, b: float, g: float, y: float) -> float:
 @pytest.mark.parametrize(
     ("model", "q", "L", "b", "g"),
     [
-        (sw0(), 133.0, 40.0, 15.0, 5.3),  # SW/0 (Table 6.1, from memory): 133 kN/m, 15 m + 15 m, 5.3 m apart
-        (sw2(), 150.0, 60.0, 25.0, 7.0),  # SW/2 (Table 6.1, from memory): 150 kN/m, 25 m + 25 m, 7 m apart
+        # SW/0 (Table 6.1, from memory): 133 kN/m, 15 m + 15 m, 5.3 m apart
+        (sw0(dynamic_factor=1.0), 133.0, 40.0, 15.0, 5.3),
+        # SW/2 (Table 6.1, from memory): 150 kN/m, 25 m + 25 m, 7 m apart
+        (sw2(dynamic_factor=1.0), 150.0, 60.0, 25.0, 7.0),
     ],
 )
 def test_sw_blocks_on_a_simple_span_by_hand(model, q, L, b, g, reference):
@@ -435,7 +437,7 @@ def test_cooper_e80_definition_and_scaling(reference):
 def test_alternate_live_load_governs_a_10_ft_span(reference):
     # two 100 kip axles 5 ft apart (alternate live load, from memory) on a 10 ft span, crane formula
     # P (2L - d)^2 / (8L) = 100 x 15^2 / 80 = 281.25 kip-ft; E80's two 80 kip drivers give 225 kip-ft
-    env = envelope(simple(10), cooper(), divisions=10)
+    env = envelope(simple(10), cooper(impact=0), divisions=10)
     best = env.absolute_maximum_moment
     ref = dict(source=AREMA + "; crane-wheel formula P (2L - d)² / (8L) (handbook beam tables)",
                clause="alternate live load, Cooper E80", from_memory=True, unit="kip·ft")
@@ -450,9 +452,9 @@ def test_alternate_live_load_governs_a_10_ft_span(reference):
 def test_memory_values_of_the_rail_models_can_be_overridden():
     # every value recalled from memory is an argument of the model's function (each docstring names the
     # clause; `model.from_memory` lists them), so a user can set it from the licensed current edition
-    blocks = sw2(intensity=140, length=20, gap=6).cases[0].parts[0]
+    blocks = sw2(dynamic_factor=1.0, intensity=140, length=20, gap=6).cases[0].parts[0]
     assert (blocks.intensity, blocks.lengths, blocks.gaps) == (140.0, (20.0, 20.0), (6.0,))
-    assert sw0(intensity=120).cases[0].parts[0].intensity == 120.0
+    assert sw0(dynamic_factor=1.0, intensity=120).cases[0].parts[0].intensity == 120.0
     short = cooper_train(axles=(40, 80, 80), spacings=(8, 5), between=10)
     assert short.loads == (40, 80, 80, 40, 80, 80) and [s[0] for s in short.spacings] == [8, 5, 10, 8, 5]
     assert alternate_live_load(axle=90, spacings=(5, 6)).loads == (90.0, 90.0, 90.0)
@@ -462,7 +464,7 @@ def test_memory_values_of_the_rail_models_can_be_overridden():
 
 def test_cooper_impact_is_on_the_whole_live_load():
     line = simple(50).moment(25)
-    assert place(line, cooper(impact=0.3)).value == pytest.approx(1.3 * place(line, cooper()).value)
+    assert place(line, cooper(impact=0.3)).value == pytest.approx(1.3 * place(line, cooper(impact=0)).value)
 
 
 # ======================================================================= units
@@ -496,4 +498,4 @@ def test_a_beam_without_units_is_an_error_that_says_how_to_declare_them():
     with pytest.raises(ilkit.UnitsError, match=r"Beam\(\.\.\., units='kip-ft'\)"):
         place(beam.moment(10), hl93())
     with pytest.raises(ilkit.UnitsError, match="units="):
-        envelope(beam, lm71())
+        envelope(beam, lm71(dynamic_factor=1.0))

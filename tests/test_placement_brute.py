@@ -206,7 +206,7 @@ def _models():
         dynamic_on=["crane"],
         factor=1.1,
     )
-    return [hl93(), lm1(), lm71(), sw0(), cooper(), own]
+    return [hl93(), lm1(), lm71(dynamic_factor=1.0), sw0(dynamic_factor=1.0), cooper(impact=0), own]
 
 
 @SETTINGS

@@ -136,7 +136,7 @@ def test_plain_names_address_columns_without_typing_units(highway) -> None:
     env = ilkit.envelope(highway, ilkit.loads.design_tandem(), divisions=2)
     frame = plain_names(env)
     assert list(frame.columns) == ["x", "side", "M_max", "M_max_case", "M_min", "M_min_case", "V_max",
-                                   "V_max_case", "V_min", "V_min_case"]
+                                   "V_max_case", "V_min", "V_min_case", "dynamic"]
     assert frame.attrs["units"]["M_max"] == "kip·ft" and frame.attrs["units"]["x"] == "ft"
     assert np.array_equal(frame["M_max"].to_numpy(), env.sections["M max [kip·ft]"].to_numpy())
     assert list(env.sections.columns)[2] == "M max [kip·ft]"  # the readable names stay where they were

@@ -15,7 +15,9 @@ def beam():
 
 def test_extreme_repr_and_table(beam, capsys):
     found = place(beam.moment(50), hl93())
-    assert repr(found) == "Extreme(max M at x=50 = 2821.6 kip·ft, case 'design truck + lane')"
+    assert repr(found) == (
+        "Extreme(max M at x=50 = 2821.6 kip·ft, case 'design truck + lane'; dynamic allowance 33 % on design truck)"
+    )
     table = found.to_frame()
     assert list(table.columns) == [
         "load",
@@ -31,8 +33,11 @@ def test_extreme_repr_and_table(beam, capsys):
         "effect [kip·ft]",
         "factor",
         "factored effect [kip·ft]",
+        "dynamic",
     ]
     assert list(table["item"]) == ["axle 1", "axle 2", "axle 3", "patch 1"]
+    # what each row's factor contains (issue 10 item 4): IM on the truck, none on the lane
+    assert list(table["dynamic"]) == ["dynamic allowance 33 %"] * 3 + ["none"]
     # the factored effects add up to the extreme
     assert table["factored effect [kip·ft]"].sum() == pytest.approx(found.value)
     truck = found.placements[0]
@@ -54,7 +59,7 @@ def test_extremes_table_and_patch_repr(beam):
 def test_one_sided_limits_are_reported_at_a_jump():
     # shear just right of the section of a simple span: the heaviest axle stands just right of it
     beam = ilkit.Beam(30, {0: "pin", 30: "roller"}, units="kN-m")
-    found = place(beam.shear(10), lm71())
+    found = place(beam.shear(10), lm71(dynamic_factor=1.0))
     sides = {a.side for a in found.placements[0].axles}
     assert "right" in sides
     at_section = [a for a in found.placements[0].axles if a.x == pytest.approx(10.0)]

@@ -22,9 +22,14 @@ def _slug(text: str) -> str:
     return re.sub(r"[^a-z0-9]+", "-", text.lower()).strip("-")
 
 
+_NO_DYNAMIC = {"dynamic_factor": 1.0, "impact": 0.0}
+"""The explicit values that leave a rail model's dynamic effect out (its pages show the static model)."""
+
+
 def _catalogue() -> tuple[list[tuple[str, Any, Any]], dict[str, list[str]], list[str]]:
     """``(models, parts by name, other functions)``: models as ``(function name, function, model)``."""
     from ilkit import loads
+    from ilkit.errors import LoadInputError
     from ilkit.loads.combination import LoadModel
 
     models, parts, others = [], {}, []
@@ -39,6 +44,10 @@ def _catalogue() -> tuple[list[tuple[str, Any, Any]], dict[str, list[str]], list
         except TypeError:  # needs an argument: a factor such as phi2(length)
             others.append(name)
             continue
+        except LoadInputError as err:  # a rail model: its dynamic effect has no default; shown without it
+            if err.field not in _NO_DYNAMIC:
+                raise
+            made = fn(**{err.field: _NO_DYNAMIC[err.field]})
         if isinstance(made, LoadModel):
             models.append((name, fn, made))
         elif hasattr(made, "name"):
@@ -83,10 +92,19 @@ def _autofunction(name: str) -> str:
 def _parameters(fn: Any) -> str:
     if not inspect.signature(fn).parameters:
         return "The model has no parameters.\n"
-    return (
+    text = (
         "Every value recalled from memory is a parameter (keyword argument), so it can be set to the value "
         "of the licensed current edition; the defaults are the values above.\n"
     )
+    required = [p for p in _NO_DYNAMIC if p in inspect.signature(fn).parameters
+                and inspect.signature(fn).parameters[p].default is None]
+    if required:
+        text += (
+            f"\nThe dynamic effect (`{required[0]}`) has no default: it must be given, and "
+            f"`{required[0]}={_NO_DYNAMIC[required[0]]:g}` leaves it out explicitly (the definition above is "
+            "shown so, without it).\n"
+        )
+    return text
 
 
 def model_page(name: str, fn: Any, model: Any, parts: dict[str, list[str]], figure: str, words: str) -> str:

@@ -1,5 +1,5 @@
 """Design effects on top of the influence lines: permanent loads and stages, settlement, concurrent forces,
-live-load deflection.
+live-load deflection; factors as data (each applied once).
 
 Results are frozen objects with tidy pandas tables (pandas is imported when a table is built); signs
 follow :mod:`ilkit.model` (sagging moment positive, shear positive when the part left of the section is
@@ -7,7 +7,8 @@ pushed up, reactions upward, deflections downward).
 """
 
 from ilkit.design.concurrent import ConcurrentForces, concurrent_forces, concurrent_value
-from ilkit.design.deflection import DeflectionCheck, DeflectionFactor, aashto_deflection_load, deflection_check
+from ilkit.design.deflection import DeflectionCheck, aashto_deflection_load, deflection_check
+from ilkit.design.factors import FACTOR_KINDS, Applied, Factor, FactorAppliedTwiceError
 from ilkit.design.permanent import (
     QUANTITIES,
     DistributedLoad,
@@ -22,6 +23,11 @@ from ilkit.design.permanent import (
 from ilkit.design.sections import Section, envelope_sections, load_ordinate
 
 __all__ = [
+    # factors
+    "Factor",
+    "Applied",
+    "FACTOR_KINDS",
+    "FactorAppliedTwiceError",
     # sections
     "Section",
     "envelope_sections",
@@ -44,5 +50,4 @@ __all__ = [
     "aashto_deflection_load",
     "deflection_check",
     "DeflectionCheck",
-    "DeflectionFactor",
 ]

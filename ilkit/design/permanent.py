@@ -47,6 +47,7 @@ from typing import TYPE_CHECKING, Any, Literal
 from ilkit._check import choice, finite, listed, whole
 from ilkit._display import RichDisplay
 from ilkit._exact import fmt, fmt_precise, is_quantity, to_exact
+from ilkit.design.factors import Applied
 from ilkit.design.sections import Section, envelope_sections, load_ordinate
 from ilkit.errors import LoadInputError, SideRequiredError
 from ilkit.loads.primitives import OVERFLOW, read_name
@@ -294,7 +295,7 @@ class Settlement:
 
 
 PermanentLoad = DistributedLoad | SpanLoad | PointLoad | Settlement
-"""Any permanent load or imposed movement of :mod:`ilkit.design.permanent`."""
+"""Any permanent load or imposed movement of ``ilkit.design.permanent``."""
 
 _LOADS = (DistributedLoad, SpanLoad, PointLoad, Settlement)
 
@@ -420,6 +421,9 @@ class PermanentEffects(RichDisplay):
     ``""``.  ``units`` is the beam's unit system (``None`` if it has none);
     ``notes`` say what the numbers do not show (a settlement of a
     determinate beam causes no forces, deflections left out without ``EI``).
+    ``factors`` is empty: the values are unfactored (an
+    :class:`~ilkit.design.Applied` with no factor; load factors are applied
+    by the limit states).
     """
 
     frame: pd.DataFrame = field(repr=False)
@@ -428,6 +432,7 @@ class PermanentEffects(RichDisplay):
     sections: tuple[Section, ...] = field(repr=False)
     quantities: tuple[str, ...]
     notes: tuple[str, ...] = ()
+    factors: Applied = field(default_factory=Applied)
 
     def __repr__(self) -> str:
         loads = sum(len(s.loads) for s in self.stages)

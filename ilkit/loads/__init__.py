@@ -4,7 +4,7 @@ Loads act downward.  Every load carries its unit system; it is converted to
 the beam's units when applied.
 """
 
-from ilkit.loads.combination import Combination, LoadModel
+from ilkit.loads.combination import Combination, DynamicEffect, LoadModel
 from ilkit.loads.envelope import Envelope, envelope
 from ilkit.loads.models import (
     ALPHA_VALUES,
@@ -38,6 +38,7 @@ __all__ = [
     "UniformBlocks",
     "KnifeEdge",
     "Combination",
+    "DynamicEffect",
     "LoadModel",
     "place",
     "extremes",

@@ -2,9 +2,15 @@
 
 A :class:`Combination` adds the extremes of its parts, each part placed
 independently where it is worst (a design lane load beside a design truck),
-with a dynamic allowance on some parts only and a factor on the whole
+with a dynamic effect on some parts only and a factor on the whole
 (multiple presence, distribution, a 90 % rule).  A :class:`LoadModel` holds
 alternative combinations; its extreme is the governing one.
+
+The dynamic effect a combination contains is explicit data
+(:class:`DynamicEffect`, ``combination.dynamic``): an allowance added to
+named parts (AASHTO IM, AREMA impact), a factor on named parts (EN 1991-2
+Φ), dynamic amplification included in the load values (EN 1991-2 LM1, LM2),
+or none.  Every extreme found says which (``Extreme.dynamic``).
 """
 
 from __future__ import annotations
@@ -13,7 +19,7 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 from typing import Literal, get_args
 
-from ilkit._check import choice, listed
+from ilkit._check import choice, flag, listed
 from ilkit._display import RichDisplay
 from ilkit._exact import fmt
 from ilkit.errors import LoadInputError
@@ -29,7 +35,7 @@ from ilkit.loads.primitives import (
 )
 from ilkit.units import UnitSystem
 
-__all__ = ["AppliesTo", "Combination", "LoadModel", "as_model"]
+__all__ = ["AppliesTo", "Combination", "DynamicEffect", "DynamicKind", "LoadModel", "as_model"]
 
 AppliesTo = Literal["all", "negative moment and interior reactions"]
 """Where a combination is considered: everywhere, or only for negative bending moment
@@ -37,6 +43,54 @@ between points of contraflexure and for reactions at interior supports (AASHTO L
 3.6.1.3.1)."""
 
 _PRIMITIVES = (AxleTrain, UniformLoad, UniformBlocks, KnifeEdge)
+
+DynamicKind = Literal["allowance", "factor", "included", "none"]
+"""The kinds of dynamic effect a combination can contain: an ``"allowance"`` added to named parts
+(1 + IM), a ``"factor"`` on named parts (Φ), ``"included"`` in the load values, or ``"none"``."""
+
+
+@dataclass(frozen=True)
+class DynamicEffect:
+    """The dynamic effect contained in the values of a combination (``combination.dynamic``).
+
+    ``kind`` is one of :data:`DynamicKind`.  ``value`` is the allowance as a
+    fraction for ``"allowance"`` (0.33 adds 33 %), the factor for
+    ``"factor"`` (Φ = 1.12 multiplies by 1.12), and 0 otherwise.  ``on`` names
+    the parts it applies to (empty for ``"included"`` and ``"none"``).
+    ``str()`` gives the short form shown in tables, to four significant
+    figures (``"dynamic allowance 33 %"``), :attr:`words` the long one (``"dynamic allowance 33 % on design
+    truck"``).  Dimensionless.
+    """
+
+    kind: DynamicKind
+    value: float = 0.0
+    on: tuple[str, ...] = ()
+
+    def multiplier(self, part: str) -> float:
+        """The factor on the part named ``part`` (dimensionless): 1 + allowance, Φ, or 1."""
+        if part not in self.on:
+            return 1.0
+        return 1.0 + self.value if self.kind == "allowance" else self.value if self.kind == "factor" else 1.0
+
+    def of(self, part: str) -> str:
+        """What one part's effect contains, in short words (``"none"`` for a part it does not apply to)."""
+        if self.kind in ("allowance", "factor") and part not in self.on:
+            return "none"
+        return str(self)
+
+    def __str__(self) -> str:
+        if self.kind == "allowance":
+            return f"dynamic allowance {100 * self.value:.4g} %"
+        if self.kind == "factor":
+            return f"dynamic factor {self.value:.4g}"
+        if self.kind == "included":
+            return "dynamic effect included in the load values"
+        return "no dynamic effect"
+
+    @property
+    def words(self) -> str:
+        """The long form: the short form and the parts it applies to."""
+        return f"{self} on {', '.join(self.on)}" if self.on else str(self)
 
 
 @dataclass(frozen=True, repr=False)
@@ -52,9 +106,16 @@ class Combination:
         :class:`UniformBlocks`, :class:`KnifeEdge`) with distinct names.  All
         are converted to the units of the first.
     dynamic_allowance:
-        Fraction added to the parts named in ``dynamic_on`` (0.33 adds 33 %).
+        Fraction added to the parts named in ``dynamic_on`` (0.33 adds 33 %:
+        AASHTO IM, AREMA impact).
+    dynamic_factor:
+        Factor (at least 1) on the parts named in ``dynamic_on`` (EN 1991-2
+        Φ2 or Φ3).  A combination has an allowance or a factor, not both.
     dynamic_on:
-        Names of the parts that get the dynamic allowance.
+        Names of the parts that get the dynamic allowance or factor.
+    dynamic_included:
+        True when the load values already include dynamic amplification (EN
+        1991-2 LM1 and LM2); then no allowance or factor may be given.
     factor:
         Factor on the whole (multiple presence, distribution, 0.90 ...), > 0.
     applies_to:
@@ -67,6 +128,8 @@ class Combination:
     dynamic_on: tuple[str, ...]
     factor: float
     applies_to: AppliesTo
+    dynamic_factor: float
+    dynamic_included: bool
 
     def __init__(
         self,
@@ -74,7 +137,9 @@ class Combination:
         parts: Sequence[Load],
         *,
         dynamic_allowance: float = 0.0,
+        dynamic_factor: float = 1.0,
         dynamic_on: Sequence[str] = (),
+        dynamic_included: bool = False,
         factor: float = 1.0,
         applies_to: AppliesTo = "all",
     ) -> None:
@@ -115,11 +180,31 @@ class Combination:
                 value=unknown,
             )
         allowance = number(dynamic_allowance, "dynamic_allowance", strict=False)
-        if allowance and not dynamic_on:
+        phi = number(dynamic_factor, "dynamic_factor", minimum=1.0, strict=False)
+        included = flag(dynamic_included, what=f"{name}: dynamic_included", field="dynamic_included",
+                        error=LoadInputError)
+        for given, words in ((allowance, f"a dynamic allowance of {fmt(allowance)}"),
+                             (phi != 1.0, f"a dynamic factor of {fmt(phi)}")):
+            if given and not dynamic_on:
+                raise LoadInputError(
+                    f"{name}: {words} is given but dynamic_on names no part; name the parts it applies to, "
+                    f"from {names}.",
+                    field="dynamic_on",
+                )
+        if allowance and phi != 1.0:
             raise LoadInputError(
-                f"{name}: a dynamic allowance of {fmt(allowance)} is given but dynamic_on names no part; "
-                f"name the parts it applies to, from {names}.",
-                field="dynamic_on",
+                f"{name}: both a dynamic allowance ({fmt(allowance)}) and a dynamic factor ({fmt(phi)}) are given; "
+                "a combination contains one dynamic effect: give one of them (the factor of an allowance IM is "
+                "1 + IM).",
+                field="dynamic_factor",
+                value=dynamic_factor,
+            )
+        if included and (allowance or phi != 1.0):
+            raise LoadInputError(
+                f"{name}: dynamic_included=True says the load values already contain the dynamic effect, so no "
+                "dynamic allowance or factor may be added; leave them out, or set dynamic_included=False.",
+                field="dynamic_included",
+                value=dynamic_included,
             )
         choice(applies_to, get_args(AppliesTo), what=f"{name}: applies_to", field="applies_to", error=LoadInputError)
         units = parts[0].units
@@ -129,21 +214,35 @@ class Combination:
         object.__setattr__(self, "dynamic_on", tuple(dynamic_on))
         object.__setattr__(self, "factor", number(factor, "factor"))
         object.__setattr__(self, "applies_to", applies_to)
+        object.__setattr__(self, "dynamic_factor", phi)
+        object.__setattr__(self, "dynamic_included", included)
 
     @property
     def units(self) -> UnitSystem:
         """Unit system of the parts."""
         return self.parts[0].units
 
+    @property
+    def dynamic(self) -> DynamicEffect:
+        """The dynamic effect this combination's values contain (an allowance, a factor, included, none)."""
+        if self.dynamic_allowance:
+            return DynamicEffect("allowance", self.dynamic_allowance, self.dynamic_on)
+        if self.dynamic_factor != 1.0:
+            return DynamicEffect("factor", self.dynamic_factor, self.dynamic_on)
+        return DynamicEffect("included" if self.dynamic_included else "none")
+
     def part_factor(self, part: Load) -> float:
-        """Factor on one part: ``(1 + dynamic allowance if it applies) x factor``."""
-        dynamic = 1.0 + self.dynamic_allowance if part.name in self.dynamic_on else 1.0
-        return dynamic * self.factor
+        """Factor on one part (dimensionless): its dynamic multiplier (1 + allowance, Φ or 1) x ``factor``."""
+        return self.dynamic.multiplier(part.name) * self.factor
 
     def __repr__(self) -> str:
         extra = ""
-        if self.dynamic_on:
+        if self.dynamic_allowance:
             extra += f", dynamic_allowance={fmt(self.dynamic_allowance)}, dynamic_on={list(self.dynamic_on)}"
+        if self.dynamic_factor != 1.0:
+            extra += f", dynamic_factor={fmt(self.dynamic_factor)}, dynamic_on={list(self.dynamic_on)}"
+        if self.dynamic_included:
+            extra += ", dynamic_included=True"
         if self.factor != 1.0:
             extra += f", factor={fmt(self.factor)}"
         if self.applies_to != "all":
@@ -160,7 +259,9 @@ class Combination:
             self.name,
             [p.converted(system) for p in self.parts],
             dynamic_allowance=self.dynamic_allowance,
+            dynamic_factor=self.dynamic_factor,
             dynamic_on=self.dynamic_on,
+            dynamic_included=self.dynamic_included,
             factor=self.factor,
             applies_to=self.applies_to,
         )
@@ -243,6 +344,22 @@ class LoadModel(RichDisplay):
     def __repr__(self) -> str:
         cases = ", ".join(repr(c.name) for c in self.cases)
         return f"LoadModel({self.name!r}, cases=[{cases}], units={self.units.name!r})"
+
+    @property
+    def dynamic(self) -> str:
+        """The dynamic effects the model's cases contain, in words, e.g. ``"dynamic allowance 33 % on design
+        truck, design tandem (not on design lane)"``; cases with the same effect are listed together."""
+        groups: dict[str, list[str]] = {}
+        without: list[str] = []
+        for case in self.cases:
+            d = case.dynamic
+            groups.setdefault(str(d), [])
+            groups[str(d)] += [n for n in d.on if n not in groups[str(d)]]
+            if d.kind in ("allowance", "factor"):
+                without += [p.name for p in case.parts if p.name not in d.on and p.name not in without]
+        out = "; ".join(f"{k} on {', '.join(on)}" if on else k for k, on in groups.items())
+        without = [n for n in without if not any(n in on for on in groups.values())]
+        return f"{out} (not on {', '.join(without)})" if without else out
 
     def converted(self, units: str | UnitSystem) -> LoadModel:
         """The same model in another unit system (exact factors)."""

@@ -67,15 +67,31 @@ class Envelope(RichDisplay):
 
     def __repr__(self) -> str:
         a = self.absolute_maximum_moment
+        dynamic = f"; {self.dynamic}" if self.dynamic else ""
         return (
             f"Envelope({self.model} on {self.beam!r}: {len(self.sections)} section rows, "
             f"{len(self.reactions)} supports; absolute maximum moment {a.value:.6g} {a.unit} "
-            f"at x={fmt(float(a.quantity.at))})"
+            f"at x={fmt(float(a.quantity.at))}{dynamic})"
         )
 
+    @property
+    def dynamic(self) -> str:
+        """The dynamic effects the values contain, in words (:attr:`ilkit.LoadModel.dynamic`)."""
+        return self.load_model.dynamic if self.load_model is not None else ""
+
     def to_frame(self) -> pd.DataFrame:
-        """The section table (a copy)."""
-        return self.sections.copy()
+        """The section table (a copy), with a last column ``dynamic``: the dynamic effect the row's
+        governing cases contain (``dynamic`` of each :class:`ilkit.Extreme`)."""
+        frame = self.sections.copy()
+        order = {"left": 0, None: 1, "right": 2}  # the rows: by position, the left side first
+        keys = sorted((k for k in self._found if k[0] == "moment"), key=lambda k: (k[1], order[k[2]]))
+        texts = []
+        for key in keys:
+            m, v = self._found[key], self._found[("shear", *key[1:])]
+            found = (m.maximum, m.minimum, v.maximum, v.minimum)
+            texts.append(" / ".join(dict.fromkeys(str(e.dynamic) for e in found if e.dynamic is not None)))
+        frame["dynamic"] = texts
+        return frame
 
     def extreme(
         self,

@@ -244,7 +244,7 @@ def lm1(
     parts.append(UniformLoad(number(alpha_q, "alpha_q") * q * width, units="kN-m", name="LM1 uniform load"))
     return LoadModel(
         f"LM1 lane {lane}",
-        [Combination(f"LM1 lane {lane}", parts)],
+        [Combination(f"LM1 lane {lane}", parts, dynamic_included=True)],
         source=f"{_EN}, 4.3.2, Table 4.2",
         notes=_CAUTION,
         from_memory=("tandem axle spacing 1.2 m; only the complete tandem counts (4.3.2)",),
@@ -257,7 +257,27 @@ def lm2(beta_Q: float = 1.0) -> LoadModel:
     Dynamic amplification included.  kN, m.
     """
     axle = AxleTrain([number(beta_Q, "beta_Q") * 400.0], [], units="kN-m", name="LM2 axle")
-    return LoadModel("LM2", [Combination("LM2", [axle])], source=f"{_EN}, 4.3.3", notes=_CAUTION)
+    return LoadModel(
+        "LM2", [Combination("LM2", [axle], dynamic_included=True)], source=f"{_EN}, 4.3.3", notes=_CAUTION
+    )
+
+
+def _required(value: float | None, what: str, example: str, minimum: float) -> float:
+    """A rail model's dynamic factor or impact, which has no default: leaving it out is an error naming the fix."""
+    if value is None:
+        raise LoadInputError(
+            f"{what} must be given: rail models have no default dynamic effect, so that a result never leaves "
+            f"it out unnoticed. Give it, e.g. {example}.",
+            field=what.split(": ")[-1],
+        )
+    return number(value, what.split(": ")[-1], minimum=minimum, strict=False)
+
+
+_PHI_FIX = (
+    "{name}(dynamic_factor=loads.phi2(L)) for carefully maintained track or loads.phi3(L) for standard "
+    "maintenance (EN 1991-2 6.4.5.2, L the determinant length in m), or dynamic_factor=1.0 to leave it out "
+    "explicitly (a static value, or the factor applied elsewhere)"
+)
 
 
 def _alpha(alpha: float, any_alpha: bool) -> float:
@@ -276,7 +296,7 @@ def _alpha(alpha: float, any_alpha: bool) -> float:
 def lm71(
     alpha: float = 1.0,
     *,
-    dynamic_factor: float = 1.0,
+    dynamic_factor: float | None = None,
     any_alpha: bool = False,
     axle: float = 250.0,
     spacing: float = 1.6,
@@ -290,14 +310,17 @@ def lm71(
     of unlimited length and applied only where unfavourable.  All loads
     times ``alpha`` (one of :data:`ALPHA_VALUES`, 1.00 unless specified; the
     rule is seen, the values from memory).  ``dynamic_factor`` multiplies the
-    whole: Φ2 or Φ3 (:func:`phi2`, :func:`phi3`).  kN, m.
+    whole: Φ2 or Φ3 (:func:`phi2`, :func:`phi3`); it has no default (leaving
+    it out raises :class:`~ilkit.LoadInputError`): give ``dynamic_factor=1.0``
+    to leave the dynamic effect out explicitly.  kN, m.
     """
+    phi = _required(dynamic_factor, "lm71: dynamic_factor", _PHI_FIX.format(name="lm71"), 1.0)
     a = _alpha(alpha, any_alpha)
     q = TrainUniform(a * number(uniform, "uniform"), number(clearance, "clearance", strict=False), breakable=True)
     train = AxleTrain([a * number(axle, "axle")] * 4, [spacing] * 3, units="kN-m", name="LM71", ahead=q, behind=q)
     return LoadModel(
         "LM71",
-        [Combination("LM71", [train], factor=number(dynamic_factor, "dynamic_factor"))],
+        [Combination("LM71", [train], dynamic_factor=phi, dynamic_on=[train.name])],
         source=f"{_EN}, 6.3.2",
         notes=_CAUTION,
         from_memory=(
@@ -308,11 +331,13 @@ def lm71(
     )
 
 
-def _sw(name: str, q: float, length: float, gap: float, factor: float) -> LoadModel:
+def _sw(name: str, q: float, length: float, gap: float, factor: float | None) -> LoadModel:
+    fn = name.replace("/", "").lower()
+    phi = _required(factor, f"{fn}: dynamic_factor", _PHI_FIX.format(name=fn), 1.0)
     blocks = UniformBlocks(q, [length, length], [gap], units="kN-m", name=name)
     return LoadModel(
         name,
-        [Combination(name, [blocks], factor=number(factor, "dynamic_factor"))],
+        [Combination(name, [blocks], dynamic_factor=phi, dynamic_on=[blocks.name])],
         source=f"{_EN}, 6.3.3, Table 6.1",
         notes=_CAUTION,
         from_memory=("intensity, block length and distance between the blocks (6.3.3, Table 6.1)",),
@@ -322,7 +347,7 @@ def _sw(name: str, q: float, length: float, gap: float, factor: float) -> LoadMo
 def sw0(
     alpha: float = 1.0,
     *,
-    dynamic_factor: float = 1.0,
+    dynamic_factor: float | None = None,
     any_alpha: bool = False,
     intensity: float = 133.0,
     length: float = 15.0,
@@ -332,19 +357,20 @@ def sw0(
 
     ``alpha`` x ``intensity`` = 133 kN/m over two blocks of ``length`` =
     15.0 m, ``gap`` = 5.3 m apart, placed as whole blocks.
-    ``dynamic_factor``: Φ2 or Φ3.  kN, m.
+    ``dynamic_factor``: Φ2 or Φ3, no default (1.0 leaves it out explicitly).
+    kN, m.
     """
     return _sw("SW/0", _alpha(alpha, any_alpha) * number(intensity, "intensity"), length, gap, dynamic_factor)
 
 
 def sw2(
-    *, dynamic_factor: float = 1.0, intensity: float = 150.0, length: float = 25.0, gap: float = 7.0
+    *, dynamic_factor: float | None = None, intensity: float = 150.0, length: float = 25.0, gap: float = 7.0
 ) -> LoadModel:
     """EN 1991-2 Load Model SW/2 for one track (6.3.3, Table 6.1, from memory).
 
     ``intensity`` = 150 kN/m over two blocks of ``length`` = 25.0 m, ``gap`` =
-    7.0 m apart, placed as whole blocks.  ``dynamic_factor``: Φ2 or Φ3.
-    kN, m.
+    7.0 m apart, placed as whole blocks.  ``dynamic_factor``: Φ2 or Φ3, no
+    default (1.0 leaves it out explicitly).  kN, m.
     """
     return _sw("SW/2", number(intensity, "intensity"), length, gap, dynamic_factor)
 
@@ -449,7 +475,7 @@ def alternate_live_load(
 def cooper(
     n: float = 80,
     *,
-    impact: float = 0.0,
+    impact: float | None = None,
     per: Literal["track", "rail"] = "track",
     uniform_breakable: bool = False,
 ) -> LoadModel:
@@ -459,12 +485,17 @@ def cooper(
     load are from memory: see :func:`cooper_train` and
     :func:`alternate_live_load` to override them and build a
     :class:`LoadModel` of your own.  ``impact`` is the impact fraction added to
-    both (compute it from the Manual for the span and the structure type; 0
-    by default).  kip, ft.
+    both (compute it from the Manual for the span and the structure type); it
+    has no default (leaving it out raises :class:`~ilkit.LoadInputError`):
+    ``impact=0`` leaves it out explicitly.  kip, ft.
     """
+    im = _required(
+        impact, "cooper: impact",
+        "cooper(80, impact=0.25), the fraction from AREMA Chapter 15 for the span and the structure, or "
+        "impact=0 to leave it out explicitly (a static value, or impact applied elsewhere)", 0.0,
+    )
     train = cooper_train(n, per=per, uniform_breakable=uniform_breakable)
     alternate = alternate_live_load(n, per=per)
-    im = number(impact, "impact", strict=False)
     name = f"Cooper E{fmt(number(n, 'n'))}"
     return LoadModel(
         name,

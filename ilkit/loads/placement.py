@@ -162,7 +162,8 @@ class _Study:
         # the value is the sum of the table: what each load, as described, adds
         total = float(sum(p.factored for p in placements))
         return Extreme(
-            self.line.quantity, "max" if sense > 0 else "min", total, case.name, placements, self.line.units
+            self.line.quantity, "max" if sense > 0 else "min", total, case.name, placements, self.line.units,
+            case.dynamic,
         )
 
     def applies(self, case: Combination, sense: int) -> bool:

@@ -18,6 +18,7 @@ if TYPE_CHECKING:  # pragma: no cover
     import pandas as pd
 
     from ilkit.influence import InfluenceLine
+    from ilkit.loads.combination import DynamicEffect
 
 __all__ = ["AxlePosition", "Patch", "LoadPlacement", "Extreme", "Extremes", "Direction", "effect_unit"]
 
@@ -85,7 +86,7 @@ class LoadPlacement(RichDisplay):
     """Where one load stands for an extreme, and its effect.
 
     ``effect`` is unfactored; ``factor`` is the factor on it in the case
-    (dynamic allowance times the case factor).  ``direction`` is the travel
+    (the dynamic multiplier, 1 + allowance or Φ, times the case factor).  ``direction`` is the travel
     direction of a train (the lead axle is in front), ``None`` for loads
     without one.  ``spacings`` are the distances between consecutive axles
     as placed (the chosen value where a spacing varies).  ``front`` is the
@@ -144,7 +145,10 @@ class Extreme(RichDisplay):
     """The largest (``extreme="max"``) or smallest (``"min"``) effect of a load on one quantity.
 
     ``value`` is the factored total of the governing ``case``;
-    ``placements`` say where each load of the case stands.
+    ``placements`` say where each load of the case stands; ``dynamic`` is the
+    dynamic effect the value contains (the case's
+    :attr:`ilkit.Combination.dynamic`: an allowance, a factor, included in the
+    load values, or none; ``None`` when not recorded).
     """
 
     quantity: Quantity
@@ -153,6 +157,9 @@ class Extreme(RichDisplay):
     case: str
     placements: tuple[LoadPlacement, ...]
     units: UnitSystem
+    dynamic: DynamicEffect | None = None
+    """The dynamic effect ``value`` contains (the governing case's :attr:`ilkit.Combination.dynamic`), or
+    ``None`` when not recorded."""
 
     @property
     def unit(self) -> str:
@@ -160,9 +167,10 @@ class Extreme(RichDisplay):
         return effect_unit(self.quantity, self.units)
 
     def __repr__(self) -> str:
+        dynamic = f"; {self.dynamic.words}" if self.dynamic is not None else ""
         return (
             f"Extreme({self.extreme} {self.quantity.label} = {self.value:.6g} {self.unit}, "
-            f"case {self.case!r})"
+            f"case {self.case!r}{dynamic})"
         )
 
     @property
@@ -173,11 +181,16 @@ class Extreme(RichDisplay):
     def to_frame(self) -> pd.DataFrame:
         """One row per axle and per loaded patch, with positions, ordinates and effects.
 
-        Column names carry the units.  ``factored effect`` sums to ``value``.
+        Column names carry the units.  ``factored effect`` sums to ``value``;
+        ``dynamic`` says what dynamic effect each row's factor contains.
         """
         import pandas as pd
 
-        return pd.DataFrame([row for p in self.placements for row in _rows(p, self.units, self.unit)])
+        rows = [row for p in self.placements for row in _rows(p, self.units, self.unit)]
+        if self.dynamic is not None:
+            for row in rows:
+                row["dynamic"] = self.dynamic.of(row["load"])
+        return pd.DataFrame(rows)
 
 
 def _rows(p: LoadPlacement, u: UnitSystem | None, eff: str | None) -> list[dict[str, Any]]:
@@ -216,9 +229,11 @@ class Extremes(RichDisplay):
     def __repr__(self) -> str:
         q = self.maximum.quantity.label
         unit = self.maximum.unit
+        dynamic = {e.dynamic.words: None for e in (self.maximum, self.minimum) if e.dynamic is not None}
         return (
             f"Extremes({q}: max {self.maximum.value:.6g} {unit} ({self.maximum.case}), "
-            f"min {self.minimum.value:.6g} {unit} ({self.minimum.case}))"
+            f"min {self.minimum.value:.6g} {unit} ({self.minimum.case})"
+            f"{'; ' + ' / '.join(dynamic) if dynamic else ''})"
         )
 
     def to_frame(self) -> pd.DataFrame:

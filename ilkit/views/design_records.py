@@ -86,7 +86,7 @@ def permanent_blocks(effects: PermanentEffects, number: str = "") -> list[Block]
         Para(("Loads act downward when positive. Effects come from the influence lines: a uniform load times the "
               "exact integral of the line over its stretch, a point load times the ordinate under it"
               + ("; each stage's loads act on that stage's beam and the effects of the stages add" if staged else "")
-              + ".",)),
+              + ". The values are unfactored (load factors belong to the limit states).",)),
         Table(header, tuple(rows)),
     ]
     table_all = effects.by_category()
@@ -156,8 +156,8 @@ def _(found: ConcurrentForces, include: Any = None, exclude: Any = None) -> dict
 def deflection_blocks(check: DeflectionCheck, number: str = "") -> list[Block]:
     """A deflection check as document blocks: the factors with their sources, the drawing, the span table."""
     factors = tuple(
-        (f.kind, f.symbol, short(f.value, 4), f.source or "given by the user",
-         "from memory: check it" if f.from_memory else ("" if not f.source else "read"))
+        (f.kind, f.symbol, short(f.value, 4), f"on {', '.join(f.parts)}: in the load values" if f.parts else "×",
+         f.source or "given by the user", "from memory: check it" if f.status == "from memory" else f.status)
         for f in check.factors
     )
     model = check.load_model
@@ -165,8 +165,8 @@ def deflection_blocks(check: DeflectionCheck, number: str = "") -> list[Block]:
         Heading(f"{number} Live-load deflection".strip(), 3),
         Para((f"Load model: {model.name}{f' ({model.source})' if model.source else ''}. The deflections of one "
               f"lane's load are multiplied by the girder's share {short(check.share, 4)}; the factors inside the "
-              "numbers:",)),
-        Table(("factor", "symbol", "value", "source", "status"), factors),
+              f"numbers ({check.factors.describe()}):",)),
+        Table(("factor", "symbol", "value", "applied", "source", "status"), factors),
         figure_block(lambda ax: plot_deflection_check(check, ax), 2.6,
                      f"{number} Live-load deflection and the allowed deflection of each span".strip(),
                      _slug(f"deflection-{number.replace('.', '-')}")),

@@ -535,7 +535,7 @@ class Explorer:
                 where += f" (just {self._limit} of it)"
         else:
             factor, unit = effect_display(q, line.units)
-            what = "effect of this load alone (unfactored: no dynamic allowance, no other loads, no factors)"
+            what = "effect of this load alone (unfactored: no dynamic effect, no other loads, no factors)"
             placed = self.placement
             if placed.direction:
                 where += f", travelling <span class='ilkit-travel'>{placed.direction}</span>"
@@ -578,9 +578,11 @@ class Explorer:
         except IlkitError as err:
             return html.escape(str(err))
         hi, lo = found.maximum, found.minimum
+        dynamic = "; ".join(dict.fromkeys(e.dynamic.words for e in (hi, lo) if e.dynamic is not None))
         return (
-            f"{html.escape(name)} here (the governing case, factored: dynamic allowance, every load of the case "
-            f"and its factors included): largest <span class='ilkit-envelope-max'>{_number(hi.value)}</span> "
+            f"{html.escape(name)} here (the governing case, factored: {html.escape(dynamic or 'dynamic effect')}, "
+            f"every load of the case and its factors included): largest <span class='ilkit-envelope-max'>"
+            f"{_number(hi.value)}</span> "
             f"({html.escape(hi.case)}), smallest (most negative) "
             f"<span class='ilkit-envelope-min'>{_number(lo.value)}</span> ({html.escape(lo.case)}) "
             f"{html.escape(hi.unit)}"

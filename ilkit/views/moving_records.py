@@ -101,7 +101,7 @@ def _bracket(unit: str) -> str:
     return f" [{unit}]" if unit else ""
 
 
-FACTOR_WORDS = "factor (dynamic allowance × case factor)"
+FACTOR_WORDS = "factor (dynamic × case factor)"
 """What the factor on a load's effect holds (:meth:`ilkit.Combination.part_factor`)."""
 
 
@@ -135,7 +135,7 @@ def placement_table(result: Extreme | LoadPlacement, model: LoadModel | None = N
     noise shown as 0), each number in a column of its own with its unit; the
     total is ``result.value`` (factored) for an extreme, ``factor x effect``
     for one load.  With the load ``model`` the factor is written as its parts
-    (``1.33 × 0.9``: dynamic allowance times case factor).
+    (``1.33 × 0.9``: dynamic multiplier times case factor).
     """
     frame = without_noise(result.to_frame())
     if frame.empty:
@@ -199,7 +199,7 @@ def _placement_words(p: LoadPlacement, length_unit: str, parts: tuple[float, flo
                   if parts != (1.0, 1.0) else "× factor 1")
         words.append(f"effect {short(p.effect, 5)} (unfactored) {factor} = {short(p.factored, 5)}")
     else:
-        words.append(f"effect {short(p.effect, 5)} (unfactored) × factor {short(p.factor, 4)} (dynamic allowance "
+        words.append(f"effect {short(p.effect, 5)} (unfactored) × factor {short(p.factor, 4)} (dynamic "
                      f"× case factor) = {short(p.factored, 5)}")
     return "; ".join(words)
 
@@ -216,8 +216,9 @@ def placement_blocks(result: Extreme | LoadPlacement, number: str = "", model: L
     case = result.case if isinstance(result, Extreme) else ""
     blocks: list[Block] = [Heading(f"{number} {headline}".strip(), 3)]
     if isinstance(result, Extreme):
-        blocks.append(Para((f"Governing case: {result.case}. Value: {short(result.value, 5)} {result.unit}, the sum "
-                            "of the factored effects of its loads:",)))
+        dynamic = f" It contains {result.dynamic.words}." if result.dynamic is not None else ""
+        blocks.append(Para((f"Governing case: {result.case}.{dynamic} Value: {short(result.value, 5)} {result.unit}, "
+                            "the sum of the factored effects of its loads:",)))
     blocks += [Para((_placement_words(p, length_unit, factor_parts(model, case, p)) + ".",)) for p in placements]
     if line is not None:
         blocks.append(figure_block(lambda ax: plot_placement(result, ax), 3.3,
@@ -276,7 +277,8 @@ def envelope_blocks(envelope: Envelope, number: str = "") -> list[Block]:
               "support and release, with both sides inside the beam, and equal divisions of every span and "
               f"overhang), and the largest and smallest reaction at every support, under {envelope.model}. "
               f"Absolute maximum (sagging) moment: {short(best.value, 5)} {best.unit} ({best.case}) at "
-              f"{_positions(envelope, length)}, searched between the sections to 1e-6 of the beam length.",)),
+              f"{_positions(envelope, length)}, searched between the sections to 1e-6 of the beam length."
+              + (f" The values contain {envelope.dynamic}." if envelope.dynamic else ""),)),
     ]
     for kind, (_, words) in ENVELOPE_KINDS.items():
         blocks.append(figure_block(lambda ax, k=kind: plot_envelope(envelope, k, ax), 2.6,  # type: ignore[misc]
@@ -346,8 +348,7 @@ def load_definition(load: Load) -> str:
 
 
 def _case_row(case: Combination) -> tuple[str, ...]:
-    dynamic = (f"{fmt(100 * case.dynamic_allowance)} % on {', '.join(case.dynamic_on)}"
-               if case.dynamic_on and case.dynamic_allowance else "none")
+    dynamic = case.dynamic.words
     considered = "every quantity" if case.applies_to == "all" else case.applies_to
     return (case.name, " + ".join(p.name for p in case.parts), dynamic, short(case.factor, 4), considered)
 
@@ -381,7 +382,7 @@ def model_blocks(model: LoadModel, units: UnitSystem | None = None) -> list[Bloc
     blocks += [
         Para(("The cases are alternatives; the worst governs each quantity. Within a case every load is placed "
               "where it is worst, independently of the others:",)),
-        Table(("case", "loads", "dynamic allowance", "factor", "considered for"),
+        Table(("case", "loads", "dynamic effect", "factor", "considered for"),
               tuple(_case_row(c) for c in model.cases), "lllrl"),
         Para((f"The loads ({model.units.name}):",)),
         Table(("load", "definition"),
