@@ -29,9 +29,10 @@ from ilkit._check import flag, whole
 from ilkit._display import RichDisplay
 from ilkit._exact import fmt
 from ilkit.design._dynamic import dynamic_factor
+from ilkit.design._inputs import amount
 from ilkit.design.factors import Applied, Factor
 from ilkit.design.sections import Section, envelope_sections
-from ilkit.errors import LoadInputError, StiffnessRequiredError, UnitsError
+from ilkit.errors import DesignInputError, StiffnessRequiredError, UnitsError
 from ilkit.loads.combination import Combination, LoadModel, as_model
 from ilkit.loads.models import design_lane, design_truck, multiple_presence
 from ilkit.loads.placement import _Study
@@ -164,7 +165,7 @@ def deflection_check(
     import pandas as pd
 
     if not isinstance(beam, Beam):
-        raise LoadInputError(f"deflection_check: give a Beam, got {type(beam).__name__} {beam!r}.", field="beam",
+        raise DesignInputError(f"deflection_check: give a Beam, got {type(beam).__name__} {beam!r}.", field="beam",
                              value=beam)
     if beam.EI is None:
         raise StiffnessRequiredError(
@@ -173,7 +174,7 @@ def deflection_check(
     if beam.units is None:
         raise UnitsError("deflection_check: the beam declares no units, so the load model cannot be applied; "
                          "declare them: Beam(..., units='kip-ft') or units='kN-m'.", field="units")
-    pedestrians = flag(pedestrians, what="pedestrians", field="pedestrians", error=LoadInputError)
+    pedestrians = flag(pedestrians, what="pedestrians", field="pedestrians", error=DesignInputError)
     model = aashto_deflection_load(dynamic_allowance) if load is None else as_model(load)
     model = model.converted(beam.units)
     factors = _factors(load is None, model, lanes, girders, multiple_presence_factor, share)
@@ -215,7 +216,7 @@ def deflection_check(
 def _limit(value: object, default: int, what: str) -> float:
     if value is None:
         return float(default)
-    return number(value, what)
+    return amount(value, what, strict=True)
 
 
 def _factors(aashto: bool, model: LoadModel, lanes: object, girders: object, m: object, share: object) -> Applied:
@@ -227,26 +228,27 @@ def _factors(aashto: bool, model: LoadModel, lanes: object, girders: object, m: 
     out = Applied() if dynamic is None else Applied.of(dynamic)
     if share is not None:
         if lanes is not None or girders is not None or m is not None:
-            raise LoadInputError(
+            raise DesignInputError(
                 "deflection_check: give either share= (the girder's share of one lane's load) or lanes= and "
                 "girders= (share = lanes × m / girders), not both.", field="share", value=share)
-        return out.then(share if isinstance(share, Factor) else Factor("distribution", number(share, "share"), "g"))
+        given = share if isinstance(share, Factor) else Factor("distribution", amount(share, "share", strict=True), "g")
+        return out.then(given)
     if lanes is None or girders is None:
-        raise LoadInputError(
+        raise DesignInputError(
             "deflection_check: give the number of design lanes and of girders (lanes=2, girders=5: all lanes loaded, "
             "all girders deflecting equally), or the girder's share of one lane's load directly (share=0.4).",
             field="lanes" if lanes is None else "girders")
     n = whole(lanes, what="lanes: the number of design lanes", field="lanes", minimum=1, maximum=100,
-              error=LoadInputError)
+              error=DesignInputError)
     ng = whole(girders, what="girders: the number of girders", field="girders", minimum=1, maximum=1000,
-               error=LoadInputError)
+               error=DesignInputError)
     out = out.then(Factor("lanes", n, "N_L", f"{_AASHTO}, 2.5.2.6.2", True, note="all design lanes loaded"))
     if isinstance(m, Factor):
         out = out.then(m)
     elif m is None:
         out = out.then(Factor("multiple presence", multiple_presence(n), "m", f"{_AASHTO}, Table 3.6.1.1.2-1", True))
     else:
-        out = out.then(Factor("multiple presence", number(m, "multiple_presence_factor"), "m"))
+        out = out.then(Factor("multiple presence", amount(m, "multiple_presence_factor", strict=True), "m"))
     return out.then(Factor("distribution", 1 / ng, "1/N_b", f"{_AASHTO}, 2.5.2.6.2", True,
                            note="all girders deflect equally"))
 
