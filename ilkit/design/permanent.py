@@ -82,14 +82,23 @@ Quantity = Literal["moment", "shear", "reaction", "deflection"]
 
 
 # ------------------------------------------------------------------- reading
-def _category(value: object, what: str) -> str:
-    if isinstance(value, str) and value.strip():
-        return value
-    raise LoadInputError(
-        f"{what}: the category must be a non-empty text such as 'DC', 'DW' or 'G', got {value!r}.",
-        field="category",
-        value=value,
-    )
+def _read(load: object, /, **numbers: Dimension) -> str:
+    """Check and store a load's ``name``, ``category`` and the ``numbers`` given (field name -> dimension;
+    ``None`` stays ``None``); returns the name."""
+    name = read_name(load.name, type(load).__name__)  # type: ignore[attr-defined]
+    category = load.category  # type: ignore[attr-defined]
+    if not isinstance(category, str) or not category.strip():
+        raise LoadInputError(
+            f"{name}: the category must be a non-empty text such as 'DC', 'DW' or 'G', got {category!r}.",
+            field="category",
+            value=category,
+        )
+    object.__setattr__(load, "name", name)
+    for label, dims in numbers.items():
+        value = getattr(load, label)
+        if value is not None:
+            object.__setattr__(load, label, _given(value, dims, f"{name}: {label}"))
+    return name
 
 
 def _given(value: object, dims: Dimension, field: str) -> Any:
@@ -137,13 +146,7 @@ class DistributedLoad:
     end: Any = None
 
     def __post_init__(self) -> None:
-        name = read_name(self.name, "DistributedLoad")
-        object.__setattr__(self, "name", name)
-        object.__setattr__(self, "category", _category(self.category, name))
-        object.__setattr__(self, "intensity", _given(self.intensity, LINE_LOAD, f"{name}: intensity"))
-        for label in ("start", "end"):
-            if getattr(self, label) is not None:
-                object.__setattr__(self, label, _given(getattr(self, label), LENGTH, f"{name}: {label}"))
+        name = _read(self, intensity=LINE_LOAD, start=LENGTH, end=LENGTH)
         if isinstance(self.start, Fraction) and isinstance(self.end, Fraction) and self.start >= self.end:
             raise LoadInputError(
                 f"{name}: start (x={fmt_precise(self.start)}) must lie left of end (x={fmt_precise(self.end)}); "
@@ -184,10 +187,7 @@ class SpanLoad:
     span: int
 
     def __post_init__(self) -> None:
-        name = read_name(self.name, "SpanLoad")
-        object.__setattr__(self, "name", name)
-        object.__setattr__(self, "category", _category(self.category, name))
-        object.__setattr__(self, "intensity", _given(self.intensity, LINE_LOAD, f"{name}: intensity"))
+        name = _read(self, intensity=LINE_LOAD)
         span = whole(self.span, what=f"{name}: span (numbered from 1)", field="span", minimum=1, error=LoadInputError)
         object.__setattr__(self, "span", span)
 
@@ -220,11 +220,7 @@ class PointLoad:
     at: Any
 
     def __post_init__(self) -> None:
-        name = read_name(self.name, "PointLoad")
-        object.__setattr__(self, "name", name)
-        object.__setattr__(self, "category", _category(self.category, name))
-        object.__setattr__(self, "load", _given(self.load, FORCE, f"{name}: load"))
-        object.__setattr__(self, "at", _given(self.at, LENGTH, f"{name}: at"))
+        _read(self, load=FORCE, at=LENGTH)
 
     def __repr__(self) -> str:
         return f"PointLoad({self.name!r}, {self.category!r}, {_text(self.load)}, at={_text(self.at)})"
@@ -260,11 +256,7 @@ class Settlement:
     category: str = "settlement"
 
     def __post_init__(self) -> None:
-        name = read_name(self.name, "Settlement")
-        object.__setattr__(self, "name", name)
-        object.__setattr__(self, "category", _category(self.category, name))
-        object.__setattr__(self, "at", _given(self.at, LENGTH, f"{name}: at"))
-        object.__setattr__(self, "displacement", _given(self.displacement, LENGTH, f"{name}: displacement"))
+        _read(self, at=LENGTH, displacement=LENGTH)
 
     def __repr__(self) -> str:
         extra = f", category={self.category!r}" if self.category != "settlement" else ""
