@@ -35,7 +35,7 @@ from ilkit.design.sections import Section, envelope_sections
 from ilkit.errors import DesignInputError, StiffnessRequiredError, UnitsError
 from ilkit.loads.combination import Combination, LoadModel, as_model
 from ilkit.loads.models import design_lane, design_truck, multiple_presence
-from ilkit.loads.placement import _Study
+from ilkit.loads.placement import extremes, place
 from ilkit.loads.primitives import AxleTrain, Load, number
 from ilkit.loads.results import Extreme
 from ilkit.model import Beam
@@ -187,8 +187,8 @@ def deflection_check(
     rows = []
     u = beam.units
     for s in sections:
-        study = _Study(beam.deflection(s.x, side=s.side), model, beam)
-        top, bottom = study.extreme(1), study.extreme(-1)
+        both = extremes(beam.deflection(s.x, side=s.side), model, beam=beam)
+        top, bottom = both.maximum, both.minimum
         found[s] = (top, bottom)
         rows.append({f"x [{u.length}]": float(s.x), "side": s.side or "", f"max [{u.length}]": g * top.value,
                      "max case": top.case, f"min [{u.length}]": g * bottom.value, "min case": bottom.case})
@@ -279,7 +279,7 @@ def _refine(
     lo, hi = xs[max(k - 1, 0)], xs[min(k + 1, len(xs) - 1)]
 
     def at(x: float) -> Extreme:
-        return _Study(beam.deflection(x), model, beam).extreme(sense)
+        return place(beam.deflection(x), model, "max" if sense > 0 else "min", beam=beam)
 
     tol = REFINE * float(b - a)
     c, d = hi - _GOLDEN * (hi - lo), lo + _GOLDEN * (hi - lo)

@@ -78,7 +78,7 @@ QUANTITIES: tuple[str, ...] = ("moment", "shear", "reaction", "deflection")
 (force, positive when the part left of the section is pushed up), vertical reaction (force, upward
 positive) and deflection (length, downward positive)."""
 
-Quantity = Literal["moment", "shear", "reaction", "deflection"]
+EffectKind = Literal["moment", "shear", "reaction", "deflection"]
 
 
 # ------------------------------------------------------------------- reading
@@ -465,7 +465,7 @@ class PermanentEffects(RichDisplay):
 
     def value(
         self,
-        quantity: Quantity,
+        quantity: EffectKind,
         at: object,
         side: Side | None = None,
         *,
