@@ -23,7 +23,20 @@ from hypothesis import strategies as st
 
 import ilkit
 from ilkit import BeamInputError, IlkitError, IllConditionedError, LoadInputError, Quantity, Spring, Support
-from ilkit.design import Applied, Factor
+from ilkit.design import (
+    Applied,
+    CrossSection,
+    Factor,
+    GirderLiveLoad,
+    LimitState,
+    aashto_distribution,
+    design_lanes,
+    given_distribution,
+    limit_states,
+    notional_lanes,
+    place_design_lanes,
+    transverse_line,
+)
 from ilkit.influence import InfluenceLine
 from ilkit.loads import (
     AxleTrain,
@@ -547,6 +560,7 @@ JUNK = st.one_of(
 )
 
 _LINE = TWO_SPANS.moment(5)
+_DECK = CrossSection(4, 8.0, 3.0, 1.0)
 _ENVELOPE = envelope(SPAN, KNIFE, divisions=2)
 ENTRY_POINTS = {
     "Beam.length": lambda v: ilkit.Beam(v, {0: "fixed"}),
@@ -603,6 +617,20 @@ ENTRY_POINTS = {
     "Factor includes": lambda v: Factor("distribution", 1.0, "g", includes=v),
     "Applied.then": lambda v: Applied().then(v),
     "Applied.contains": lambda v: Applied().contains(v),
+    "design_lanes": lambda v: design_lanes(v),
+    "notional_lanes": lambda v: notional_lanes(v),
+    "CrossSection spacing": lambda v: CrossSection(4, v, 3.0, 1.0),
+    "CrossSection girders": lambda v: CrossSection(v, 8.0, 3.0, 1.0),
+    "transverse_line girder": lambda v: transverse_line(_DECK, v),
+    "transverse_line ordinates": lambda v: transverse_line(_DECK, 1, ordinates=v),
+    "place_design_lanes loaded": lambda v: place_design_lanes(transverse_line(_DECK, 2), loaded=v),
+    "given_distribution": lambda v: given_distribution(v),
+    "aashto_distribution span": lambda v: aashto_distribution(_DECK, 2, span=v, slab_thickness=0.7, Kg=30.0),
+    "LimitState live": lambda v: LimitState("x", {"DC": (1.25, 0.9)}, v),
+    "LimitState permanent": lambda v: LimitState("x", {"DC": v}, 1.0),
+    "limit_states": lambda v: limit_states(v),
+    "GirderLiveLoad lanes": lambda v: GirderLiveLoad(hl93(), lanes=v),
+    "GirderLiveLoad multiple_presence": lambda v: GirderLiveLoad(hl93(), multiple_presence=v),
 }
 
 

@@ -20,9 +20,11 @@
 
 A :class:`Distribution` holds one :class:`~ilkit.design.Factor` of kind
 ``"distribution"`` per action, in lanes (a girder's share of one lane's
-load, dimensionless).  The AASHTO formulas, the lever rule and the rigid
-check include the multiple presence factor: their factors say so
-(``includes=("multiple presence",)``), so that it is never applied twice.
+load, dimensionless).  Every distribution factor contains the lanes (it is
+the share of all the loaded lanes); the AASHTO formulas, the lever rule and
+the rigid check also include the multiple presence factor: their factors say
+so (``includes=("lanes", "multiple presence")``), so that neither is applied
+twice.
 """
 
 from __future__ import annotations
@@ -62,7 +64,8 @@ _SOURCE_MX = f"{AASHTO_LRFD}, 4.6.2.2.2d, Table 4.6.2.2.2d-1"
 _SOURCE_V = f"{AASHTO_LRFD}, 4.6.2.2.3a, Table 4.6.2.2.3a-1"
 _SOURCE_VX = f"{AASHTO_LRFD}, 4.6.2.2.3b, Table 4.6.2.2.3b-1"
 _SOURCE_D = f"{AASHTO_LRFD}, 2.5.2.6.2 and Table 3.6.1.1.2-1"
-_MP = ("multiple presence",)
+_MP = ("lanes", "multiple presence")
+"""What a factor found by the formulas, the lever rule or the rigid check contains besides the share."""
 
 
 @dataclass(frozen=True)
@@ -111,7 +114,8 @@ class Distribution(RichDisplay):
                 "fatigue factors with given_distribution(...).", field="fatigue")
         m = multiple_presence_factor(1).value
         moment, shear = (Factor("distribution", f.value / m, f.symbol, source=f"{f.source}; 3.6.1.1.2",
-                                from_memory=True, note="one lane loaded, m = 1.20 removed (fatigue)")
+                                from_memory=True, includes=("lanes",),
+                                note="one lane loaded, m = 1.20 removed (fatigue)")
                          for f in self.one_lane)
         return replace(self, method=f"{self.method}, for fatigue", moment=moment, shear=shear, deflection=None,
                        steps=(), one_lane=None)
@@ -160,7 +164,7 @@ def given_distribution(
 
     def make(value: float, symbol: str) -> Factor:
         return Factor("distribution", amount(value, f"given_distribution: {symbol}", minimum=0.0), symbol,
-                      source=src, includes=_MP if mp else (), note=words)
+                      source=src, includes=_MP if mp else ("lanes",), note=words)
 
     m = make(moment, "gM")
     v = make(moment if shear is None else shear, "gV")

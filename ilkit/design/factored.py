@@ -37,7 +37,7 @@ from ilkit._exact import fmt
 from ilkit.design.combinations import LimitState
 from ilkit.design.combinations import limit_states as read_limit_states
 from ilkit.design.factors import Applied
-from ilkit.design.live import GirderLiveLoad, LiveEnvelope, live_envelope
+from ilkit.design.live import GirderLiveLoad, LiveEnvelope, _from_lane, live_envelope
 from ilkit.design.permanent import PermanentEffects
 from ilkit.errors import DesignInputError, SideRequiredError
 from ilkit.model import Beam
@@ -162,8 +162,11 @@ class FactoredEnvelope(RichDisplay):
         return float(rows[extreme].iloc[0])
 
 
-def _live_map(live: object, states: tuple[LimitState, ...]) -> dict[str, GirderLiveLoad]:
-    if isinstance(live, GirderLiveLoad):
+Live = GirderLiveLoad | LiveEnvelope
+
+
+def _live_map(live: object, states: tuple[LimitState, ...]) -> dict[str, Live]:
+    if isinstance(live, (GirderLiveLoad, LiveEnvelope)):
         return {s.name: live for s in states}
     if not isinstance(live, Mapping):
         raise DesignInputError(
@@ -177,9 +180,9 @@ def _live_map(live: object, states: tuple[LimitState, ...]) -> dict[str, GirderL
             raise DesignInputError(
                 f"factored_envelope: no live load for {s.name!r}; give live={{{s.name!r}: GirderLiveLoad(...), ...}} "
                 "or a default under the key '*'.", field="live", value=sorted(live))
-        if not isinstance(chosen, GirderLiveLoad):
-            raise DesignInputError(f"factored_envelope: the live load for {s.name!r} must be a GirderLiveLoad, got "
-                                   f"{type(chosen).__name__}.", field="live", value=chosen)
+        if not isinstance(chosen, (GirderLiveLoad, LiveEnvelope)):
+            raise DesignInputError(f"factored_envelope: the live load for {s.name!r} must be a GirderLiveLoad (or its "
+                                   f"LiveEnvelope), got {type(chosen).__name__}.", field="live", value=chosen)
         out[s.name] = chosen
     unknown = sorted(set(live) - {s.name for s in states} - {"*"})
     if unknown:
@@ -192,7 +195,7 @@ def factored_envelope(
     beam: Beam,
     *,
     permanent: PermanentEffects,
-    live: GirderLiveLoad | Mapping[str, GirderLiveLoad],
+    live: GirderLiveLoad | LiveEnvelope | Mapping[str, GirderLiveLoad | LiveEnvelope],
     limit_states: object,
     divisions: int = 10,
     at: Sequence[object] = (),
@@ -201,9 +204,10 @@ def factored_envelope(
 
     ``permanent``: the permanent effects at the sections of an envelope with
     the same ``divisions`` and ``at`` (:func:`~ilkit.design.permanent_effects`).
-    ``live``: the girder's live load, or a mapping of limit-state names to
-    live loads (the fatigue truck for the fatigue limit states; the key
-    ``"*"`` for the others).  ``limit_states``: names (``"Strength I"``),
+    ``live``: the girder's live load (or its
+    :class:`~ilkit.design.LiveEnvelope`, computed once), or a mapping of
+    limit-state names to them (the fatigue truck for the fatigue limit
+    states; the key ``"*"`` for the others).  ``limit_states``: names (``"Strength I"``),
     ``"AASHTO"``, ``"EN 1990"`` or :class:`~ilkit.design.LimitState` objects
     (:func:`~ilkit.design.limit_states`).  Moments, shears and reactions in
     the beam's units with the signs of :mod:`ilkit.model`; see the module
@@ -221,14 +225,19 @@ def factored_envelope(
     states = read_limit_states(limit_states)
     lives = _live_map(live, states)
     for s in states:
-        lives[s.name].check(s)
+        given = lives[s.name]
+        (given.live if isinstance(given, LiveEnvelope) else given).check(s)
     envelopes: dict[int, LiveEnvelope] = {}
     for s in states:
         g = lives[s.name]
         needs_parts = bool(s.live_parts)
-        current = envelopes.get(id(g))
+        current = g if isinstance(g, LiveEnvelope) else envelopes.get(id(g))
         if current is None or (needs_parts and "max_axles" not in current.frame):
-            envelopes[id(g)] = live_envelope(beam, g, divisions=divisions, at=at, parts=needs_parts)
+            if isinstance(g, LiveEnvelope):
+                current = _from_lane(g.lane, g.live, True)
+            else:
+                current = live_envelope(beam, g, divisions=divisions, at=at, parts=needs_parts)
+        envelopes[id(g)] = current
     # the permanent effects by category, on the live envelope's rows
     by_cat = permanent.by_category()
     by_cat = by_cat[by_cat["quantity"].isin(QUANTITIES)]
@@ -239,8 +248,10 @@ def factored_envelope(
     frames = []
     factors: dict[str, Mapping[str, Applied]] = {}
     for s in states:
-        g = lives[s.name]
-        env = envelopes[id(g)]
+        env = envelopes[id(lives[s.name])]
+        if env.lane.beam != beam:
+            raise DesignInputError(f"factored_envelope: the live-load envelope for {s.name!r} is of another beam; "
+                                   "compute it for this one.", field="live")
         rows = env.frame
         merged = rows.merge(by_cat, on=["quantity", "x", "side"], how="left", indicator=True)
         missing = merged["_merge"] != "both"
@@ -273,7 +284,7 @@ def factored_envelope(
             "permanent_max": perm_max, "live_max": live_max, "permanent_min": perm_min, "live_min": live_min,
         }))
         gamma = s.live_factor()
-        factors[s.name] = MappingProxyType({a: g.factors(a).then(gamma) for a in QUANTITIES})
+        factors[s.name] = MappingProxyType({a: env.live.factors(a).then(gamma) for a in QUANTITIES})
     frame = pd.concat(frames, ignore_index=True)
     notes = (
         "A live load that would relieve an extreme is left out there (its case reads 'no live load').",

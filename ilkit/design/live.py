@@ -236,6 +236,18 @@ class LiveEnvelope(RichDisplay):
 
         return Extremes(best, worst)
 
+    def for_girder(self, live: GirderLiveLoad) -> LiveEnvelope:
+        """The envelope of another girder loaded by the same model (another share): the one-lane envelope is
+        reused and scaled, no placement is searched again.  Units of the beam, signs of :mod:`ilkit.model`."""
+        if not isinstance(live, GirderLiveLoad):
+            raise DesignInputError(f"for_girder: give a GirderLiveLoad, got {type(live).__name__}.", field="live",
+                                   value=live)
+        if live.model != self.live.model:
+            raise DesignInputError(
+                f"for_girder: {live.name!r} has another load model than this envelope ({self.live.name!r}); compute "
+                "its envelope with live_envelope(...).", field="live", value=live.name)
+        return _from_lane(self.lane, live, "max_axles" in self.frame)
+
     def __repr__(self) -> str:
         return f"LiveEnvelope({self.live.name}: {len(self.frame)} rows)"
 
@@ -269,16 +281,22 @@ def live_envelope(
 
     Values are one lane's extremes (exact placement, :func:`ilkit.loads.envelope`) times the girder's share
     of each action; units of the beam, signs of :mod:`ilkit.model`.  ``parts=True`` also splits each extreme
-    into its axle and uniform parts (for limit states that factor them apart).
+    into its axle and uniform parts (for limit states that factor them apart).  Another girder loaded by the
+    same model: :meth:`LiveEnvelope.for_girder` (no second search).
     """
-    import pandas as pd
-
     from ilkit.loads.envelope import envelope
 
     if not isinstance(live, GirderLiveLoad):
         raise DesignInputError(f"live_envelope: give a GirderLiveLoad, got {type(live).__name__} {live!r}.",
                                field="live", value=live)
     lane = envelope(beam, live.model, divisions=divisions, at=list(at))
+    return _from_lane(lane, live, parts)
+
+
+def _from_lane(lane: Envelope, live: GirderLiveLoad, parts: bool) -> LiveEnvelope:
+    """The girder's envelope from one lane's: every extreme times the share of its action."""
+    import pandas as pd
+
     model = lane.load_model or live.model
     scale = {"moment": live.scale("moment"), "shear": live.scale("shear"), "reaction": live.scale("shear")}
     order = {"left": 0, None: 1, "right": 2}
@@ -297,4 +315,3 @@ def live_envelope(
                 row[f"{which}_axles"], row[f"{which}_uniform"] = s * a, s * u
         rows.append(row)
     return LiveEnvelope(live, pd.DataFrame(rows), lane)
-

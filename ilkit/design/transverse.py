@@ -80,6 +80,9 @@ __all__ = [
 TransverseMethod = Literal["lever rule", "rigid", "given"]
 """How a transverse line is found: the lever rule, a rigid cross-section, or ordinates given."""
 
+MAX_GIRDERS = 200
+"""Most girders a cross-section may have (more is a typing error, not a deck)."""
+
 _TOL = 1e-9
 """Relative tolerance (of the deck width) below which two positions across the deck are one."""
 
@@ -125,7 +128,8 @@ class CrossSection:
         units: str = "kip-ft",
     ) -> None:
         system = read_units(units, "CrossSection")
-        n = whole(girders, what="CrossSection: girders", field="girders", minimum=2, error=DesignInputError)
+        n = whole(girders, what="CrossSection: girders", field="girders", minimum=2, maximum=MAX_GIRDERS,
+                  error=DesignInputError)
         if (isinstance(spacing, Sequence) and not isinstance(spacing, str)) or hasattr(spacing, "ndim"):
             items = listed(spacing, wanted="CrossSection: spacing: give one spacing or a list of them",
                            field="spacing", error=DesignInputError)
@@ -383,8 +387,8 @@ class LanePlacement(RichDisplay):
     ``lanes`` the lanes' edges, one pair per loaded lane.  ``trials`` lists,
     for every number of loaded lanes tried, the best share without and with
     m.  ``factor`` is the share as a :class:`~ilkit.design.Factor` of kind
-    ``"distribution"`` (it includes ``"multiple presence"`` when m was
-    applied).
+    ``"distribution"`` (it includes ``"lanes"``, and ``"multiple presence"``
+    when m was applied).
     """
 
     line: TransverseLine
@@ -405,7 +409,7 @@ class LanePlacement(RichDisplay):
         if m is not None:
             words += f", m = {m.value:.2f} included"
         return Factor("distribution", self.share, "g", source=self.line.source, from_memory=self.line.from_memory,
-                      includes=("multiple presence",) if m is not None else (), note=words)
+                      includes=("lanes", "multiple presence") if m is not None else ("lanes",), note=words)
 
     def __repr__(self) -> str:
         m = f" with m {self.multiple_presence.value:.2f}" if self.multiple_presence is not None else ""
