@@ -127,7 +127,7 @@ def test_three_girders_use_the_lesser_of_formula_and_lever_rule_for_moment_and_t
 )
 def test_inputs_outside_the_range_name_the_lever_rule_or_a_refined_analysis(kwargs, field):
     args = {"span": 100.0, "slab_thickness": 8 / 12, "Kg": 500_000 * IN4} | kwargs
-    with pytest.raises(ilkit.OutsideRangeError, match="use the lever rule .* or a refined analysis") as err:
+    with pytest.raises(ilkit.OutsideRangeError, match=r"use the lever rule .* or a refined analysis") as err:
         aashto_distribution(CrossSection(5, 9.0, 3.0, 1.0), 2, **args)
     assert err.value.field == field
 

@@ -13,7 +13,6 @@ from ilkit.design import (
     DistributedLoad,
     FactorAppliedTwiceError,
     GirderLiveLoad,
-    LimitState,
     factored_envelope,
     given_distribution,
     live_envelope,
@@ -124,8 +123,8 @@ def test_an_unknown_permanent_category_names_the_fix():
 
 def test_the_live_load_records_its_factors_once():
     live = GirderLiveLoad(loads.hl93(), lanes=2, multiple_presence=1.0)
-    assert live.factors("moment").describe() == "IM 33 % (design truck, design tandem, two design trucks) × NL 2.00 × " \
-                                                "m 1.00"
+    assert live.factors("moment").describe() == (
+        "IM 33 % (design truck, design tandem, two design trucks) × NL 2.00 × m 1.00")
     assert live.scale("reaction") == 2.0
     with pytest.raises(ilkit.DesignInputError, match=r"hl93\(factor=\.\.\.\)"):
         GirderLiveLoad(loads.hl93(factor=1.2))
