@@ -25,7 +25,6 @@ three gave the supremum places every group.
 
 from __future__ import annotations
 
-from collections.abc import Callable
 from dataclasses import dataclass
 
 import numpy as np
@@ -123,32 +122,35 @@ def _profile(group: Group, lines: Lines, sense: int, reach: float) -> tuple[Piec
 
     ``reach`` is a distance that takes every load of the group off the beam.
     """
-    knot, anchor = _search.events(group, lines)
+    table = _search._Table.of((group,))
+    ev, _, _ = _search.events(table, lines)
+    knot, anchor = ev.knot, ev.anchor
     y = knot - anchor
-    degree = max(_search._degree(group, lines) + 1, 0)
+    degree = max(_search._degree(table, lines) + 1, 0)
     nodes, inverse = _search._chebyshev(degree + 1)
     width = np.diff(y)
     half = 0.5 * width
     shift = half[:, None] * (1.0 + nodes[None, :])
     k2 = np.repeat(knot[:-1], nodes.size)
     a2 = np.repeat(anchor[:-1], nodes.size)
-    values = _search.effect(group, lines, k2, a2, shift.ravel(), np.zeros(k2.size, dtype=int))
+    values = _effect(group, lines, k2, a2, shift.ravel(), np.zeros(k2.size, dtype=int))
     inner = (values.reshape(shift.shape) @ inverse.T) * sense  # in u' = (shift - half) / half
     # to the local coordinate u = shift: p(u') with u' = u / half - 1
     c = _shifted(inner, -np.ones(inner.shape[0]))
     c = c / half[:, None] ** np.arange(c.shape[1])[None, :]
-    ends = _search.effect(
-        group,
-        lines,
-        knot[[0, -1]],
-        anchor[[0, -1]],
-        np.array([-reach, reach]),
-        np.zeros(2, dtype=int),
-    )
+    ends = _effect(group, lines, knot[[0, -1]], anchor[[0, -1]], np.array([-reach, reach]), np.zeros(2, dtype=int))
     table = np.zeros((y.size + 1, c.shape[1]))
     table[1:-1] = c
     table[0, 0], table[-1, 0] = sense * ends[0], sense * ends[1]
     return Pieces(y, table), knot, anchor
+
+
+def _effect(group: Group, lines: Lines, knot, anchor, shift, side) -> np.ndarray:
+    """Effect of ``group`` on the one line of ``lines``, standing as the candidates say."""
+    zero = np.zeros(np.size(knot), dtype=int)
+    rows = _search.Rows(zero, zero, np.asarray(knot, float), np.asarray(anchor, float), np.asarray(shift, float),
+                        np.asarray(side, int))
+    return _search.effect(_search._Table.of((group,)), lines, rows)
 
 
 # ------------------------------------------------------------ window supremum
@@ -361,16 +363,14 @@ def _stand(member: int, group: Group, events: tuple[np.ndarray, np.ndarray], y: 
     return Standing(group, ((member, 0.0),), float(knot[j]), float(anchor[j]), shift, side)
 
 
-def best_by_programme(chain: Chain, lines_of: Callable[[Group], Lines], sense: int, tol: float) -> ChainOptimum:
+def best_by_programme(chain: Chain, lines: Lines, sense: int) -> ChainOptimum:
     """Largest (``sense=1``) or smallest (``sense=-1``) effect of a chain whose groups can all be on the
-    beam together, by the dynamic programme of this module.
-
-    ``lines_of(group)`` gives the :class:`~ilkit.loads._search.Lines` of a group.
-    """
+    beam together, on the one line of ``lines``, by the dynamic programme of this module."""
     groups = chain.groups
-    length = max(lines_of(g).axle.length for g in groups)
+    tol = float(lines.plain.tol[0])
+    length = float(lines.plain.length[0])
     reach = 2.0 * (length + sum(g.reach[1] - g.reach[0] for g in groups if np.isfinite(g.reach).all()) + 1.0)
-    profiles = [_profile(g, lines_of(g), sense, reach) for g in groups]
+    profiles = [_profile(g, lines, sense, reach) for g in groups]
     v = profiles[0][0]
     stages = []  # (window supremum, its points, the sum) for each group after the first
     for b in range(1, len(groups)):
@@ -404,8 +404,6 @@ def best_by_programme(chain: Chain, lines_of: Callable[[Group], Lines], sense: i
     # the value where the groups stand, evaluated exactly (the pieces were fitted)
     total = 0.0
     for g, s in zip(groups, standings):
-        one = np.ones(1)
-        at = _search.effect(g, lines_of(g), s.knot * one, s.anchor * one, s.shift * one, np.array([s.side]))
-        total += float(at[0])
+        total += float(_effect(g, lines, [s.knot], [s.anchor], [s.shift], [s.side])[0])
     return ChainOptimum(total, standings, _search.chain_gaps(chain, standings, tol))
 

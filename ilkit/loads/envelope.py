@@ -11,17 +11,18 @@ left of the section is pushed up, reactions positive upward.
 
 from __future__ import annotations
 
-import math
 from dataclasses import dataclass, field
 from fractions import Fraction
 from typing import TYPE_CHECKING, Any, Literal
+
+import numpy as np
 
 from ilkit._check import choice, listed, whole
 from ilkit._display import RichDisplay
 from ilkit._exact import fmt, fmt_precise
 from ilkit.errors import LoadInputError, UnitsError
 from ilkit.loads.combination import Combination, LoadModel, as_model
-from ilkit.loads.placement import _Study
+from ilkit.loads.placement import extremes_of
 from ilkit.loads.primitives import Load
 from ilkit.loads.results import Extreme, Extremes
 from ilkit.model import Beam
@@ -35,7 +36,9 @@ if TYPE_CHECKING:  # pragma: no cover
 
 __all__ = ["Envelope", "envelope"]
 
-_GOLDEN = (math.sqrt(5.0) - 1.0) / 2.0
+_GRID = 15
+"""Sections per bracket and round in the search for the absolute maximum moment (each round narrows a
+bracket 8 times)."""
 MAX_DIVISIONS = 1000
 """Most parts per span: each section is two placement searches, so more would run for hours."""
 
@@ -157,24 +160,23 @@ def envelope(
         points.add(beam.position(pos))  # a section within the merge tolerance of a support is the support
     faces = set(supports) | set(releases)
 
-    studies: dict[int, Extremes] = {}
-
-    def both(line: InfluenceLine) -> Extremes:
-        key = id(line)
-        if key not in studies:
-            study = _Study(line, model, beam)
-            studies[key] = Extremes(study.extreme(1), study.extreme(-1))
-        return studies[key]
-
-    found: dict[tuple[str, Fraction, Side | None], Extremes] = {}
-    rows: list[dict[str, Any]] = []
+    # every line of the envelope first, then one search of all of them together
+    lines: dict[tuple[str, Fraction, Side | None], InfluenceLine] = {}
     for p in sorted(points):
         sides: tuple[Side | None, ...] = ("left", "right") if p in faces and 0 < p < L else (None,)
         for side in sides:
-            m = both(beam.moment(p, side=side))
-            v = both(beam.shear(p, side=side))
-            found[("moment", p, side)] = m
-            found[("shear", p, side)] = v
+            lines[("moment", p, side)] = beam.moment(p, side=side)
+            lines[("shear", p, side)] = beam.shear(p, side=side)
+    for s in beam.supports:
+        lines[("reaction", s.at, None)] = beam.reaction(s.at)
+    found: dict[tuple[str, Fraction, Side | None], Extremes] = dict(
+        zip(lines, extremes_of(list(lines.values()), model, beam=beam))
+    )
+    rows: list[dict[str, Any]] = []
+    for p in sorted(points):
+        sides = ("left", "right") if p in faces and 0 < p < L else (None,)
+        for side in sides:
+            m, v = found[("moment", p, side)], found[("shear", p, side)]
             rows.append(
                 {
                     f"x [{u.length}]": float(p),
@@ -191,8 +193,7 @@ def envelope(
             )
     reaction_rows = []
     for s in beam.supports:
-        r = both(beam.reaction(s.at))
-        found[("reaction", s.at, None)] = r
+        r = found[("reaction", s.at, None)]
         reaction_rows.append(
             {
                 f"x [{u.length}]": float(s.at),
@@ -213,8 +214,8 @@ def _absolute_maximum(
     found: dict[tuple[str, Fraction, Side | None], Extremes],
     barriers: list[Fraction],
 ) -> Extreme:
-    """Largest moment over all sections: the sampled local maxima refined by golden-section search."""
-    sampled = sorted((k[1], e.maximum) for k, e in found.items() if k[0] == "moment")
+    """Largest moment over all sections: the sampled local maxima refined on finer and finer grids."""
+    sampled = sorted(((k[1], e.maximum) for k, e in found.items() if k[0] == "moment"), key=lambda item: item[0])
     xs = [float(p) for p, _ in sampled]
     values = [e.value for _, e in sampled]
     top = max(values)
@@ -223,6 +224,7 @@ def _absolute_maximum(
         return best
     cuts = sorted(float(b) for b in barriers)
     tol = 1e-6 * float(beam.length)
+    brackets = []
     for i, value in enumerate(values):
         neighbours = values[max(i - 1, 0) : i + 2]
         if value < max(neighbours) or value < 0.95 * top:
@@ -232,28 +234,29 @@ def _absolute_maximum(
         # stay between supports and releases, where the moment line is smooth in the section position
         lo = max([lo, *(c for c in cuts if c < xs[i])])
         hi = min([hi, *(c for c in cuts if c > xs[i])])
-        if hi - lo <= 2 * tol:
-            continue
-        found_here = _golden(beam, model, lo, hi, tol)
-        if found_here.value > best.value:
-            best = found_here
+        if hi - lo > 2 * tol:
+            brackets.append((lo, hi))
+    found_here = _refine(beam, model, brackets, tol)
+    return found_here if found_here is not None and found_here.value > best.value else best
+
+
+def _refine(beam: Beam, model: LoadModel, brackets: list[tuple[float, float]], tol: float) -> Extreme | None:
+    """The largest moment in the brackets: each searched on a grid of :data:`_GRID` sections, then on a
+    finer grid around the best one, until the grid step is below ``tol`` (all brackets' sections of a
+    round searched together)."""
+    best: Extreme | None = None
+    while brackets:
+        grids = [np.linspace(lo, hi, _GRID + 2)[1:-1] for lo, hi in brackets]
+        sections = [float(x) for grid in grids for x in grid]
+        found = extremes_of([beam.moment(x) for x in sections], model, beam=beam)
+        narrower = []
+        for k, (grid, (lo, hi)) in enumerate(zip(grids, brackets)):
+            here = [e.maximum for e in found[k * _GRID : (k + 1) * _GRID]]
+            j = max(range(_GRID), key=lambda n: here[n].value)
+            if best is None or here[j].value > best.value:
+                best = here[j]
+            step = (hi - lo) / (_GRID + 1)
+            if step > tol:
+                narrower.append((grid[j] - step, grid[j] + step))
+        brackets = narrower
     return best
-
-
-def _golden(beam: Beam, model: LoadModel, lo: float, hi: float, tol: float) -> Extreme:
-    def value_at(x: float) -> Extreme:
-        return _Study(beam.moment(x), model, beam).extreme(1)
-
-    a, b = lo, hi
-    c, d = b - _GOLDEN * (b - a), a + _GOLDEN * (b - a)
-    fc, fd = value_at(c), value_at(d)
-    while b - a > tol:
-        if fc.value >= fd.value:
-            b, d, fd = d, c, fc
-            c = b - _GOLDEN * (b - a)
-            fc = value_at(c)
-        else:
-            a, c, fc = c, d, fd
-            d = a + _GOLDEN * (b - a)
-            fd = value_at(d)
-    return fc if fc.value >= fd.value else fd
