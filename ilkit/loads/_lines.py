@@ -204,7 +204,7 @@ class LineSet:
         t = xs - self.knots[r, j]
         return _antiderivative(self.coef[r, j], t) + self._cumulative_at_knots[r, j]
 
-    @property
+    @functools.cached_property
     def areas(self) -> tuple[np.ndarray, np.ndarray]:
         """Areas under the positive and the negative parts of each line."""
         rows = np.arange(self.size)

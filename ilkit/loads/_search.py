@@ -100,7 +100,7 @@ class Group:
     offsets: tuple[float, ...]
     loads: tuple[float, ...]
     segments: tuple[Segment, ...] = ()
-    exact: tuple[Fraction, ...] | None = None  # the offsets without rounding, where known
+    exact: tuple[Fraction, ...] | None = field(default=None, hash=False)  # the offsets without rounding
 
     @property
     def extent(self) -> float:
@@ -693,6 +693,16 @@ class ChainSearch:
     picks: tuple[np.ndarray, ...]
     tol: np.ndarray
 
+    def chosen(self, lines: np.ndarray) -> list[tuple[Candidates, np.ndarray, np.ndarray]]:
+        """For the lines ``lines``: each block's candidates, the index of the one found, and the line."""
+        out = []
+        for p in range(len(self.patterns)):
+            sel = lines[self.pattern[lines] == p]
+            if sel.size:
+                for b, cands in enumerate(self.candidates[p]):
+                    out.append((cands, cands.starts[sel] + self.picks[p][b, sel], sel))
+        return out
+
     def optimum(self, i: int) -> ChainOptimum:
         """The placement found on line ``i``."""
         p = int(self.pattern[i])
@@ -714,6 +724,21 @@ class ChainSearch:
         return ChainOptimum(float(self.value[i]), found, chain_gaps(self.chain, found, float(self.tol[i])))
 
 
+def exact_sum(chosen: list[tuple[Candidates, np.ndarray, np.ndarray]], size: int) -> np.ndarray:
+    """The effect of the chosen candidates evaluated afresh (every load on its face), summed per line: one
+    evaluation for all of them."""
+    out = np.zeros(size)
+    if not chosen:
+        return out
+    table = _Table.of(tuple(c.table.groups[0] for c, _, _ in chosen))
+    g = np.concatenate([np.full(i.size, k) for k, (_, i, _) in enumerate(chosen)])
+    names = ("line", "knot", "anchor", "shift", "side")
+    rows = Rows(g, *(np.concatenate([getattr(c, f)[i] for c, i, _ in chosen]) for f in names))
+    values = effect(table, chosen[0][0].lines, rows)
+    np.add.at(out, np.concatenate([lines for _, _, lines in chosen]), values)
+    return out
+
+
 def best_in_chain(chain: Chain, find: Callable[[Group], Candidates], sense: int, tol: np.ndarray) -> ChainSearch:
     """Largest (``sense=1``) or smallest (``sense=-1``) effect of a chain whose parts can all be on the beam
     together (see :func:`split`), on every line at once.
@@ -727,13 +752,6 @@ def best_in_chain(chain: Chain, find: Callable[[Group], Candidates], sense: int,
     for pattern in found:
         blocks = tuple(find(b) for b in pattern.blocks)
         value, pick = _best_for_pattern(pattern, blocks, sense, tol)
-        # the placement found, evaluated afresh (the search compared values to rounding)
-        placed = ~np.isinf(value) | (sense * value > 0)  # a placement was found (NaN: an overflow, found too)
-        exact = np.zeros(int(placed.sum()))
-        for b, cands_b in enumerate(blocks):
-            exact += cands_b.exact(cands_b.starts[:-1][placed] + pick[b][placed])
-        value = np.where(placed, 0.0, value)
-        value[placed] = exact
         cands.append(blocks)
         values.append(value)
         picks.append(pick)

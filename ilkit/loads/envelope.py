@@ -15,14 +15,12 @@ from dataclasses import dataclass, field
 from fractions import Fraction
 from typing import TYPE_CHECKING, Any, Literal
 
-import numpy as np
-
 from ilkit._check import choice, listed, whole
 from ilkit._display import RichDisplay
 from ilkit._exact import fmt, fmt_precise
 from ilkit.errors import LoadInputError, UnitsError
 from ilkit.loads.combination import Combination, LoadModel, as_model
-from ilkit.loads.placement import extremes_of
+from ilkit.loads.placement import extremes_of, maxima_of
 from ilkit.loads.primitives import Load
 from ilkit.loads.results import Extreme, Extremes
 from ilkit.model import Beam
@@ -36,9 +34,10 @@ if TYPE_CHECKING:  # pragma: no cover
 
 __all__ = ["Envelope", "envelope"]
 
-_GRID = 15
-"""Sections per bracket and round in the search for the absolute maximum moment (each round narrows a
-bracket 8 times)."""
+_ROUNDS = 40
+"""Most rounds of the search for the absolute maximum moment (a smooth maximum takes three or four)."""
+_NARROW = 64
+"""How much closer than the bracket the sections searched around a parabola's vertex are."""
 MAX_DIVISIONS = 1000
 """Most parts per span: each section is two placement searches, so more would run for hours."""
 
@@ -235,28 +234,46 @@ def _absolute_maximum(
         lo = max([lo, *(c for c in cuts if c < xs[i])])
         hi = min([hi, *(c for c in cuts if c > xs[i])])
         if hi - lo > 2 * tol:
-            brackets.append((lo, hi))
+            here: dict[float, Extreme] = {}
+            for x, e in zip(xs, (e for _, e in sampled)):  # the sections searched already (both faces kept)
+                if lo <= x <= hi and (x not in here or e.value > here[x].value):
+                    here[x] = e
+            brackets.append(here)
     found_here = _refine(beam, model, brackets, tol)
     return found_here if found_here is not None and found_here.value > best.value else best
 
 
-def _refine(beam: Beam, model: LoadModel, brackets: list[tuple[float, float]], tol: float) -> Extreme | None:
-    """The largest moment in the brackets: each searched on a grid of :data:`_GRID` sections, then on a
-    finer grid around the best one, until the grid step is below ``tol`` (all brackets' sections of a
-    round searched together)."""
+def _refine(beam: Beam, model: LoadModel, brackets: list[dict[float, Extreme]], tol: float) -> Extreme | None:
+    """The largest moment in the brackets, by successive parabolas: through the best section known and its
+    neighbours, three sections around the parabola's vertex are searched (those of every bracket
+    together), until the best section's neighbours are within ``tol`` of it.  The bracket always holds
+    the best section between two lower ones, so a kink slows the search but cannot mislead it."""
+    known = [dict(b) for b in brackets]  # section -> its largest moment
     best: Extreme | None = None
-    while brackets:
-        grids = [np.linspace(lo, hi, _GRID + 2)[1:-1] for lo, hi in brackets]
-        sections = [float(x) for grid in grids for x in grid]
-        found = extremes_of([beam.moment(x) for x in sections], model, beam=beam)
-        narrower = []
-        for k, (grid, (lo, hi)) in enumerate(zip(grids, brackets)):
-            here = [e.maximum for e in found[k * _GRID : (k + 1) * _GRID]]
-            j = max(range(_GRID), key=lambda n: here[n].value)
-            if best is None or here[j].value > best.value:
-                best = here[j]
-            step = (hi - lo) / (_GRID + 1)
-            if step > tol:
-                narrower.append((grid[j] - step, grid[j] + step))
-        brackets = narrower
+    todo: list[tuple[int, float]] = []
+    for _ in range(_ROUNDS):
+        if todo:
+            found = maxima_of([beam.moment(x) for _, x in todo], model, beam=beam)
+            for (k, x), e in zip(todo, found):
+                known[k][x] = e
+                if best is None or e.value > best.value:
+                    best = e
+        todo = []
+        for k, samples in enumerate(known):
+            xs = sorted(samples)
+            values = [samples[x].value for x in xs]  # type: ignore[union-attr]
+            i = max(range(len(xs)), key=lambda n: values[n])
+            left, right = xs[max(i - 1, 0)], xs[min(i + 1, len(xs) - 1)]
+            if right - left <= 2 * tol:
+                continue
+            x0, x1, x2 = left, xs[i], right
+            f0, f1, f2 = (samples[x].value for x in (x0, x1, x2))  # type: ignore[union-attr]
+            den = (x1 - x0) * (f1 - f2) - (x1 - x2) * (f1 - f0)
+            num = (x1 - x0) ** 2 * (f1 - f2) - (x1 - x2) ** 2 * (f1 - f0)
+            vertex = x1 - 0.5 * num / den if den != 0 else x1
+            step = max((right - left) / _NARROW, tol / 2)
+            probes = {min(max(vertex + d * step, left + tol / 4), right - tol / 4) for d in (-1, 0, 1)}
+            todo.extend((k, x) for x in sorted(probes) if x not in samples)
+        if not todo:
+            break
     return best

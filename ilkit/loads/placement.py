@@ -39,7 +39,7 @@ from ilkit.loads.primitives import OVERFLOW, AxleTrain, KnifeEdge, Load, Uniform
 from ilkit.loads.results import AxlePosition, Direction, Extreme, Extremes, LoadPlacement, Patch
 from ilkit.model import Beam
 
-__all__ = ["place", "extremes", "extremes_of"]
+__all__ = ["place", "extremes", "extremes_of", "maxima_of"]
 
 Sense = Literal["max", "min"]
 Travelling = AxleTrain | UniformBlocks | KnifeEdge
@@ -90,6 +90,13 @@ def extremes_of(
     return [Extremes(a, b) for a, b in zip(study.extremes(1, lazy=True), study.extremes(-1, lazy=True))]
 
 
+def maxima_of(
+    lines: Sequence[InfluenceLine], load: Load | Combination | LoadModel, *, beam: Beam | None = None
+) -> list[Extreme]:
+    """The largest effect of ``load`` on each of many lines of one beam (see :func:`extremes_of`)."""
+    return _Study(tuple(_line(line) for line in lines), load, beam).extremes(1, lazy=True)
+
+
 def _line(line: object) -> InfluenceLine:
     if not isinstance(line, InfluenceLine):
         raise LoadInputError(
@@ -126,6 +133,24 @@ class _Found:
         out.local[rows] = np.arange(rows.size)  # type: ignore[attr-defined]
         out.inner = found  # type: ignore[attr-defined]
         return out
+
+    @functools.cached_property
+    def exact(self) -> np.ndarray:
+        """The effect of the placement found on each line, evaluated afresh (the search compares values to
+        rounding): one evaluation for the placements found by patterns; the programme's are exact."""
+        inner = getattr(self, "inner", None)
+        if inner is not None:
+            out = np.full(self.value.size, np.nan)
+            out[self.local >= 0] = inner.exact  # type: ignore[attr-defined]
+            return out
+        out = self.value.copy()
+        chosen = []
+        for k, (_, _, _, result) in enumerate(self.sources):
+            if isinstance(result, _search.ChainSearch):
+                lines = np.nonzero(self.source == k)[0]
+                chosen.extend(result.chosen(lines))
+                out[lines] = 0.0
+        return out + _search.exact_sum(chosen, self.value.size)
 
     def optimum(self, i: int) -> tuple[Direction, _search.Split, _search.ChainOptimum]:
         """Direction, split chain and the whole chain placed, on line ``i``."""
@@ -205,7 +230,8 @@ class _Study:
     def extremes(self, sense: int, *, lazy: bool) -> list[Extreme]:
         """The extreme of ``sense`` on every line (placements described now, or when first asked for)."""
         with np.errstate(over="ignore", invalid="ignore"):  # an overflow is reported below, as the effect
-            total, case = self._governing(sense)
+            _, case = self._governing(sense)
+            total = self._exact_totals(case, sense)
         out = []
         for i, line in enumerate(self.lines):
             what = (
@@ -248,6 +274,23 @@ class _Study:
             best = np.where(better, total, best)
             which = np.where(better, k, which)
         return best, which
+
+    def _exact_totals(self, case: np.ndarray, sense: int) -> np.ndarray:
+        """The total of each line's governing case with each load where the search placed it, evaluated
+        afresh (the choices were made on the search's values, to rounding)."""
+        total = np.full(self.set.size, np.nan)
+        for k, combination in enumerate(self.model.cases):
+            lines = case == k
+            if not lines.any():
+                continue
+            parts = []
+            for part in combination.parts:
+                if isinstance(part, UniformLoad):
+                    parts.append(combination.part_factor(part) * self.effect(part, sense))
+                else:
+                    parts.append(combination.part_factor(part) * self.search(part, sense).exact)
+            total = np.where(lines, sum(parts), total)
+        return total
 
     def prefetch_loads(self, loads: list[Load], sense: int) -> None:
         """Candidates of every group of the travelling ``loads`` searched by patterns, in one pass per kind."""
@@ -459,10 +502,15 @@ class _Study:
         return tuple(out)
 
 
-@functools.lru_cache(maxsize=256)
 def _layouts(load: Travelling) -> tuple[tuple[Direction, _search.Chain], ...]:
-    """The load's chain in each travel direction (the lead axle on the right when travelling right)."""
-    natural = load.chain()
-    if isinstance(load, KnifeEdge):
-        return (("left to right", natural),)
-    return (("left to right", natural.mirrored()), ("right to left", natural))
+    """The load's chain in each travel direction (the lead axle on the right when travelling right), kept
+    with the load."""
+    found = load.__dict__.get("_layouts")
+    if found is None:
+        natural = load.chain()
+        if isinstance(load, KnifeEdge):
+            found = (("left to right", natural),)
+        else:
+            found = (("left to right", natural.mirrored()), ("right to left", natural))
+        load.__dict__["_layouts"] = found
+    return found
