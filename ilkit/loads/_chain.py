@@ -126,7 +126,7 @@ def _profile(group: Group, lines: Lines, sense: int, reach: float) -> tuple[Piec
     ev, _, _ = _search.events(table, lines)
     knot, anchor = ev.knot, ev.anchor
     y = knot - anchor
-    degree = max(_search._degree(table, lines) + 1, 0)
+    degree = max(_search._degree((group,), lines) + 1, 0)
     nodes, inverse = _search._chebyshev(degree + 1)
     width = np.diff(y)
     half = 0.5 * width

@@ -102,6 +102,11 @@ class LineSet:
     def size(self) -> int:
         return int(self.knots.shape[0])
 
+    @functools.cached_property
+    def valid(self) -> tuple[np.ndarray, np.ndarray]:
+        """Line and index of every knot, line by line."""
+        return np.nonzero(np.arange(self.knots.shape[1])[None, :] < self.counts[:, None])
+
     def subset(self, rows: np.ndarray) -> LineSet:
         """The lines ``rows`` (in that order)."""
         if rows.size == self.size and (rows == np.arange(self.size)).all():

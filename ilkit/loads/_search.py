@@ -214,14 +214,8 @@ class Candidates:
     first: np.ndarray
     last: np.ndarray
     starts: np.ndarray
-    table: _Table = field(repr=False, compare=False)
+    group: Group = field(repr=False, compare=False)
     lines: Lines = field(repr=False, compare=False)
-
-    def exact(self, index: np.ndarray) -> np.ndarray:
-        """The effect of the candidates ``index`` evaluated afresh: every load at its position, on its face."""
-        zero = np.zeros(index.size, dtype=int)
-        rows = Rows(zero, self.line[index], self.knot[index], self.anchor[index], self.shift[index], self.side[index])
-        return effect(self.table, self.lines, rows)
 
     def __len__(self) -> int:
         return int(self.value.size)
@@ -253,6 +247,7 @@ class _Table:
     counts: np.ndarray
 
     @classmethod
+    @functools.lru_cache(maxsize=1024)
     def of(cls, groups: tuple[Group, ...]) -> _Table:
         width = max(max((len(g.offsets) for g in groups), default=0), 1)
         offsets = np.full((len(groups), width), np.inf)
@@ -379,10 +374,10 @@ def _segment_rate(table: _Table, lines: Lines, rows: Rows, shift: np.ndarray) ->
     return total
 
 
-def _degree(table: _Table, lines: Lines) -> int:
-    """Degree of the derivative of the effect between events."""
-    degree = lines.axle.degree - 1 if table.counts.any() else -1
-    for group in table.groups:
+def _degree(groups: tuple[Group, ...], lines: Lines) -> int:
+    """Degree of the derivative of the effect of ``groups`` between events."""
+    degree = lines.axle.degree - 1 if any(g.offsets for g in groups) else -1
+    for group in groups:
         for seg in group.segments:
             degree = max(degree, lines.segment(seg).degree)
     return degree
@@ -411,18 +406,18 @@ def events(table: _Table, lines: Lines) -> tuple[Rows, np.ndarray, np.ndarray]:
     parts, changes, jumps = [], [], []
     ls = lines.axle
     width = ls.degree + 1
+    gk, ik = np.nonzero(np.arange(table.offsets.shape[1])[None, :] < table.counts[:, None])  # every point load
+    if gk.size:
+        r, j = ls.valid
+        gg, rr, jj = np.repeat(gk, r.size), np.tile(r, gk.size), np.tile(j, gk.size)
+        aa, ww = np.repeat(table.offsets[gk, ik], r.size), np.repeat(table.loads[gk, ik], r.size)
+        parts.append((gg, rr, ls.knots[rr, jj], aa))
+        changes.append(_crossing(ls, rr, jj, aa, ww))
+        jumps.append(ls.jumps[rr, jj] & (ww != 0))
     for k, group in enumerate(table.groups):
-        if group.offsets:
-            r, j = np.nonzero(np.arange(ls.knots.shape[1])[None, :] < ls.counts[:, None])
-            a, w = group.arrays
-            rr, jj = np.repeat(r, a.size), np.repeat(j, a.size)
-            aa, ww = np.tile(a, r.size), np.tile(w, r.size)
-            parts.append((np.full(rr.size, k), rr, ls.knots[rr, jj], aa))
-            changes.append(_crossing(ls, rr, jj, aa, ww))
-            jumps.append(ls.jumps[rr, jj] & (ww != 0))
         for seg in group.segments:
             h = lines.segment(seg)
-            r, j = np.nonzero(np.arange(h.knots.shape[1])[None, :] < h.counts[:, None])
+            r, j = h.valid
             for end in (seg.start, seg.end):
                 if math.isfinite(end):
                     parts.append((np.full(r.size, k), r, h.knots[r, j], np.full(r.size, end)))
@@ -430,7 +425,7 @@ def events(table: _Table, lines: Lines) -> tuple[Rows, np.ndarray, np.ndarray]:
                     jumps.append(np.zeros(r.size, dtype=bool))
     g, r, knot, anchor = (np.concatenate(c) for c in zip(*parts))
     y = knot - anchor
-    order = np.lexsort((y, r, g))  # point loads first among equal positions (stable)
+    order = np.lexsort((y, g * lines.size + r))  # point loads first among equal positions (stable)
     g, r, knot, anchor, y = g[order], r[order], knot[order], anchor[order], y[order]
     block = np.ones(y.size, dtype=bool)
     block[1:] = (g[1:] != g[:-1]) | (r[1:] != r[:-1])
@@ -468,7 +463,7 @@ def candidates_of_groups(groups: tuple[Group, ...], lines: Lines) -> list[Candid
     evaluates chosen candidates afresh, every load on its face.
     """
     table = _Table.of(groups)
-    degree = _degree(table, lines)
+    degree = _degree(groups, lines)
     ev, after, faces = events(table, lines)
     y = ev.knot - ev.anchor
     seg = _segment_effect(table, lines, ev)
@@ -499,7 +494,7 @@ def candidates_of_groups(groups: tuple[Group, ...], lines: Lines) -> list[Candid
         out.append(
             Candidates(
                 part.r, part.knot, part.anchor, part.shift, part.side, value[sel], first, last, starts,
-                _Table.of((group,)), lines,
+                group, lines,
             )
         )
     return out
@@ -730,7 +725,7 @@ def exact_sum(chosen: list[tuple[Candidates, np.ndarray, np.ndarray]], size: int
     out = np.zeros(size)
     if not chosen:
         return out
-    table = _Table.of(tuple(c.table.groups[0] for c, _, _ in chosen))
+    table = _Table.of(tuple(c.group for c, _, _ in chosen))
     g = np.concatenate([np.full(i.size, k) for k, (_, i, _) in enumerate(chosen)])
     names = ("line", "knot", "anchor", "shift", "side")
     rows = Rows(g, *(np.concatenate([getattr(c, f)[i] for c, i, _ in chosen]) for f in names))
@@ -963,11 +958,10 @@ def cost(chain: Chain, lines: Lines) -> Cost:
     sizes = []
     length = float(lines.plain.length.max())
     for g in chain.groups:
-        table = _Table.of((g,))
         k = int(lines.axle.counts.max()) if g.offsets else 0
         k_seg = sum(2 * int(lines.segment(s).counts.max()) for s in g.segments)
         w = on_beam_at_once(g, length)
-        nodes = max(_degree(table, lines) + 2, 2)
+        nodes = max(_degree((g,), lines) + 2, 2)
         events = k * len(g.offsets) + k_seg
         work += events * max(w, 1) * (2 + nodes)
         knots, widest = max(knots, k), max(widest, w)

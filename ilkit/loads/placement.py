@@ -234,10 +234,10 @@ class _Study:
             total = self._exact_totals(case, sense)
         out = []
         for i, line in enumerate(self.lines):
-            what = (
-                f"the {'largest' if sense > 0 else 'smallest'} effect of {self.model.name} on {line.quantity.label}"
-            )
-            finite(float(total[i]), what=what, why=OVERFLOW, field="load", error=LoadInputError)
+            if not np.isfinite(total[i]):
+                largest = "largest" if sense > 0 else "smallest"
+                what = f"the {largest} effect of {self.model.name} on {line.quantity.label}"
+                finite(float(total[i]), what=what, why=OVERFLOW, field="load", error=LoadInputError)
             governing = self.model.cases[int(case[i])]
             describe = functools.partial(self.describe_case, i, sense, governing)
             placements = describe if lazy else describe()
