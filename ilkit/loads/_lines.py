@@ -65,7 +65,7 @@ class LineSet:
         left = np.zeros((n, k))
         right = np.zeros((n, k))
         if k > 1:
-            width = np.where(np.isfinite(knots[:, 1:]), knots[:, 1:] - knots[:, :-1], 0.0)
+            width = _widths(knots)
             ends = _horner(coef, width)  # piece j at its right end
             left[:, 1:] = ends
             right[:, :-1] = coef[:, :, 0]
@@ -108,7 +108,7 @@ class LineSet:
         return np.nonzero(np.arange(self.knots.shape[1])[None, :] < self.counts[:, None])
 
     def subset(self, rows: np.ndarray) -> LineSet:
-        """The lines ``rows`` (in that order)."""
+        """The lines ``rows`` (in that order; a line may come more than once)."""
         if rows.size == self.size and (rows == np.arange(self.size)).all():
             return self
         n = int(self.counts[rows].max())
@@ -116,6 +116,26 @@ class LineSet:
         for sense, part in self.__dict__.get("_signed_parts", {}).items():  # parts already found
             out.__dict__.setdefault("_signed_parts", {})[sense] = part.subset(rows)
         return out
+
+    @classmethod
+    def rows_of(cls, sets: Sequence[LineSet], which: np.ndarray, rows: np.ndarray) -> LineSet:
+        """Row ``i`` is line ``rows[i]`` of ``sets[which[i]]``."""
+        k = max(int(s.knots.shape[1]) for s in sets)
+        d = max(int(s.coef.shape[2]) for s in sets)
+        knots = np.full((rows.size, k), np.inf)
+        coef = np.zeros((rows.size, max(k - 1, 1), d))
+        counts = np.zeros(rows.size, dtype=int)
+        for n, s in enumerate(sets):
+            sel = np.nonzero(which == n)[0]
+            knots[sel, : s.knots.shape[1]] = s.knots[rows[sel]]
+            coef[sel, : s.coef.shape[1], : s.coef.shape[2]] = s.coef[rows[sel]]
+            counts[sel] = s.counts[rows[sel]]
+        return cls(knots, counts, coef)
+
+    @functools.cached_property
+    def area(self) -> np.ndarray:
+        """Net area of each line (the integral over the beam)."""
+        return self._cumulative_at_knots[np.arange(self.size), self.counts - 1]
 
     def row(self, i: int) -> LineSet:
         """Line ``i`` alone (cached)."""
@@ -196,7 +216,7 @@ class LineSet:
         k = self.knots.shape[1]
         out = np.zeros((self.size, k))
         if k > 1:
-            width = np.where(np.isfinite(self.knots[:, 1:]), self.knots[:, 1:] - self.knots[:, :-1], 0.0)
+            width = _widths(self.knots)
             out[:, 1:] = np.cumsum(_antiderivative(self.coef, width), axis=1)
         return out
 
@@ -208,14 +228,6 @@ class LineSet:
         j = np.clip(self._count(rows, xs, strict=False) - 1, 0, self.counts[r] - 2)
         t = xs - self.knots[r, j]
         return _antiderivative(self.coef[r, j], t) + self._cumulative_at_knots[r, j]
-
-    @functools.cached_property
-    def areas(self) -> tuple[np.ndarray, np.ndarray]:
-        """Areas under the positive and the negative parts of each line."""
-        rows = np.arange(self.size)
-        pos = self.signed(1)._cumulative_at_knots[rows, self.signed(1).counts - 1]
-        neg = self.signed(-1)._cumulative_at_knots[rows, self.signed(-1).counts - 1]
-        return pos, neg
 
     # ------------------------------------------------------------------ faces
     def snap(self, rows: np.ndarray, x: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
@@ -333,6 +345,12 @@ class LineSet:
             else:
                 out.append([a, b])
         return [(a, b) for a, b in out]
+
+
+def _widths(knots: np.ndarray) -> np.ndarray:
+    """Widths of the pieces of padded knots (0 where padded)."""
+    valid = np.isfinite(knots[:, 1:])
+    return np.subtract(knots[:, 1:], knots[:, :-1], out=np.zeros(valid.shape), where=valid)
 
 
 def _coefficients(line: InfluenceLine) -> np.ndarray:

@@ -734,9 +734,11 @@ def exact_sum(chosen: list[tuple[Candidates, np.ndarray, np.ndarray]], size: int
     return out
 
 
-def best_in_chain(chain: Chain, find: Callable[[Group], Candidates], sense: int, tol: np.ndarray) -> ChainSearch:
-    """Largest (``sense=1``) or smallest (``sense=-1``) effect of a chain whose parts can all be on the beam
-    together (see :func:`split`), on every line at once.
+def best_in_chain(
+    chain: Chain, find: Callable[[Group], Candidates], sense: np.ndarray, tol: np.ndarray
+) -> ChainSearch:
+    """Largest (``sense[i]=1``) or smallest (``-1``) effect of a chain whose parts can all be on the beam
+    together (see :func:`split`), on every line ``i`` at once.
 
     ``find(group)`` returns the :class:`Candidates` of a group on the lines
     (the caller caches them); ``tol`` is each line's tolerance.  Every
@@ -751,18 +753,18 @@ def best_in_chain(chain: Chain, find: Callable[[Group], Candidates], sense: int,
         values.append(value)
         picks.append(pick)
     table = np.vstack(values)  # (patterns, lines), -inf where no placement
-    best = np.argmax(sense * table, axis=0)  # the first pattern among equals
+    best = np.argmax(sense[None, :] * table, axis=0)  # the first pattern among equals
     value = table[best, np.arange(table.shape[1])]
     return ChainSearch(chain, found, tuple(cands), value, best, tuple(picks), tol)
 
 
 def _best_for_pattern(
-    pattern: Pattern, blocks: tuple[Candidates, ...], sense: int, tol: np.ndarray
+    pattern: Pattern, blocks: tuple[Candidates, ...], sense: np.ndarray, tol: np.ndarray
 ) -> tuple[np.ndarray, np.ndarray]:
     """Best value of one pattern on every line (``-sense inf`` where none) and the candidate of each block
     (an index among the line's candidates)."""
     tables = [{f: c.padded(f, fill) for f, fill in (("first", 0.0), ("last", 0.0), ("side", 0))} for c in blocks]
-    scores = [np.where(c._layout[1], sense * c.padded("value", 0.0), -np.inf) for c in blocks]
+    scores = [np.where(c._layout[1], sense[:, None] * c.padded("value", 0.0), -np.inf) for c in blocks]
     n = scores[0].shape[0]
     score = scores[0]
     back: list[np.ndarray] = []

@@ -69,13 +69,14 @@ def place(
     not at an end of the beam.
     """
     choice(extreme, ("max", "min"), what="extreme", field="extreme", error=LoadInputError)
-    return _Study((_line(line),), load, beam).extremes(1 if extreme == "max" else -1, lazy=False)[0]
+    sense = 1 if extreme == "max" else -1
+    return _Study.of((_line(line),), (sense,), load, beam).extremes(lazy=False)[0]
 
 
 def extremes(line: InfluenceLine, load: Load | Combination | LoadModel, *, beam: Beam | None = None) -> Extremes:
     """Both the largest and the smallest effect of ``load`` on ``line`` (see :func:`place`)."""
-    study = _Study((_line(line),), load, beam)
-    return Extremes(study.extremes(1, lazy=False)[0], study.extremes(-1, lazy=False)[0])
+    found = _Study.of((_line(line),), (1, -1), load, beam).extremes(lazy=False)
+    return Extremes(found[0], found[1])
 
 
 def extremes_of(
@@ -86,15 +87,16 @@ def extremes_of(
     The lines must share their units.  Each extreme describes its placements
     the first time they are asked for.
     """
-    study = _Study(tuple(_line(line) for line in lines), load, beam)
-    return [Extremes(a, b) for a, b in zip(study.extremes(1, lazy=True), study.extremes(-1, lazy=True))]
+    found = _Study.of(tuple(_line(line) for line in lines), (1, -1), load, beam).extremes(lazy=True)
+    n = len(lines)
+    return [Extremes(found[i], found[n + i]) for i in range(n)]
 
 
 def maxima_of(
     lines: Sequence[InfluenceLine], load: Load | Combination | LoadModel, *, beam: Beam | None = None
 ) -> list[Extreme]:
     """The largest effect of ``load`` on each of many lines of one beam (see :func:`extremes_of`)."""
-    return _Study(tuple(_line(line) for line in lines), load, beam).extremes(1, lazy=True)
+    return _Study.of(tuple(_line(line) for line in lines), (1,), load, beam).extremes(lazy=True)
 
 
 def _line(line: object) -> InfluenceLine:
@@ -107,17 +109,19 @@ def _line(line: object) -> InfluenceLine:
 
 # ---------------------------------------------------------------------- study
 class _Found:
-    """The worst placement of one travelling load on every line: ``value[i]``, and the search it came from."""
+    """The worst placement of one travelling load on every row: ``value[i]``, and the search it came from."""
 
-    def __init__(self, sense: int, tol: np.ndarray) -> None:
+    def __init__(self, sense: np.ndarray, tol: np.ndarray) -> None:
         self.sense = sense
         self.tol = tol
         self.value = np.full(tol.size, np.nan)
         self.source = np.zeros(tol.size, dtype=int)
         self.sources: list[tuple[Direction, _search.Split, int, object]] = []
+        self.inner: _Found | None = None
+        self.local = np.arange(tol.size)
 
     def offer(self, value: np.ndarray, direction: Direction, cut: _search.Split, index: int, result: object) -> None:
-        """Keep ``value`` on the lines where it is better than the best so far (ties keep the first)."""
+        """Keep ``value`` on the rows where it is better than the best so far (ties keep the first)."""
         s = self.sense
         better = np.isnan(self.value) | (s * value > s * self.value + _TIE * np.abs(self.value))
         self.value = np.where(better, value, self.value)
@@ -125,53 +129,80 @@ class _Found:
         self.sources.append((direction, cut, index, result))
 
     @classmethod
-    def on(cls, found: _Found, rows: np.ndarray, size: int) -> _Found:
-        """``found`` for the lines ``rows`` of ``size`` lines (NaN on the others)."""
-        out = cls(found.sense, np.zeros(size))
+    def on(cls, found: _Found, rows: np.ndarray, sense: np.ndarray) -> _Found:
+        """``found`` (searched on the rows ``rows`` alone) for all the rows (NaN on the others)."""
+        out = cls(sense, np.zeros(sense.size))
         out.value[rows] = found.value
-        out.local = np.full(size, -1)  # type: ignore[attr-defined]
-        out.local[rows] = np.arange(rows.size)  # type: ignore[attr-defined]
-        out.inner = found  # type: ignore[attr-defined]
+        out.local = np.full(sense.size, -1)
+        out.local[rows] = np.arange(rows.size)
+        out.inner = found
         return out
 
     @functools.cached_property
     def exact(self) -> np.ndarray:
-        """The effect of the placement found on each line, evaluated afresh (the search compares values to
+        """The effect of the placement found on each row, evaluated afresh (the search compares values to
         rounding): one evaluation for the placements found by patterns; the programme's are exact."""
-        inner = getattr(self, "inner", None)
-        if inner is not None:
+        if self.inner is not None:
             out = np.full(self.value.size, np.nan)
-            out[self.local >= 0] = inner.exact  # type: ignore[attr-defined]
+            out[self.local >= 0] = self.inner.exact
             return out
         out = self.value.copy()
         chosen = []
         for k, (_, _, _, result) in enumerate(self.sources):
             if isinstance(result, _search.ChainSearch):
-                lines = np.nonzero(self.source == k)[0]
-                chosen.extend(result.chosen(lines))
-                out[lines] = 0.0
+                rows = np.nonzero(self.source == k)[0]
+                chosen.extend(result.chosen(rows))
+                out[rows] = 0.0
         return out + _search.exact_sum(chosen, self.value.size)
 
     def optimum(self, i: int) -> tuple[Direction, _search.Split, _search.ChainOptimum]:
-        """Direction, split chain and the whole chain placed, on line ``i``."""
-        inner = getattr(self, "inner", None)
-        if inner is not None:
-            return inner.optimum(int(self.local[i]))  # type: ignore[attr-defined]
+        """Direction, split chain and the whole chain placed, on row ``i``."""
+        if self.inner is not None:
+            return self.inner.optimum(int(self.local[i]))
         direction, cut, index, result = self.sources[int(self.source[i])]
         part = result.optimum(i) if isinstance(result, _search.ChainSearch) else result[i]  # type: ignore[index]
         return direction, cut, _search.assemble(cut, index, part, float(self.tol[i]))
 
 
 class _Study:
-    """Lines of one beam and one load model, with the searches done so far."""
+    """Lines of one beam and one load model, with the searches done so far.
+
+    A *row* is a line and a sense (``+1`` for its largest effect, ``-1`` for
+    its smallest): the largest and the smallest effect of many lines are
+    searched together, row by row.  ``plain`` holds the rows' lines,
+    ``signed`` their parts of the row's sign.
+    """
 
     def __init__(
         self,
         lines: tuple[InfluenceLine, ...],
+        sense: np.ndarray,
+        model: LoadModel,
+        beam: Beam | None,
+        plain: LineSet,
+        signed: LineSet,
+    ) -> None:
+        self.lines = lines
+        self.sense = sense
+        self.beam = beam
+        self.model = model
+        self.plain = plain
+        self.signed = signed
+        self.tol = plain.tol
+        self._cands: dict[tuple[object, ...], _search.Candidates] = {}
+        self._found: dict[int, _Found] = {}
+        self._effects: dict[int, np.ndarray] = {}
+        self._parts: dict[bytes, _Study] = {}
+
+    @classmethod
+    def of(
+        cls,
+        lines: tuple[InfluenceLine, ...],
+        senses: tuple[int, ...],
         load: Load | Combination | LoadModel,
         beam: Beam | None,
-        line_set: LineSet | None = None,
-    ):
+    ) -> _Study:
+        """The rows of every line with each of ``senses`` (all the lines with the first, then the second)."""
         if beam is not None and not isinstance(beam, Beam):
             raise LoadInputError(
                 f"beam: give the Beam the line belongs to (or leave it out), got {type(beam).__name__} {beam!r}.",
@@ -189,110 +220,104 @@ class _Study:
             )
         if any(line.units != units for line in lines):
             raise LoadInputError("extremes_of: give lines of one beam (one unit system).", field="lines")
-        self.lines = lines
-        self.beam = beam
-        self.model = model.converted(units)
-        self.set = LineSet.of(lines) if line_set is None else line_set
-        self._cands: dict[tuple[object, ...], _search.Candidates] = {}
-        self._found: dict[tuple[Load, int], _Found] = {}
-        self._effects: dict[tuple[Load, int], np.ndarray] = {}
-        self._parts: dict[bytes, _Study] = {}
+        base = LineSet.of(lines)
+        n = len(lines)
+        index = np.tile(np.arange(n), len(senses))
+        sense = np.repeat(np.array(senses), n)
+        plain = base.subset(index)
+        signed = LineSet.rows_of((base.signed(1), base.signed(-1)), (sense < 0).astype(int), index)
+        return cls(tuple(lines[i] for i in index), sense, model.converted(units), beam, plain, signed)
 
     # -------------------------------------------------------------- lines
-    def lines_for(self, drop: bool, sense: int) -> _search.Lines:
-        """The lines point loads see (their signed parts when adverse axles are dropped), the lines
-        themselves and their signed parts."""
-        signed = self.set.signed(sense)
-        return _search.Lines(signed if drop else self.set, self.set, signed)
+    def lines_for(self, drop: bool) -> _search.Lines:
+        """The lines point loads see (the signed parts when adverse axles are dropped), the lines themselves
+        and their signed parts."""
+        return _search.Lines(self.signed if drop else self.plain, self.plain, self.signed)
 
-    def _key(self, group: _search.Group, drop: bool, sense: int) -> tuple[object, ...]:
-        axle_sense = sense if drop and group.offsets else 0
-        return (group, axle_sense, sense if any(s.breakable for s in group.segments) else 0)
+    def _key(self, group: _search.Group, drop: bool) -> tuple[object, ...]:
+        return (group, drop and bool(group.offsets), any(s.breakable for s in group.segments))
 
-    def prefetch(self, groups: list[_search.Group], drop: bool, sense: int) -> None:
-        """Search many groups in one pass over all the lines."""
-        wanted = {g: None for g in groups if self._key(g, drop, sense) not in self._cands}
+    def prefetch(self, groups: list[_search.Group], drop: bool) -> None:
+        """Search many groups in one pass over all the rows."""
+        wanted = {g: None for g in groups if self._key(g, drop) not in self._cands}
         if wanted:
-            found = _search.candidates_of_groups(tuple(wanted), self.lines_for(drop, sense))
+            found = _search.candidates_of_groups(tuple(wanted), self.lines_for(drop))
             for group, cands in zip(wanted, found):
-                self._cands[self._key(group, drop, sense)] = cands
+                self._cands[self._key(group, drop)] = cands
 
-    def finder(self, drop: bool, sense: int):
+    def finder(self, drop: bool):
         def find(group: _search.Group) -> _search.Candidates:
-            key = self._key(group, drop, sense)
+            key = self._key(group, drop)
             if key not in self._cands:
-                self.prefetch([group], drop, sense)
+                self.prefetch([group], drop)
             return self._cands[key]
 
         return find
 
     # ------------------------------------------------------------ extremes
-    def extremes(self, sense: int, *, lazy: bool) -> list[Extreme]:
-        """The extreme of ``sense`` on every line (placements described now, or when first asked for)."""
+    def extremes(self, *, lazy: bool) -> list[Extreme]:
+        """The extreme of every row (placements described now, or when first asked for)."""
         with np.errstate(over="ignore", invalid="ignore"):  # an overflow is reported below, as the effect
-            _, case = self._governing(sense)
-            total = self._exact_totals(case, sense)
+            case = self._governing()
+            total = self._exact_totals(case)
         out = []
         for i, line in enumerate(self.lines):
+            sense = int(self.sense[i])
             if not np.isfinite(total[i]):
                 largest = "largest" if sense > 0 else "smallest"
                 what = f"the {largest} effect of {self.model.name} on {line.quantity.label}"
                 finite(float(total[i]), what=what, why=OVERFLOW, field="load", error=LoadInputError)
             governing = self.model.cases[int(case[i])]
-            describe = functools.partial(self.describe_case, i, sense, governing)
+            describe = functools.partial(self.describe_case, i, governing)
             placements = describe if lazy else describe()
             # the exact effect of the placement found (its table adds up to it, to rounding); the same on one
             # line and among many
-            value = float(total[i])
-            out.append(
-                Extreme(line.quantity, "max" if sense > 0 else "min", value, governing.name, placements, line.units)
-            )
+            extreme = "max" if sense > 0 else "min"
+            out.append(Extreme(line.quantity, extreme, float(total[i]), governing.name, placements, line.units))
         return out
 
-    def _governing(self, sense: int) -> tuple[np.ndarray, np.ndarray]:
-        """The total of the governing case on each line, and which case it is.
+    def _governing(self) -> np.ndarray:
+        """Which case governs on each row.
 
-        A load is searched only on the lines where a case holding it applies
+        A load is searched only on the rows where a case holding it applies
         (the two-truck rule, for one, on few of them).
         """
-        n = self.set.size
+        n = self.plain.size
         cases = self.model.cases
-        applies = [self.applies(case, sense) for case in cases]
-        needed: dict[Load, np.ndarray] = {}
+        applies = [self.applies(case) for case in cases]
+        needed: dict[int, np.ndarray] = {}
         for case, where in zip(cases, applies):
             for part in case.parts:
-                needed[part] = needed.get(part, np.zeros(n, dtype=bool)) | where
-        everywhere = [part for part, where in needed.items() if where.all()]
-        self.prefetch_loads(everywhere, sense)
+                needed[id(part)] = needed.get(id(part), np.zeros(n, dtype=bool)) | where
+        self.prefetch_loads([p for c in cases for p in c.parts if needed[id(p)].all()])
         best = np.full(n, np.nan)
         which = np.zeros(n, dtype=int)
+        s = self.sense
         for k, (case, where) in enumerate(zip(cases, applies)):
             if not where.any():
                 continue
-            total = sum(case.part_factor(part) * self.effect(part, sense, needed[part]) for part in case.parts)
-            better = where & (np.isnan(best) | (sense * total > sense * best + _TIE * np.abs(best)))
+            total = sum(case.part_factor(part) * self.effect(part, needed[id(part)]) for part in case.parts)
+            better = where & (np.isnan(best) | (s * total > s * best + _TIE * np.abs(best)))
             best = np.where(better, total, best)
             which = np.where(better, k, which)
-        return best, which
+        return which
 
-    def _exact_totals(self, case: np.ndarray, sense: int) -> np.ndarray:
-        """The total of each line's governing case with each load where the search placed it, evaluated
+    def _exact_totals(self, case: np.ndarray) -> np.ndarray:
+        """The total of each row's governing case with each load where the search placed it, evaluated
         afresh (the choices were made on the search's values, to rounding)."""
-        total = np.full(self.set.size, np.nan)
+        total = np.full(self.plain.size, np.nan)
         for k, combination in enumerate(self.model.cases):
-            lines = case == k
-            if not lines.any():
+            rows = case == k
+            if not rows.any():
                 continue
             parts = []
             for part in combination.parts:
-                if isinstance(part, UniformLoad):
-                    parts.append(combination.part_factor(part) * self.effect(part, sense))
-                else:
-                    parts.append(combination.part_factor(part) * self.search(part, sense).exact)
-            total = np.where(lines, sum(parts), total)
+                effect = self.effect(part) if isinstance(part, UniformLoad) else self.search(part).exact
+                parts.append(combination.part_factor(part) * effect)
+            total = np.where(rows, sum(parts), total)
         return total
 
-    def prefetch_loads(self, loads: list[Load], sense: int) -> None:
+    def prefetch_loads(self, loads: list[Load]) -> None:
         """Candidates of every group of the travelling ``loads`` searched by patterns, in one pass per kind."""
         by_drop: dict[bool, list[_search.Group]] = {}
         for part in loads:
@@ -300,37 +325,38 @@ class _Study:
                 continue
             drop = isinstance(part, AxleTrain) and part.drop_adverse_axles
             for _, chain in _layouts(part):
-                cut = _search.split(chain, float(self.set.length.max()))
+                cut = _search.split(chain, float(self.plain.length.max()))
                 for index in range(len(cut.parts)):
                     sub = cut.part(index)
-                    if sub.variable <= _search.PATTERN_GAPS and _search.cost(sub, self.lines_for(drop, sense)).patterns:
+                    if sub.variable <= _search.PATTERN_GAPS and _search.cost(sub, self.lines_for(drop)).patterns:
                         for pattern in _search.patterns(sub):
                             by_drop.setdefault(drop, []).extend(pattern.blocks)
         for drop, groups in by_drop.items():
-            self.prefetch(groups, drop, sense)
+            self.prefetch(groups, drop)
 
     def on(self, rows: np.ndarray) -> _Study:
-        """The same study on the lines ``rows`` only (cached)."""
+        """The same study on the rows ``rows`` only (cached)."""
         key = rows.tobytes()
         if key not in self._parts:
             lines = tuple(self.lines[i] for i in rows)
-            self._parts[key] = _Study(lines, self.model, self.beam, self.set.subset(rows))
+            self._parts[key] = _Study(
+                lines, self.sense[rows], self.model, self.beam, self.plain.subset(rows), self.signed.subset(rows)
+            )
         return self._parts[key]
 
-    def applies(self, case: Combination, sense: int) -> np.ndarray:
-        """On which lines ``case`` is considered."""
-        n = self.set.size
+    def applies(self, case: Combination) -> np.ndarray:
+        """On which rows ``case`` is considered."""
+        n = self.plain.size
         if case.applies_to == "all":
             return np.ones(n, dtype=bool)
         out = np.zeros(n, dtype=bool)
-        positive, negative = self.set.areas
         for i, line in enumerate(self.lines):
             kind = line.quantity.kind
             if kind == "moment":
                 # negative moment between the points of contraflexure under a uniform load on all spans
-                out[i] = sense < 0 and positive[i] + negative[i] < 0
+                out[i] = self.sense[i] < 0 and self.plain.area[i] < 0
             elif kind == "reaction":
-                out[i] = sense > 0 and self.interior_support(line)
+                out[i] = self.sense[i] > 0 and self.interior_support(line)
         return out
 
     def interior_support(self, line: InfluenceLine) -> bool:
@@ -353,42 +379,43 @@ class _Study:
         )
 
     # ------------------------------------------------------------ one load
-    def effect(self, part: Load, sense: int, where: np.ndarray | None = None) -> np.ndarray:
-        """Unfactored extreme effect of one load on the lines ``where`` (all if not given; NaN elsewhere)."""
-        key = (part, sense)
+    def effect(self, part: Load, where: np.ndarray | None = None) -> np.ndarray:
+        """Unfactored extreme effect of one load on the rows ``where`` (all if not given; NaN elsewhere)."""
+        key = id(part)
         if key not in self._effects:
-            if isinstance(part, UniformLoad):
-                positive, negative = self.set.areas
-                self._effects[key] = part.intensity * (positive if sense > 0 else negative)
+            if isinstance(part, UniformLoad):  # on the parts of the row's sign: the signed line's area
+                self._effects[key] = part.intensity * self.signed.area
             else:
-                self._effects[key] = self.search(part, sense, where).value
+                self._effects[key] = self.search(part, where).value
         return self._effects[key]
 
-    def search(self, load: Travelling, sense: int, where: np.ndarray | None = None) -> _Found:
-        """The worst placement of a travelling load on the lines ``where`` (all if not given), over both
+    def search(self, load: Travelling, where: np.ndarray | None = None) -> _Found:
+        """The worst placement of a travelling load on the rows ``where`` (all if not given), over both
         directions and every part of it that can be on the beam alone."""
-        key = (load, sense)
+        key = id(load)
         if key not in self._found and where is not None and not where.all():
             rows = np.nonzero(where)[0]
             sub = self.on(rows)
-            sub.prefetch_loads([load], sense)
-            self._found[key] = _Found.on(sub.search(load, sense), rows, self.set.size)
+            sub.prefetch_loads([load])
+            self._found[key] = _Found.on(sub.search(load), rows, self.sense)
         if key not in self._found:
             drop = isinstance(load, AxleTrain) and load.drop_adverse_axles
-            lines = self.lines_for(drop, sense)
-            found = _Found(sense, self.set.tol)
-            find = self.finder(drop, sense)
+            lines = self.lines_for(drop)
+            found = _Found(self.sense, self.tol)
+            find = self.finder(drop)
             for direction, chain in _layouts(load):
-                cut = _search.split(chain, float(self.set.length.max()))
+                cut = _search.split(chain, float(self.plain.length.max()))
                 for index in range(len(cut.parts)):
                     part = cut.part(index)
                     plan = _search.cost(part, lines)
                     self.check(load, plan)
                     if plan.patterns:
-                        result = _search.best_in_chain(part, find, sense, self.set.tol)
+                        result = _search.best_in_chain(part, find, self.sense, self.tol)
                         found.offer(result.value, direction, cut, index, result)
                     else:
-                        optima = [best_by_programme(part, lines.row(i), sense) for i in range(self.set.size)]
+                        optima = [
+                            best_by_programme(part, lines.row(i), int(self.sense[i])) for i in range(self.plain.size)
+                        ]
                         found.offer(np.array([o.value for o in optima]), direction, cut, index, optima)
             self._found[key] = found
         return self._found[key]
@@ -413,20 +440,20 @@ class _Study:
         )
 
     # ------------------------------------------------------------ description
-    def describe_case(self, i: int, sense: int, case: Combination) -> tuple[LoadPlacement, ...]:
-        """Where each load of ``case`` stands on line ``i``."""
+    def describe_case(self, i: int, case: Combination) -> tuple[LoadPlacement, ...]:
+        """Where each load of ``case`` stands on row ``i``."""
         with np.errstate(over="ignore", invalid="ignore"):
-            return tuple(self.placement(i, part, sense, case.part_factor(part)) for part in case.parts)
+            return tuple(self.placement(i, part, case.part_factor(part)) for part in case.parts)
 
-    def placement(self, i: int, part: Load, sense: int, factor: float) -> LoadPlacement:
+    def placement(self, i: int, part: Load, factor: float) -> LoadPlacement:
         line = self.lines[i]
         if isinstance(part, UniformLoad):
-            patches = self.patches_on_sign(i, part.intensity, [(-np.inf, np.inf)], sense)
+            patches = self.patches_on_sign(i, part.intensity, [(-np.inf, np.inf)])
             effect = float(sum(p.effect for p in patches))
             return LoadPlacement(part.name, effect, factor, None, (), (), patches, line=line)
-        direction, cut, opt = self.search(part, sense).optimum(i)
+        direction, cut, opt = self.search(part).optimum(i)
         drop = isinstance(part, AxleTrain) and part.drop_adverse_axles
-        return self.describe(i, part, direction, cut, opt, sense, drop, factor)
+        return self.describe(i, part, direction, cut, opt, drop, factor)
 
     def describe(
         self,
@@ -435,20 +462,20 @@ class _Study:
         direction: Direction,
         cut: _search.Split,
         opt: _search.ChainOptimum,
-        sense: int,
         drop: bool,
         factor: float,
     ) -> LoadPlacement:
         """The placement as a table: every axle at the position the search evaluated, with the ordinate of
         the face it stands on, every loaded stretch, and their sum."""
         line = self.lines[i]
+        sense = int(self.sense[i])
         standings = opt.standings
         xs = np.concatenate([s.axles() for s in standings])
         sides = np.concatenate([np.full(len(s.block.offsets), s.side) for s in standings])
         rows = np.full(xs.size, i)
         if drop:  # the positions the search evaluated on the signed part, moved onto its knots
-            xs, _ = self.set.signed(sense).snap(rows, xs)
-        values, xs, faces = self.set.ordinates(rows, xs, sides)
+            xs, _ = self.signed.snap(rows, xs)
+        values, xs, faces = self.plain.ordinates(rows, xs, sides)
         lead_last = direction == "left to right"  # the mirrored chain: the lead axle is the rightmost
         order = np.arange(xs.size)[::-1] if lead_last else np.arange(xs.size)
         loads = load.loads if isinstance(load, AxleTrain) else ((load.load,) if isinstance(load, KnifeEdge) else ())
@@ -466,7 +493,7 @@ class _Study:
         )
         for start, end, seg in segments:
             if seg.breakable:
-                patches.extend(self.patches_on_sign(i, seg.intensity, [(start, end)], sense))
+                patches.extend(self.patches_on_sign(i, seg.intensity, [(start, end)]))
             else:
                 a, b = max(start, 0.0), min(end, line.length)
                 if b > a:
@@ -488,13 +515,11 @@ class _Study:
         shown = None if isinstance(load, KnifeEdge) else direction
         return LoadPlacement(load.name, effect, factor, shown, spacings, tuple(axles), tuple(patches), front, line)
 
-    def patches_on_sign(
-        self, i: int, intensity: float, spans: list[tuple[float, float]], sense: int
-    ) -> tuple[Patch, ...]:
-        """Patches of a breakable load limited to ``spans``: the parts of the line of the wanted sign."""
+    def patches_on_sign(self, i: int, intensity: float, spans: list[tuple[float, float]]) -> tuple[Patch, ...]:
+        """Patches of a breakable load limited to ``spans``: the parts of the line of the row's sign."""
         line = self.lines[i]
         out = []
-        for a, b in self.set.signed(sense).intervals(i):
+        for a, b in self.signed.intervals(i):
             for lo, hi in spans:
                 s, e = max(a, lo), min(b, hi)
                 if e > s:
