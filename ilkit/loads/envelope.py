@@ -245,7 +245,7 @@ def _absolute_maximum(
 
 def _refine(beam: Beam, model: LoadModel, brackets: list[dict[float, Extreme]], tol: float) -> Extreme | None:
     """The largest moment in the brackets, by successive parabolas: through the best section known and its
-    neighbours, five sections around the parabola's vertex (at two distances) are searched (those of
+    neighbours, seven sections around the parabola's vertex (at three distances) are searched (those of
     every bracket together), until the best section's neighbours are within ``tol`` of it.  The bracket always holds
     the best section between two lower ones, so a kink slows the search but cannot mislead it."""
     known = [dict(b) for b in brackets]  # section -> its largest moment
@@ -272,8 +272,8 @@ def _refine(beam: Beam, model: LoadModel, brackets: list[dict[float, Extreme]], 
             num = (x1 - x0) ** 2 * (f1 - f2) - (x1 - x2) ** 2 * (f1 - f0)
             vertex = x1 - 0.5 * num / den if den != 0 else x1
             step = max((right - left) / _NARROW, tol / 2)
-            near = max(step / _NARROW, tol / 2)  # a second, closer pair: a smooth maximum is found in two rounds
-            offsets = (-step, -near, 0.0, near, step)
+            closer = [max(step / 16**n, tol / 2) for n in (0, 1, 2)]  # three distances: fewer rounds
+            offsets = (0.0, *closer, *(-d for d in closer))
             probes = {min(max(vertex + d, left + tol / 4), right - tol / 4) for d in offsets}
             todo.extend((k, x) for x in sorted(probes) if x not in samples)
         if not todo:
