@@ -10,7 +10,26 @@ from __future__ import annotations
 
 import numpy as np
 
-__all__ = ["normalised", "unit_roots", "roots_in_pieces"]
+__all__ = ["normalised", "unit_roots", "roots_in_pieces", "horner", "taylor_shift"]
+
+
+def horner(c: np.ndarray, t: np.ndarray) -> np.ndarray:
+    """``sum c[..., p] t^p`` by Horner's rule, highest power first (the arithmetic of ``InfluenceLine``),
+    ``c`` and ``t`` broadcast against each other (one polynomial per row of ``c``)."""
+    y = c[..., -1] + 0.0 * t
+    for p in range(c.shape[-1] - 2, -1, -1):
+        y = y * t + c[..., p]
+    return y
+
+
+def taylor_shift(c: np.ndarray, shift: np.ndarray) -> np.ndarray:
+    """Rows of coefficients of ``p(shift + u)`` in ``u`` for rows ``p`` (repeated synthetic division)."""
+    out = np.array(c, dtype=float)
+    n = out.shape[1]
+    for i in range(n - 1):
+        for k in range(n - 2, i - 1, -1):
+            out[:, k] += shift * out[:, k + 1]
+    return out
 
 
 def _polyval(coefficients: np.ndarray, u: np.ndarray) -> np.ndarray:

@@ -29,7 +29,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from ilkit._poly import roots_in_pieces
+from ilkit._poly import horner, roots_in_pieces, taylor_shift
 from ilkit.loads import _search
 from ilkit.loads._search import EXACT, LEFT, RIGHT, Chain, ChainOptimum, Group, Lines, Standing
 
@@ -77,24 +77,11 @@ class Pieces:
 
     def at(self, i: np.ndarray, y: np.ndarray) -> np.ndarray:
         """Piece ``i`` at ``y`` (arrays of the same shape)."""
-        return _horner(self.c[i], y - self.origin[i])
+        return horner(self.c[i], y - self.origin[i])
 
 
-def _horner(c: np.ndarray, u: np.ndarray) -> np.ndarray:
-    out = np.zeros(u.shape)
-    for k in range(c.shape[-1] - 1, -1, -1):
-        out = out * u + c[..., k]
-    return out
 
 
-def _shifted(c: np.ndarray, shift: np.ndarray) -> np.ndarray:
-    """Rows of coefficients of ``p(shift + v)`` in ``v`` for rows ``p`` (repeated synthetic division)."""
-    out = c.copy()
-    n = out.shape[1]
-    for i in range(n - 1):
-        for k in range(n - 2, i - 1, -1):
-            out[:, k] += shift * out[:, k + 1]
-    return out
 
 
 def _widen(c: np.ndarray, width: int) -> np.ndarray:
@@ -136,13 +123,13 @@ def _profile(group: Group, lines: Lines, sense: int, reach: float) -> tuple[Piec
     values = _effect(group, lines, k2, a2, shift.ravel(), np.zeros(k2.size, dtype=int))
     inner = (values.reshape(shift.shape) @ inverse.T) * sense  # in u' = (shift - half) / half
     # to the local coordinate u = shift: p(u') with u' = u / half - 1
-    c = _shifted(inner, -np.ones(inner.shape[0]))
+    c = taylor_shift(inner, -np.ones(inner.shape[0]))
     c = c / half[:, None] ** np.arange(c.shape[1])[None, :]
     ends = _effect(group, lines, knot[[0, -1]], anchor[[0, -1]], np.array([-reach, reach]), np.zeros(2, dtype=int))
-    table = np.zeros((y.size + 1, c.shape[1]))
-    table[1:-1] = c
-    table[0, 0], table[-1, 0] = sense * ends[0], sense * ends[1]
-    return Pieces(y, table), knot, anchor
+    pieces = np.zeros((y.size + 1, c.shape[1]))
+    pieces[1:-1] = c
+    pieces[0, 0], pieces[-1, 0] = sense * ends[0], sense * ends[1]
+    return Pieces(y, pieces), knot, anchor
 
 
 def _effect(group: Group, lines: Lines, knot, anchor, shift, side) -> np.ndarray:
@@ -249,10 +236,10 @@ def _dilate(v: Pieces, low: float, high: float, tol: float, reach: float) -> tup
     starts = np.concatenate(([-np.inf], e))
     # the candidates on each stretch, as polynomials in u = y - start (constants on the infinite ends)
     base = np.where(np.isfinite(starts), starts, mids)
-    follow_lo = _shifted(v.c[lo_piece], base - low - origin[lo_piece])
+    follow_lo = taylor_shift(v.c[lo_piece], base - low - origin[lo_piece])
     options = [(FOLLOW_LO, lo_piece, follow_lo)]
     if finite:
-        follow_hi = _shifted(v.c[hi_piece], base - high - origin[hi_piece])
+        follow_hi = taylor_shift(v.c[hi_piece], base - high - origin[hi_piece])
         options.append((FOLLOW_HI, hi_piece, follow_hi))
     inside = np.zeros((mids.size, width))
     inside[:, 0] = np.where(np.isfinite(const), const, 0.0)
@@ -286,7 +273,7 @@ def _dilate(v: Pieces, low: float, high: float, tol: float, reach: float) -> tup
     end = np.where(last, stretch_end, end)
     probe = np.where(np.isfinite(end), 0.5 * (local + end), local + 1.0)
     probe = np.where(np.isfinite(starts[rows]), probe, 0.0)
-    values = [_horner(p[rows], probe) for p in polys]
+    values = [horner(p[rows], probe) for p in polys]
     values[-1] = np.where(has_inside[rows], values[-1], -np.inf)
     choice = np.argmax(np.vstack(values), axis=0)
     kinds = np.array([k for k, _, _ in options] + [INSIDE])
@@ -295,7 +282,7 @@ def _dilate(v: Pieces, low: float, high: float, tol: float, reach: float) -> tup
     index = indices[choice, np.arange(rows.size)]
     coeffs = np.stack([p[rows] for p in polys])[choice, np.arange(rows.size)]
     # the piece in the local coordinate of its own start
-    coeffs = np.where(np.isfinite(starts[rows])[:, None], _shifted(coeffs, local), coeffs)
+    coeffs = np.where(np.isfinite(starts[rows])[:, None], taylor_shift(coeffs, local), coeffs)
     x = np.where(np.isfinite(starts[rows]), starts[rows] + local, -np.inf)[1:]
     # neighbours with the same source are one piece
     same = (source[1:] == source[:-1]) & (index[1:] == index[:-1])
@@ -323,8 +310,8 @@ def _add(f: Pieces, g: Pieces, tol: float) -> Pieces:
     i_g = np.searchsorted(g.x, mid)
     origin = np.concatenate((x[:1], x)) if x.size else np.zeros(1)
     width = max(f.c.shape[1], g.c.shape[1])
-    cf = _shifted(_widen(f.c[i_f], width), origin - f.origin[i_f])
-    cg = _shifted(_widen(g.c[i_g], width), origin - g.origin[i_g])
+    cf = taylor_shift(_widen(f.c[i_f], width), origin - f.origin[i_f])
+    cg = taylor_shift(_widen(g.c[i_g], width), origin - g.origin[i_g])
     c = cf + cg
     c[0, 1:] = 0.0
     c[-1, 1:] = 0.0
@@ -406,4 +393,3 @@ def best_by_programme(chain: Chain, lines: Lines, sense: int) -> ChainOptimum:
     for g, s in zip(groups, standings):
         total += float(_effect(g, lines, [s.knot], [s.anchor], [s.shift], [s.side])[0])
     return ChainOptimum(total, standings, _search.chain_gaps(chain, standings, tol))
-

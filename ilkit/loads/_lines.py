@@ -24,7 +24,7 @@ from typing import TYPE_CHECKING
 
 import numpy as np
 
-from ilkit._poly import roots_in_pieces
+from ilkit._poly import horner, roots_in_pieces, taylor_shift
 
 if TYPE_CHECKING:  # pragma: no cover
     from ilkit.influence import InfluenceLine
@@ -66,7 +66,7 @@ class LineSet:
         right = np.zeros((n, k))
         if k > 1:
             width = _widths(knots)
-            ends = _horner(coef, width)  # piece j at its right end
+            ends = horner(coef, width)  # piece j at its right end
             left[:, 1:] = ends
             right[:, :-1] = coef[:, :, 0]
         valid = np.arange(k)[None, :] < counts[:, None]
@@ -194,21 +194,7 @@ class LineSet:
                 off |= x >= length
         j = np.clip(j, 0, self.counts[r] - 2)
         t = np.where(off, 0.0, x - self.knots[r, j])
-        y = _horner(self.coef[r, j], t)
-        return np.where(off, 0.0, y)
-
-    def slope(self, rows: np.ndarray, x: np.ndarray) -> np.ndarray:
-        """Slopes (from the right) at ``x``, as ``line.slope(x)``."""
-        x = np.asarray(x, dtype=float)
-        r = np.broadcast_to(_expand(rows, x), x.shape)
-        length = self.length[r]
-        j = np.clip(self._count(rows, x, strict=False) - 1, 0, self.counts[r] - 2)
-        off = (x < 0.0) | (x >= length)
-        t = np.where(off, 0.0, x - self.knots[r, j])
-        c = self.coef[r, j]
-        y = np.zeros(x.shape)
-        for p in range(self.degree, 0, -1):
-            y = y * t + p * c[..., p]
+        y = horner(self.coef[r, j], t)
         return np.where(off, 0.0, y)
 
     @functools.cached_property
@@ -270,16 +256,6 @@ class LineSet:
         faces = np.where(use_left, LEFT, np.where(use_right, RIGHT, EXACT))
         return values, xs, faces
 
-    def both_sides(self, rows: np.ndarray, x: np.ndarray) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
-        """Left and right ordinates of loads at ``x``, and where a load stands at a jump."""
-        xs, k, count = self._snap(rows, x)
-        r = np.broadcast_to(_expand(rows, xs), xs.shape)
-        base = self.evaluate(rows, xs, count=count)
-        at = np.maximum(k, 0)
-        face_here = (k >= 0) & self.jumps[r, at]
-        return np.where(face_here, self.left[r, at], base), np.where(face_here, self.right[r, at], base), face_here
-
-    # ------------------------------------------------------------ signed parts
     def signed(self, sense: int) -> LineSet:
         """The lines where they have the sign of ``sense``, 0 elsewhere (zero crossings become knots)."""
         cache = self.__dict__.setdefault("_signed_parts", {})
@@ -308,8 +284,8 @@ class LineSet:
         p_start, p_end = x_k[:-1][same], x_k[1:][same]
         mid = 0.5 * (p_start + p_end)
         old = np.clip(self._count(p_line, mid, strict=False) - 1, 0, self.counts[p_line] - 2)
-        coef = _shift_rows(self.coef[p_line, old], p_start - self.knots[p_line, old])
-        keep = want * _horner(coef, mid - p_start) > 0
+        coef = taylor_shift(self.coef[p_line, old], p_start - self.knots[p_line, old])
+        keep = want * horner(coef, mid - p_start) > 0
         coef = np.where(keep[:, None], coef, 0.0)
         # a knot between two zero pieces is no knot
         zero = ~keep
@@ -367,12 +343,6 @@ def _expand(rows: np.ndarray, x: np.ndarray) -> np.ndarray:
     return rows.reshape(rows.shape + (1,) * (np.ndim(x) - rows.ndim))
 
 
-def _horner(c: np.ndarray, t: np.ndarray) -> np.ndarray:
-    """``sum c[..., p] t^p`` by Horner's rule, highest power first (as ``InfluenceLine``)."""
-    y = c[..., -1] + 0.0 * t
-    for p in range(c.shape[-1] - 2, -1, -1):
-        y = y * t + c[..., p]
-    return y
 
 
 def _antiderivative(c: np.ndarray, t: np.ndarray) -> np.ndarray:
@@ -381,13 +351,3 @@ def _antiderivative(c: np.ndarray, t: np.ndarray) -> np.ndarray:
     for p in range(c.shape[-1] - 1, -1, -1):
         y = (y + c[..., p] / (p + 1)) * t
     return y
-
-
-def _shift_rows(c: np.ndarray, shift: np.ndarray) -> np.ndarray:
-    """Rows of coefficients of ``p(shift + u)`` in ``u`` (repeated synthetic division)."""
-    out = c.copy()
-    n = out.shape[1]
-    for i in range(n - 1):
-        for k in range(n - 2, i - 1, -1):
-            out[:, k] += shift * out[:, k + 1]
-    return out

@@ -8,6 +8,12 @@ segment end crosses a knot of the line.  Between two events every term is one
 polynomial, so the extreme is either a one-sided limit at an event or a
 stationary point inside an interval.
 
+Many lines at once.  Candidates are rows tagged with their group and their
+line (a :class:`~ilkit.loads._lines.LineSet`): the candidates of several
+groups on all the lines of an envelope come from one pass
+(:func:`candidates_of_groups`), and the dynamic programme over varying gaps
+runs for all the lines together (:func:`best_in_chain`).
+
 Exact faces.  A candidate is never carried as a float position plus offsets
 that might round across a jump: it is an *anchor* (the offset of the group
 that stands at a knot), the knot, a further ``shift`` (0 at events, inside
@@ -17,15 +23,19 @@ within :data:`COINCIDENT` times the line length of a knot *is* that knot
 (float sums such as ``0.2 + 0.1`` or a unit conversion land within rounding
 of the point they stand for).  A load standing at a knot where the line
 jumps takes the ordinate of the face named by the candidate's side.  The
-same function (:func:`ordinates`) gives the ordinates to the search and to
-the placement table, so the two cannot disagree.
+same evaluation (:meth:`LineSet.ordinates <ilkit.loads._lines.LineSet.ordinates>`,
+through :func:`effect`) gives the value of the placement found and the
+placement table, so the two cannot disagree.
 
-Stationary points.  The derivative of the effect between events is a
-polynomial of known degree; it is fitted exactly at interior Chebyshev
-nodes (in a coordinate normalised to ``(-1, 1)``, so the result does not
-depend on the size of the numbers) and solved by
-:func:`ilkit._poly.unit_roots`.  For piecewise-linear lines and point loads
-the derivative is constant between events and only events remain: the
+Search values.  Between events the point loads' effect is the sum, over the
+events so far, of what changes at each (one load leaves a piece of a line and
+enters the next): a polynomial per interval, built once for all intervals
+(:func:`events`).  Its values at the events, from either side, and the roots
+of its derivative (closed form, after a cheap check that the derivative
+changes sign at all) rank the candidates; the placement chosen on each line is
+then evaluated afresh, load by load (:func:`exact_sum`), so the value reported
+is the exact effect of a real placement.  For piecewise-linear lines and point
+loads the derivative is constant between events and only events remain: the
 classic rule that an extreme has a load at a breakpoint.
 
 A *chain* is a series of groups separated by gaps that may vary within
@@ -58,7 +68,7 @@ from fractions import Fraction
 
 import numpy as np
 
-from ilkit._poly import roots_in_pieces
+from ilkit._poly import horner, roots_in_pieces, taylor_shift
 from ilkit.loads._lines import COINCIDENT, EXACT, LEFT, RIGHT, LineSet
 
 __all__ = [
@@ -77,7 +87,9 @@ __all__ = [
     "patterns",
     "split",
     "best_in_chain",
+    "exact_sum",
 ]
+
 
 @dataclass(frozen=True)
 class Segment:
@@ -169,7 +181,6 @@ class Chain:
         return sum(1 for lo, hi in self.gaps if hi > lo)
 
 
-# ------------------------------------------------------------------ ordinates
 # ----------------------------------------------------------------- candidates
 @dataclass(frozen=True)
 class Lines:
@@ -216,9 +227,6 @@ class Candidates:
     starts: np.ndarray
     group: Group = field(repr=False, compare=False)
     lines: Lines = field(repr=False, compare=False)
-
-    def __len__(self) -> int:
-        return int(self.value.size)
 
     @functools.cached_property
     def _layout(self) -> tuple[np.ndarray, np.ndarray]:
@@ -327,18 +335,22 @@ def _gather(table: _Table, g: np.ndarray, first: np.ndarray, stop: np.ndarray, w
     return np.where(mask, a, 0.0), np.where(mask, table.loads[g[:, None], idx], 0.0)
 
 
+def _segments(table: _Table, lines: Lines, rows: Rows):
+    """Each uniform segment of the rows' groups: which rows hold its group, those rows, it and its line."""
+    for k, group in enumerate(table.groups):
+        if group.segments:
+            sel = np.nonzero(rows.g == k)[0]
+            part = rows[sel]
+            for seg in group.segments:
+                yield sel, part, seg, lines.segment(seg)
+
+
 def _segment_effect(table: _Table, lines: Lines, rows: Rows) -> np.ndarray:
     total = np.zeros(rows.g.size)
-    for k, group in enumerate(table.groups):
-        if not group.segments:
-            continue
-        sel = np.nonzero(rows.g == k)[0]
-        part = rows[sel]
-        for seg in group.segments:
-            h = lines.segment(seg)
-            start = part.knot + (seg.start - part.anchor) + part.shift
-            end = part.knot + (seg.end - part.anchor) + part.shift
-            total[sel] += seg.intensity * (h.cumulative(part.r, end) - h.cumulative(part.r, start))
+    for sel, part, seg, h in _segments(table, lines, rows):
+        start = part.knot + (seg.start - part.anchor) + part.shift
+        end = part.knot + (seg.end - part.anchor) + part.shift
+        total[sel] += seg.intensity * (h.cumulative(part.r, end) - h.cumulative(part.r, start))
     return total
 
 
@@ -360,17 +372,11 @@ def _segment_rate(table: _Table, lines: Lines, rows: Rows, shift: np.ndarray) ->
     """Derivative of the uniform segments' effect with respect to the shift, at the positions ``shift`` (one
     row per row of ``rows``, whose own shift is 0)."""
     total = np.zeros(shift.shape)
-    for k, group in enumerate(table.groups):
-        if not group.segments:
-            continue
-        sel = np.nonzero(rows.g == k)[0]
-        part = rows[sel]
-        for seg in group.segments:
-            h = lines.segment(seg)
-            for end, sign in ((seg.end, 1.0), (seg.start, -1.0)):
-                if math.isfinite(end):  # an end at infinity is off the beam: ordinate 0
-                    at = part.knot[:, None] + (end - part.anchor)[:, None] + shift[sel]
-                    total[sel] += sign * seg.intensity * h.evaluate(part.r, at)
+    for sel, part, seg, h in _segments(table, lines, rows):
+        for end, sign in ((seg.end, 1.0), (seg.start, -1.0)):
+            if math.isfinite(end):  # an end at infinity is off the beam: ordinate 0
+                at = part.knot[:, None] + (end - part.anchor)[:, None] + shift[sel]
+                total[sel] += sign * seg.intensity * h.evaluate(part.r, at)
     return total
 
 
@@ -450,8 +456,8 @@ def _crossing(ls: LineSet, r: np.ndarray, j: np.ndarray, a: np.ndarray, w: np.nd
     leave = j >= 1
     jin = np.minimum(j, ls.coef.shape[1] - 1)
     jout = np.maximum(j - 1, 0)
-    cin = _shift_rows(ls.coef[r, jin], a - ls.knots[r, jin])
-    cout = _shift_rows(ls.coef[r, jout], a - ls.knots[r, jout])
+    cin = taylor_shift(ls.coef[r, jin], a - ls.knots[r, jin])
+    cout = taylor_shift(ls.coef[r, jout], a - ls.knots[r, jout])
     return w[:, None] * (np.where(enter[:, None], cin, 0.0) - np.where(leave[:, None], cout, 0.0))
 
 
@@ -459,8 +465,8 @@ def candidates_of_groups(groups: tuple[Group, ...], lines: Lines) -> list[Candid
     """Every position of each group where its effect on each line can be extreme (one pass for all).
 
     The values are those of the search (the point loads' part from the
-    polynomials of :func:`events`, to rounding); :meth:`Candidates.exact`
-    evaluates chosen candidates afresh, every load on its face.
+    polynomials of :func:`events`, to rounding); :func:`exact_sum` evaluates
+    the candidates chosen afresh, every load on its face.
     """
     table = _Table.of(groups)
     degree = _degree(groups, lines)
@@ -470,8 +476,8 @@ def candidates_of_groups(groups: tuple[Group, ...], lines: Lines) -> list[Candid
     first_of_block = np.ones(y.size, dtype=bool)
     first_of_block[1:] = (ev.g[1:] != ev.g[:-1]) | (ev.r[1:] != ev.r[:-1])
     before = np.where(first_of_block[:, None], 0.0, np.roll(after, 1, axis=0))
-    right = seg + _horner(after, y)
-    left = seg + _horner(before, y)
+    right = seg + horner(after, y)
+    left = seg + horner(before, y)
     # an event with a load at a jump is two candidates, one per face; any other is one
     picked = [
         (ev.with_side(np.where(faces, RIGHT, EXACT)), right),
@@ -500,14 +506,6 @@ def candidates_of_groups(groups: tuple[Group, ...], lines: Lines) -> list[Candid
     return out
 
 
-def _horner(c: np.ndarray, t: np.ndarray) -> np.ndarray:
-    """Rows of ascending coefficients evaluated at ``t`` (one value per row)."""
-    y = c[:, -1].copy()
-    for p in range(c.shape[1] - 2, -1, -1):
-        y = y * t + c[:, p]
-    return y
-
-
 def _stationary(table: _Table, lines: Lines, ev: Rows, profile: np.ndarray, degree: int) -> tuple[Rows, np.ndarray]:
     """Candidates strictly between consecutive events of a group on a line where the effect is stationary.
 
@@ -516,7 +514,8 @@ def _stationary(table: _Table, lines: Lines, ev: Rows, profile: np.ndarray, degr
     event before (see :func:`events`); the roots of its derivative in the
     interval are found in closed form, after a check, cheap for a quadratic,
     that it changes sign there at all.  The part of uniform segments, rarer,
-    is fitted at Chebyshev nodes.  Candidates' values are evaluated afresh.
+    is fitted at Chebyshev nodes.  The values are the search's: the
+    polynomial's, and the segments' evaluated.
     """
     y = ev.knot - ev.anchor
     same = (ev.g[1:] == ev.g[:-1]) & (ev.r[1:] == ev.r[:-1])
@@ -531,12 +530,12 @@ def _stationary(table: _Table, lines: Lines, ev: Rows, profile: np.ndarray, degr
     if table.counts.any():
         p = profile[index]
         slope = p[:, 1:] * np.arange(1, p.shape[1])[None, :]
-        rates[:, : slope.shape[1]] += _shift_rows(slope, y[index])  # in the shift t from the event
+        rates[:, : slope.shape[1]] += taylor_shift(slope, y[index])  # in the shift t from the event
     if any(g.segments for g in table.groups):
         u, inverse = _chebyshev(degree + 1)
         half = 0.5 * width
         sampled = _segment_rate(table, lines, base, half[:, None] * (1.0 + u[None, :])) @ inverse.T  # in u
-        c = _shift_rows(sampled, -np.ones(half.size))  # in v = t / half
+        c = taylor_shift(sampled, -np.ones(half.size))  # in v = t / half
         rates += c / half[:, None] ** np.arange(c.shape[1])[None, :]
     rows_in = np.nonzero(_may_change_sign(rates, width))[0]
     found, t = roots_in_pieces(rates[rows_in], width[rows_in])
@@ -546,7 +545,7 @@ def _stationary(table: _Table, lines: Lines, ev: Rows, profile: np.ndarray, degr
     rows = Rows(base.g[found], base.r[found], base.knot[found], base.anchor[found], t, np.zeros(t.size, dtype=int))
     value = _segment_effect(table, lines, rows)
     if table.counts.any():
-        value = value + _horner(profile[index][found], y[index][found] + t)
+        value = value + horner(profile[index][found], y[index][found] + t)
     return rows, value
 
 
@@ -565,16 +564,6 @@ def _may_change_sign(c: np.ndarray, width: np.ndarray) -> np.ndarray:
     top = c0 + vertex * (c1 + c2 * vertex)
     inside = (vertex > 0) & (vertex < width)
     return (c0 * end <= 0) | (inside & (top * c0 <= 0))
-
-
-def _shift_rows(c: np.ndarray, shift: np.ndarray) -> np.ndarray:
-    """Rows of coefficients of ``p(shift + u)`` in ``u`` (repeated synthetic division)."""
-    out = c.copy()
-    n = out.shape[1]
-    for i in range(n - 1):
-        for k in range(n - 2, i - 1, -1):
-            out[:, k] += shift * out[:, k + 1]
-    return out
 
 
 # --------------------------------------------------------------------- chains
