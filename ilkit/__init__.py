@@ -14,6 +14,7 @@ from typing import Any
 
 from ilkit.errors import (
     BeamInputError,
+    ExportError,
     IlkitError,
     IllConditionedError,
     IndeterminateBeamError,
@@ -26,6 +27,7 @@ from ilkit.errors import (
     UnitsError,
     UnstableBeamError,
     UnsupportedResultError,
+    WriteError,
 )
 from ilkit.influence import InfluenceLine, Ordinate, Piece
 from ilkit.loads import (
@@ -73,6 +75,8 @@ __all__ = [
     "NoDerivationError",
     "views",
     "LoadInputError",
+    "ExportError",
+    "WriteError",
     "PlacementTooLargeError",
     # moving loads (published models: ilkit.loads)
     "AxleTrain",

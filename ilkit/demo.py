@@ -6,9 +6,13 @@
 * ``<name>.ipynb``: the executed notebook;
 * ``<name>.html``: the same rendered as a page (figures included, no kernel needed);
 * ``figures/<name>-<k>.png``: every figure;
+* ``_static/mathjax/``: the MathJax that typesets the pages' formulas;
 * ``index.html``: a page linking all of the above, with the engineering caution.
 
-Needs the ``notebook`` extra (nbclient, nbconvert, matplotlib).
+Every page renders offline (a calculation package is archived and read on
+machines without internet): the pages load nothing from the network.
+
+Needs the ``notebook`` extra (nbclient, nbconvert, matplotlib, MathJax).
 """
 
 from __future__ import annotations
@@ -16,15 +20,11 @@ from __future__ import annotations
 import argparse
 import base64
 import html
+import os
 import sys
+import uuid
 from pathlib import Path
 from typing import Any
-
-CAUTION = (
-    "These results come from an aid to calculation. They must be checked by a qualified "
-    "engineer; the local design codes, the licensed current editions of the standards and "
-    "licensed professional practice govern."
-)
 
 
 def _notebooks_folder() -> Path:
@@ -34,42 +34,48 @@ def _notebooks_folder() -> Path:
     return here
 
 
+def _missing(err: ImportError) -> Exception:
+    from ilkit.errors import MissingDependencyError
+
+    return MissingDependencyError(
+        f"the demo needs the notebook extra ({err.name} is missing); run: pip install 'ilkit[notebook]'"
+    )
+
+
 def run(out: Path, notebooks: Path | None = None) -> Path:
     """Execute the notebooks and write the rendered results to ``out``; return the index page."""
     try:
         import nbformat
-        from nbclient import NotebookClient
     except ImportError as err:  # pragma: no cover - exercised without the extra only
-        from ilkit.errors import MissingDependencyError
+        raise _missing(err) from err
 
-        raise MissingDependencyError(
-            f"the demo needs the notebook extra ({err.name} is missing); run: pip install 'ilkit[notebook]'"
-        ) from err
+    from ilkit._files import make_folder, write_file, write_files
+    from ilkit.views.caution import CAUTION
 
     source = notebooks or _notebooks_folder()
-    out.mkdir(parents=True, exist_ok=True)
+    make_folder(out, "demo")  # the notebooks run in it
     figures = out / "figures"
-    figures.mkdir(exist_ok=True)
+    mathjax_url = _copy_mathjax(out)
     entries = []
     for path in sorted(source.glob("*.ipynb")):
         print(f"running {path.name} ...", flush=True)
         nb = nbformat.read(path, as_version=4)
-        NotebookClient(
-            nb, timeout=900, kernel_name="python3", resources={"metadata": {"path": str(out)}}
-        ).execute()
-        nbformat.write(nb, out / path.name)
-        body, _ = _page_exporter().from_notebook_node(nb)
-        (out / f"{path.stem}.html").write_text(body, encoding="utf-8")
+        execute(nb, cwd=out)
+        title = _title(nb, path.stem)
+        nb.metadata["title"] = title  # the page's title in the browser (nbconvert writes "Notebook" without it)
+        body, _ = _page_exporter(mathjax_url).from_notebook_node(nb, resources={"metadata": {"name": path.stem}})
+        files: dict[Path, str | bytes] = {
+            out / path.name: nbformat.writes(nb) + "\n",
+            out / f"{path.stem}.html": body,
+        }
         count = 0
         for cell in nb.cells:
             for output in cell.get("outputs", []):
                 data = output.get("data", {})
                 if "image/png" in data:
                     count += 1
-                    (figures / f"{path.stem}-{count}.png").write_bytes(base64.b64decode(data["image/png"]))
-        title = next(
-            (c.source.lstrip("# ").splitlines()[0] for c in nb.cells if c.cell_type == "markdown"), path.stem
-        )
+                    files[figures / f"{path.stem}-{count}.png"] = base64.b64decode(data["image/png"])
+        write_files(files, what="demo")  # the notebook, its page and its figures together, or none
         entries.append((path.stem, title, count))
     for extra in _extra_outputs(out):
         entries.append(extra)
@@ -82,33 +88,129 @@ def run(out: Path, notebooks: Path | None = None) -> Path:
             (e[0] if e[0].endswith((".html", ".md")) else f"{e[0]}.html", e[1], e[2]) for e in entries
         )
     )
-    index.write_text(
+    write_file(
+        index,
         "<!doctype html><html><head><meta charset='utf-8'><title>ilkit demo study</title></head>"
         "<body style='font-family: sans-serif; max-width: 50em; margin: 2em auto'>"
         "<h1>ilkit demo study</h1>"
         f"<p><strong>Caution.</strong> {html.escape(CAUTION)}</p>"
         f"<ul>{items}</ul></body></html>",
-        encoding="utf-8",
+        what="demo",
     )
     return index
 
 
-def _page_exporter() -> Any:
-    """The HTML exporter for pages read without a kernel.
+def _title(nb: Any, fallback: str) -> str:
+    """The notebook's title: the text of its first Markdown heading."""
+    for cell in nb.cells:
+        if cell.cell_type == "markdown":
+            for text in cell.source.splitlines():
+                if text.startswith("#"):
+                    return text.lstrip("# ").strip()
+    return fallback
+
+
+def execute(nb: Any, cwd: Path, timeout: float = 900) -> Any:
+    """Run every cell of the notebook ``nb`` (in place) in a kernel of this Python started in ``cwd``;
+    the kernel is shut down afterwards.  Returns ``nb``."""
+    try:
+        from nbclient import NotebookClient
+    except ImportError as err:  # pragma: no cover - exercised without the extra only
+        raise _missing(err) from err
+    client = NotebookClient(nb, timeout=timeout, km=kernel_manager(), resources={"metadata": {"path": str(cwd)}})
+    # the client does not own a manager it is given: ask it to shut the kernel down all the same
+    return client.execute(cleanup_kc=True)
+
+
+def kernel_manager() -> Any:
+    """A Jupyter kernel manager for this very Python, talking over local sockets.
+
+    The kernel runs ``sys.executable`` (the interpreter that has ilkit), whatever
+    kernelspecs named "python3" the machine's Jupyter folders hold; on Unix its
+    channels are domain sockets in the Jupyter runtime folder, so the kernel has
+    no unencrypted TCP to warn about (on Windows: TCP, encrypted where the kernel
+    can).  Used by the demo runner, and by the tests that start kernels.
+    """
+    from ipykernel.kernelspec import get_kernel_dict
+    from jupyter_client import KernelManager
+    from jupyter_client.kernelspec import KernelSpec, KernelSpecManager
+    from jupyter_core.paths import jupyter_runtime_dir
+
+    class ThisPython(KernelSpecManager):  # type: ignore[misc]
+        def get_kernel_spec(self, kernel_name: str) -> KernelSpec:
+            return KernelSpec(resource_dir="", **get_kernel_dict())
+
+    manager = KernelManager(kernel_name="python3", kernel_spec_manager=ThisPython())
+    if os.name == "posix":
+        runtime = Path(jupyter_runtime_dir())
+        runtime.mkdir(parents=True, exist_ok=True)
+        manager.transport = "ipc"
+        manager.ip = str(runtime / f"ilkit-kernel-{uuid.uuid4().hex[:12]}")
+    elif manager.has_trait("transport_encryption"):
+        manager.transport_encryption = "auto"
+    return manager
+
+
+MATHJAX = "_static/mathjax"
+
+
+def _copy_mathjax(out: Path) -> str:
+    """Copy MathJax (one file, SVG output: no fonts to fetch) beside the pages; its URL relative to them."""
+    try:
+        import mathjax  # the django-static-mathjax distribution: MathJax's files, no Django needed
+    except ImportError as err:  # pragma: no cover - exercised without the extra only
+        raise _missing(err) from err
+    source = Path(mathjax.__file__).parent / "static" / "mathjax"
+    target = out / MATHJAX
+    from ilkit._files import write_files
+
+    write_files({target / Path(name).name: (source / name).read_bytes() for name in ("es5/tex-svg-full.js", "LICENSE")},
+                what="demo")
+    return f"{MATHJAX}/tex-svg-full.js"
+
+
+# The page template: JupyterLab's look, and nothing loaded from the network.  MathJax
+# comes from beside the page; require.js, the widget manager and mermaid are left out
+# (a page without a kernel shows stills and text instead of widgets).
+PAGE_TEMPLATE = """{%- extends 'index.html.j2' -%}
+{%- block html_head_js_requirejs -%}{%- endblock html_head_js_requirejs -%}
+{% block jupyter_widgets %}{% endblock jupyter_widgets %}
+{%- block html_head_js_mermaidjs -%}{%- endblock html_head_js_mermaidjs -%}
+{%- block html_head_js_mathjax -%}
+<script>
+window.MathJax = {
+  tex: {inlineMath: [['$', '$']], displayMath: [['$$', '$$']], processEscapes: true},
+  svg: {fontCache: 'global'},
+  options: {enableMenu: false}
+};
+</script>
+<script defer src="{{ resources.mathjax_url }}"></script>
+{%- endblock html_head_js_mathjax -%}
+"""
+
+
+def _page_exporter(mathjax_url: str) -> Any:
+    """The HTML exporter for pages read without a kernel and without a network.
 
     A widget cannot be driven from such a page, so where an output carries a
     still image besides its widget view (the influence-line explorer, ipympl
-    figures) the page shows the image; widgets without a still keep their view.
+    figures) the page shows the image, and a widget without a still shows its
+    text.  Formulas are typeset by the MathJax copied beside the page.
     """
+    from jinja2 import DictLoader
     from nbconvert import HTMLExporter
     from traitlets.config import Config
 
     widget = "application/vnd.jupyter.widget-view+json"
-    priority = [m for m in HTMLExporter().default_config.NbConvertBase.display_data_priority if m != widget]
-    priority.insert(priority.index("text/plain"), widget)
     config = Config()
-    config.NbConvertBase.display_data_priority = priority
-    return HTMLExporter(config=config, template_name="lab")
+    config.NbConvertBase.display_data_priority = [
+        m for m in HTMLExporter().default_config.NbConvertBase.display_data_priority if m != widget
+    ]
+    config.HTMLExporter.mathjax_url = mathjax_url
+    return HTMLExporter(
+        config=config, template_name="lab", template_file="ilkit_page.html.j2",
+        extra_loaders=[DictLoader({"ilkit_page.html.j2": PAGE_TEMPLATE})],
+    )
 
 
 def _extra_outputs(out: Path) -> list[tuple[str, str, int]]:
@@ -130,8 +232,10 @@ def _extra_outputs(out: Path) -> list[tuple[str, str, int]]:
 def main(argv: list[str] | None = None) -> int:
     parser = argparse.ArgumentParser(prog="python -m ilkit.demo", description=__doc__.splitlines()[0])
     parser.add_argument("--out", type=Path, default=Path("out/demo"), help="output folder (default out/demo)")
+    parser.add_argument("--notebooks", type=Path, default=None,
+                        help="folder of the notebooks to run (default: notebooks/ of this checkout)")
     args = parser.parse_args(argv)
-    index = run(args.out)
+    index = run(args.out, notebooks=args.notebooks)
     print(f"\nDemo study written to {args.out.resolve()}")
     print(f"Open {index.resolve()} in a browser.")
     return 0

@@ -20,6 +20,8 @@ __all__ = [
     "UnsupportedResultError",
     "NoDerivationError",
     "LoadInputError",
+    "ExportError",
+    "WriteError",
     "PlacementTooLargeError",
 ]
 
@@ -139,12 +141,46 @@ class LoadInputError(_InputError):
     """
 
 
+class ExportError(_InputError):
+    """An export that cannot be written as asked, before any file is touched: two results whose Excel sheet
+    names would be the same (after the characters Excel forbids are replaced, its 31-character limit applied
+    and case ignored), a name Excel refuses, or nothing to write.
+
+    Attributes
+    ----------
+    field:
+        The argument at fault (``"sheets"``).
+    value:
+        The names or the value at fault, as given.
+    """
+
+
+class WriteError(IlkitError, OSError):
+    """A file could not be written: its folder cannot be made, the path is a folder, the existing file is
+    read-only, permission is denied, the disk is full.
+
+    ilkit writes every file to a temporary file beside it and renames it only when it is complete, so a
+    failed write leaves an existing file as it was.  Also an :class:`OSError`, so code catching file-system
+    errors keeps working.
+
+    Attributes
+    ----------
+    path:
+        The file (or folder) that could not be written.
+    """
+
+    def __init__(self, message: str, *, path: object = None) -> None:
+        super().__init__(message)
+        self.path = path
+
 
 class PlacementTooLargeError(LoadInputError):
     """A placement search would take more work than ilkit allows (a train with very many axles on the
     beam at once, or very many varying spacings).
 
-    Raised before any work is done.  Attributes
+    Raised before any work is done.
+
+    Attributes
     ----------
     work:
         The estimated number of ordinate evaluations.

@@ -89,6 +89,12 @@ class InfluenceLine(RichDisplay):
     may be pint quantities when the beam declares its units; they are
     converted into the beam's length unit.
 
+    Ordinates are the quantity per unit downward load, in :attr:`unit` (for
+    example kN/kN for a force, kN·m/kN for a moment, m/kN for a deflection),
+    with the sign conventions of :mod:`ilkit.model` (reactions upward, moments
+    sagging, deflections downward positive); areas are in that unit times the
+    length unit.
+
     Build lines with the beam's methods (``beam.reaction(x)``, ``beam.shear(x)``
     ...), not with this constructor.
     """

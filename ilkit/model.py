@@ -333,7 +333,8 @@ class Beam(RichDisplay):
     def moment_reaction(self, at: Number, *, exact: bool = False) -> InfluenceLine:
         """Influence line of the moment reaction (positive counter-clockwise) of the fixed support at ``at``.
 
-        For a support with a rotational spring it is the spring moment.
+        Ordinates in force x length per unit load (kN·m/kN).  For a support with
+        a rotational spring it is the spring moment.
         """
         pos = self._support_at(at, "moment_reaction")
         if not any(s.at == pos and s.restrains_rotation for s in self.supports):
@@ -351,7 +352,7 @@ class Beam(RichDisplay):
         """Influence line of the shear at the section ``at``.
 
         Positive when the forces on the part left of the section add up to an
-        upward resultant.  At an interior support the shear jumps: name the
+        upward resultant; ordinates in force per unit load (kN/kN).  At an interior support the shear jumps: name the
         face with ``side="left"`` or ``side="right"``.  At the beam ends the
         inner face is taken.
         """
@@ -362,7 +363,8 @@ class Beam(RichDisplay):
     def moment(self, at: Number, side: Side | None = None, *, exact: bool = False) -> InfluenceLine:
         """Influence line of the bending moment (sagging positive) at the section ``at``.
 
-        Identically zero at a hinge.  At an interior support that restrains
+        Ordinates in force x length per unit load (kN·m/kN).  Identically zero
+        at a hinge.  At an interior support that restrains
         rotation (fixed, rotational spring) the moment jumps: name the face
         with ``side``.
         """
@@ -420,7 +422,8 @@ class Beam(RichDisplay):
         the method of that name (``beam.line("moment", 12)`` is ``beam.moment(12)``).
 
         ``kind`` is one of :data:`ilkit.quantity.KINDS`.  Quantities that need no
-        side (reactions) accept only ``side=None``.
+        side (reactions) accept only ``side=None``.  Units and signs are those of
+        the method (see :mod:`ilkit.model`).
         """
         method = self._method(kind)
         if kind in _AT_SUPPORTS:

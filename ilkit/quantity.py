@@ -26,6 +26,9 @@ KINDS: dict[str, tuple[str, str]] = {
     "deflection": ("δ", "deflection"),
     "rotation": ("θ", "rotation"),
 }
+"""The quantities a line can be asked for: ``kind -> (symbol, words)``; each is a method of
+:class:`~ilkit.Beam` of the same name (``beam.moment(at)``).  Units and signs: see
+:mod:`ilkit.model`."""
 
 
 @dataclass(frozen=True)

@@ -117,6 +117,8 @@ SYSTEMS: dict[str, UnitSystem] = {
     "kip-in": UnitSystem("kip-in", "in", "kip", _IN, _LBF * 1000),
     "lb-ft": UnitSystem("lb-ft", "ft", "lb", _FT, _LBF),
 }
+"""The unit systems a beam or a load may declare, by name (``units="kN-m"``): each a
+:class:`UnitSystem` with exact factors to metres and newtons."""
 
 
 def unit_system(name: str | UnitSystem | None) -> UnitSystem | None:

@@ -86,11 +86,11 @@ def test_no_supports():
 
 def test_mechanism_names_the_moving_part():
     with pytest.raises(UnstableBeamError) as info:
-        ilkit.Beam(30, {0: "pin", 25: "roller"}, hinges=[10])
+        ilkit.Beam(37.2, {0: "pin", 31.2: "roller"}, hinges=[9.6])  # the girder of scenarios.py, not built in
     message = str(info.value)
-    assert "the part from x=0 to x=10 can rotate about the pin support at x=0" in message
-    assert "add a support between x=0 and x=10" in message
-    assert "remove the hinge at x=10" in message
+    assert "the part from x=0 to x=9.6 can rotate about the pin support at x=0" in message
+    assert "add a support between x=0 and x=9.6" in message
+    assert "remove the hinge at x=9.6" in message
     assert info.value.motions
 
 

@@ -55,21 +55,27 @@ def three_span_reaction_c(a: float) -> float:
 
 
 # ----------------------------------------------------------------- near-coincident geometry (item 3)
-def test_hinge_1e8_from_a_roller_gave_a_wrong_float_reaction():
+def test_hinge_1e8_from_a_roller_gave_a_wrong_float_reaction(reference):
     # it gave -0.192 (then 0.0) in floats where the exact value is -0.096
     beam = ilkit.Beam(3, {0: "pin", 1: "pin", 2: "roller", 3: "pin"}, hinges=[2.00000001], EI=1)
     line = beam.reaction(2)
     # the part right of the hinge carries nothing for a load in the first span: a two-span beam 0-1-2
-    assert line(0.58) == pytest.approx(two_span_end_reaction(0.58), abs=1e-7)
+    reference("hinge 1e-8 beside a roller: end reaction of two unit spans, load at 0.58",
+              expected=two_span_end_reaction(0.58), computed=line(0.58), abs=1e-7,
+              source="three-moment (Clapeyron) equation, written out in the test (common practice)",
+              clause="2 M_B (1 + 1) = -a (1 - a²), R_C = M_B")
     assert line(0.58) == pytest.approx(float(beam.reaction(2, exact=True).ordinate_exact(F("0.58"))), rel=1e-12)
     assert "from x=2 to x=2.00000001" in line.origin.exact_because
 
 
-def test_spring_and_roller_1e8_apart_gave_a_wrong_float_reaction():
+def test_spring_and_roller_1e8_apart_gave_a_wrong_float_reaction(reference):
     beam = ilkit.Beam(3, {0: "pin", 1: "pin", 2: "roller", 2.00000001: Spring(vertical=1), 3: "pin"}, EI=1)
     line = beam.reaction(2)
     # the spring beside the roller barely moves: a three-span continuous beam 0-1-2-3
-    assert line(0.58) == pytest.approx(three_span_reaction_c(0.58), abs=1e-7)
+    reference("spring 1e-8 beside a roller: reaction at C of three unit spans, load at 0.58",
+              expected=three_span_reaction_c(0.58), computed=line(0.58), abs=1e-7,
+              source="three-moment (Clapeyron) equation, written out in the test (common practice)",
+              clause="4 M_B + M_C = -a (1 - a²), M_B + 4 M_C = 0, R_C = 3 M_B / 2")
     assert line(0.58) == pytest.approx(float(beam.reaction(2, exact=True).ordinate_exact(F("0.58"))), rel=1e-12)
     assert abs(beam.reaction(2.00000001)(0.58)) < 1e-7
 

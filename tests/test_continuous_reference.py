@@ -22,12 +22,18 @@ import ilkit
 # as printed in beam-diagram tables such as "Beam Diagrams and Formulas" of
 # the AISC Steel Construction Manual (quoted from memory):
 #   R1 = P b / (4 L³) [4 L² - a (L + a)]
-#   R2 = P a / (2 L³) [2 L² + b (L + a)]       (= x (3L² - x²) / (2L³), the form in the issue)
+#   R2 = P a / (2 L³) [2 L² + b (L + a)]       (= P a (3L² - a²) / (2L³), since b (L + a) = L² - a²)
 #   R3 = -P a b / (4 L³) (L + a)
 #   M2 (over the middle support) = -P a b (L + a) / (4 L²)
 #   M under the load = P a b / (4 L³) [4 L² - a (L + a)]
 # Being from memory, the same five are re-derived from the three-moment
 # equation in test_two_span_formulas_follow_from_the_three_moment_equation.
+
+
+AISC = "handbook beam formulas (AISC Steel Construction Manual, Beam Diagrams and Formulas)"
+TWO_SPAN = "continuous beam, two equal spans, concentrated load at any point"
+THREE_MOMENT = "three-moment (Clapeyron) equation, derived in the test"
+SYMPY = "sympy.physics.continuum_mechanics.beam.Beam (singularity functions)"
 
 
 def _two_span(a: F, L: F) -> dict[str, F]:
@@ -45,21 +51,31 @@ TWO_SPAN_LOADS = [F(1, 3), F(1), F(5, 2), F(4), F(6), F(15, 2), F(9), F(39, 4)]
 
 
 @pytest.mark.parametrize("a", TWO_SPAN_LOADS)
-def test_two_equal_spans_handbook_closed_forms(a):
+def test_two_equal_spans_handbook_closed_forms(a, reference):
     L = F(10)
     beam = ilkit.Beam(2 * L, {0: "pin", L: "pin", 2 * L: "roller"}, EI=7)
     want = _two_span(a, L)
-    assert beam.reaction(0, exact=True).ordinate_exact(a) == want["R1"]
-    assert beam.reaction(L, exact=True).ordinate_exact(a) == want["R2"]
-    assert want["R2"] == a * (3 * L**2 - a**2) / (2 * L**3)  # the issue's form of the same reaction
-    assert beam.reaction(2 * L, exact=True).ordinate_exact(a) == want["R3"]
-    assert beam.moment(L, exact=True).ordinate_exact(a) == want["M2"]
-    assert beam.moment(a, exact=True).ordinate_exact(a) == want["M_load"]
+    ref = dict(source=AISC, clause=TWO_SPAN, from_memory=True)
+    at = f"L = 10, load at a = {a}"
+    reference(f"R1 = P b [4L² - a(L + a)] / (4L³), {at}", expected=want["R1"],
+              computed=beam.reaction(0, exact=True).ordinate_exact(a), **ref)
+    reference(f"R2 = P a [2L² + b(L + a)] / (2L³), {at}", expected=want["R2"],
+              computed=beam.reaction(L, exact=True).ordinate_exact(a), **ref)
+    assert want["R2"] == a * (3 * L**2 - a**2) / (2 * L**3)  # the same reaction simplified (derived above)
+    reference(f"R3 = -P a b (L + a) / (4L³), {at}", expected=want["R3"],
+              computed=beam.reaction(2 * L, exact=True).ordinate_exact(a), **ref)
+    reference(f"M2 = -P a b (L + a) / (4L²) over the middle support, {at}", expected=want["M2"],
+              computed=beam.moment(L, exact=True).ordinate_exact(a), **ref)
+    reference(f"M under the load = P a b [4L² - a(L + a)] / (4L³), {at}", expected=want["M_load"],
+              computed=beam.moment(a, exact=True).ordinate_exact(a), **ref)
     # symmetry: a load in the second span at 2L - a mirrors the first span
-    assert beam.reaction(2 * L, exact=True).ordinate_exact(2 * L - a) == want["R1"]
+    reference(f"R3 for the mirrored load at 2L - a = R1, {at}", expected=want["R1"],
+              computed=beam.reaction(2 * L, exact=True).ordinate_exact(2 * L - a), **ref)
     # the float lines agree to rounding
-    assert beam.reaction(L)(float(a)) == pytest.approx(float(want["R2"]), abs=1e-13)
-    assert beam.moment(a)(float(a)) == pytest.approx(float(want["M_load"]), abs=1e-12)
+    reference(f"R2, float line, {at}", expected=float(want["R2"]), computed=beam.reaction(L)(float(a)), abs=1e-13,
+              **ref)
+    reference(f"M under the load, float line, {at}", expected=float(want["M_load"]),
+              computed=beam.moment(a)(float(a)), abs=1e-12, **ref)
 
 
 def test_two_span_formulas_follow_from_the_three_moment_equation():
@@ -106,16 +122,21 @@ TABLE_A13 = {
 
 
 @pytest.mark.parametrize("l", [6.0, 24.0])
-def test_two_span_table_of_sixth_point_ordinates(l):
+def test_two_span_table_of_sixth_point_ordinates(l, reference):
     beam = ilkit.Beam(2 * l, {0: "pin", l: "roller", 2 * l: "roller"}, EI=2.5e6)
     loads = np.array(sorted(TABLE_A13)) * l / 6
     table = np.array([TABLE_A13[k] for k in sorted(TABLE_A13)])
+    ref = dict(source="Karnovsky and Lebed, Advanced Methods of Structural Analysis (Springer), Appendix",
+               clause="Table A.13, two equal spans, p. 567", abs=2e-4)
     for col, section in enumerate(range(1, 7)):
         got = beam.moment(section * l / 6)(loads) / l
-        np.testing.assert_allclose(got, table[:, col], rtol=0, atol=2e-4)
-    np.testing.assert_allclose(beam.shear(0)(loads), table[:, 6], rtol=0, atol=2e-4)
+        reference(f"l = {l:g}: M at section {section} / l, load at sections 1-5, 7-11", expected=table[:, col],
+                  computed=got, **ref)
+    reference(f"l = {l:g}: shear at section 0, load at sections 1-5, 7-11", expected=table[:, 6],
+              computed=beam.shear(0)(loads), **ref)
     # the reaction and the shear at the end section are the same line
-    np.testing.assert_allclose(beam.reaction(0)(loads), table[:, 6], rtol=0, atol=2e-4)
+    reference(f"l = {l:g}: end reaction, load at sections 1-5, 7-11", expected=table[:, 6],
+              computed=beam.reaction(0)(loads), **ref)
 
 
 # --------------------------------------------------------------------------
@@ -129,16 +150,24 @@ def test_two_span_table_of_sixth_point_ordinates(l):
 THREE_SPAN_MB = (-0.0264, -0.0512, -0.0728, -0.0896, -0.1000, -0.1024, -0.0952, -0.0768, -0.0456)
 
 
-def test_three_equal_spans_moment_over_first_pier():
+def test_three_equal_spans_moment_over_first_pier(reference):
     L = F(12)
     beam = ilkit.Beam(3 * L, {0: "pin", L: "pin", 2 * L: "pin", 3 * L: "roller"}, EI=F(3, 2))
     mb = beam.moment(L, exact=True)
     mc = beam.moment(2 * L, exact=True)
-    for i, coefficient in enumerate(THREE_SPAN_MB, start=1):
-        xi = F(i, 10)
-        assert mb.ordinate_exact(xi * L) == -F(4, 15) * L * (xi - xi**3)
-        assert mc.ordinate_exact(xi * L) == F(1, 15) * L * (xi - xi**3)
-        assert float(mb.ordinate_exact(xi * L) / L) == pytest.approx(coefficient, abs=5e-5)
+    xis = [F(i, 10) for i in range(1, 10)]
+    reference("M_B = -(4/15) L (ξ - ξ³), load at tenth points ξ of span 1",
+              computed=[mb.ordinate_exact(xi * L) for xi in xis],
+              expected=[-F(4, 15) * L * (xi - xi**3) for xi in xis], source=THREE_MOMENT,
+              clause="4 L M_B + L M_C = -L² (ξ - ξ³), L M_B + 4 L M_C = 0")
+    reference("M_C = (1/15) L (ξ - ξ³), load at tenth points ξ of span 1",
+              computed=[mc.ordinate_exact(xi * L) for xi in xis],
+              expected=[F(1, 15) * L * (xi - xi**3) for xi in xis], source=THREE_MOMENT,
+              clause="4 L M_B + L M_C = -L² (ξ - ξ³), L M_B + 4 L M_C = 0")
+    reference("M_B / L at tenth points of span 1, tabulated coefficients", expected=list(THREE_SPAN_MB),
+              computed=[float(mb.ordinate_exact(xi * L) / L) for xi in xis], abs=5e-5,
+              source="tenth-point coefficients of continuous beams of three equal spans, older handbooks",
+              clause="moment over the first interior support, load in span 1", from_memory=True)
 
 
 # --------------------------------------------------------------------------
@@ -173,7 +202,7 @@ def _three_moment(x: F, spans: list[F], inertias: list[F]) -> tuple[F, F]:
     return mb, mc
 
 
-def test_three_unequal_spans_with_stiffer_middle_span_three_moment_equation():
+def test_three_unequal_spans_with_stiffer_middle_span_three_moment_equation(reference):
     spans = [F(8), F(14), F(10)]
     inertias = [F(1), F(5, 2), F(1)]
     E = F(200)
@@ -185,18 +214,22 @@ def test_three_unequal_spans_with_stiffer_middle_span_three_moment_equation():
     )
     mb_line, mc_line = beam.moment(B, exact=True), beam.moment(C, exact=True)
     ra_line, rb_line = beam.reaction(0, exact=True), beam.reaction(B, exact=True)
-    for x in [F(1), F(3), F(13, 2), F(9), F(15), F(21), F(23), F(27), F(31)]:
+    xs = [F(1), F(3), F(13, 2), F(9), F(15), F(21), F(23), F(27), F(31)]
+    want: dict[str, list[F]] = {"M_B": [], "M_C": [], "R_A": [], "R_B": []}
+    for x in xs:
         mb, mc = _three_moment(x, spans, inertias)
-        assert mb_line.ordinate_exact(x) == mb
-        assert mc_line.ordinate_exact(x) == mc
-        # statics of span AB: R_A = (simple-span share) + M_B / L1
+        # statics of span AB: R_A = (simple-span share) + M_B / L1; R_B from spans AB and BC
         simple_a = (B - x) / B if x <= B else F(0)
-        assert ra_line.ordinate_exact(x) == simple_a + mb / B
-        # R_B from spans AB and BC
         simple_b = (x / B if x <= B else (C - x) / spans[1] if x <= C else F(0))
-        assert rb_line.ordinate_exact(x) == simple_b - mb / B - (mb - mc) / spans[1]
-    floats = beam.moment(B)
-    assert floats(15.0) == pytest.approx(float(_three_moment(F(15), spans, inertias)[0]), rel=1e-12)
+        for key, value in zip(want, (mb, mc, simple_a + mb / B, simple_b - mb / B - (mb - mc) / spans[1])):
+            want[key].append(value)
+    where = "spans 8, 14, 10 with I 1, 2.5, 1; load at x = " + ", ".join(str(x) for x in xs)
+    clause = "unequal spans and second moments of area, pinned outer ends; statics of each span"
+    for key, line in zip(want, (mb_line, mc_line, ra_line, rb_line)):
+        reference(f"{key}, {where}", expected=want[key], computed=[line.ordinate_exact(x) for x in xs],
+                  source=THREE_MOMENT, clause=clause)
+    reference("M_B, float line, load at 15", expected=float(_three_moment(F(15), spans, inertias)[0]),
+              computed=beam.moment(B)(15.0), rel=1e-12, source=THREE_MOMENT, clause=clause)
 
 
 # --------------------------------------------------------------------------
@@ -209,7 +242,7 @@ def test_three_unequal_spans_with_stiffer_middle_span_three_moment_equation():
 # X = 1 sagging at the pier; M0: under the unit load).
 
 
-def test_haunched_two_span_girder_force_method():
+def test_haunched_two_span_girder_force_method(reference):
     import sympy
 
     s = sympy.Symbol("s", real=True)
@@ -229,7 +262,10 @@ def test_haunched_two_span_girder_force_method():
         d10 = sum(sympy.integrate(m1 * M0 / ei, (s, lo, hi)) for lo, hi, ei in ranges)
         X = -d10 / d11
         got = beam.moment(L1, exact=True).ordinate_exact(F(int(xp.p), int(xp.q)))
-        assert sympy.Rational(got.numerator, got.denominator) == sympy.nsimplify(X)
+        reference(f"haunched two-span girder, pier moment, load at {xp}", expected=sympy.nsimplify(X),
+                  computed=sympy.Rational(got.numerator, got.denominator),
+                  source="force method by virtual work, integrated exactly by sympy in the test",
+                  clause="X = -δ10 / δ11, δ = ∫ m m / EI dx over ranges of constant EI")
 
 
 # --------------------------------------------------------------------------
@@ -266,22 +302,27 @@ def _sympy_beam(x_load, length, supports, fixed_at=()):
     return b, unknowns, moments
 
 
-def test_sympy_sign_convention_control_cases():
+def test_sympy_sign_convention_control_cases(reference):
     """A simple span and a cantilever whose answers are known by statics and handbook formulas."""
     import sympy
 
     b, (r0, _r1), _ = _sympy_beam(sympy.Rational(3), 10, [0, 10])
-    assert -b.reaction_loads[r0] == sympy.Rational(7, 10)  # statics: upward 7/10
+    ref = dict(source="statics and handbook beam formulas (common practice)", clause="sympy's sign convention pinned")
+    reference("sympy: simple span 10, load at 3: upward left reaction 7/10", expected=sympy.Rational(7, 10),
+              computed=-b.reaction_loads[r0], **ref)
     x = b.variable
-    assert b.bending_moment().subs(x, 3) == sympy.Rational(21, 10)  # sagging P a b / L
+    reference("sympy: sagging moment under the load P a b / L", expected=sympy.Rational(21, 10),
+              computed=b.bending_moment().subs(x, 3), **ref)
     # simple-span deflection under the load, P a² b² / (3 EI L), in the load's direction
-    assert b.deflection().subs(x, 3) == sympy.Rational(9 * 49, 30)
+    reference("sympy: deflection under the load P a² b² / (3 EI L)", expected=sympy.Rational(9 * 49, 30),
+              computed=b.deflection().subs(x, 3), **ref)
     c, (_, m0), _ = _sympy_beam(sympy.Rational(4), 6, [0], fixed_at=[0])
-    assert c.reaction_loads[m0] == 4  # counter-clockwise moment reaction P x
+    reference("sympy: cantilever, counter-clockwise moment reaction P x", expected=4, computed=c.reaction_loads[m0],
+              **ref)
 
 
 @pytest.mark.parametrize("x_load", [F(3, 2), F(6), F(23, 2), F(17)])
-def test_propped_continuous_beam_with_overhang_against_sympy(x_load):
+def test_propped_continuous_beam_with_overhang_against_sympy(x_load, reference):
     import sympy
 
     supports = [0, 8, 18]
@@ -293,21 +334,30 @@ def test_propped_continuous_beam_with_overhang_against_sympy(x_load):
         value = line.ordinate_exact(x_load)
         return sympy.Rational(value.numerator, value.denominator)
 
+    ref = dict(source=SYMPY, clause="propped continuous beam with an overhang, fixed at 0, supports at 8 and 18")
+    at = f"load at {x_load}"
     for p, r in zip(supports, unknowns):
-        assert exact(beam.reaction(p, exact=True)) == -b.reaction_loads[r]
-    assert exact(beam.moment_reaction(0, exact=True)) == b.reaction_loads[moments[0]]
+        reference(f"reaction at {p}, {at}", expected=-b.reaction_loads[r], computed=exact(beam.reaction(p, exact=True)),
+                  **ref)
+    reference(f"moment reaction at 0, {at}", expected=b.reaction_loads[moments[0]],
+              computed=exact(beam.moment_reaction(0, exact=True)), **ref)
     x = b.variable
     for section in (F(5), F(25, 2), F(20)):
         if section != x_load:
-            at = sympy.Rational(section.numerator, section.denominator)
-            assert exact(beam.moment(section, exact=True)) == b.bending_moment().subs(x, at)
-            assert exact(beam.shear(section, exact=True)) == b.shear_force().subs(x, at)
+            at_s = sympy.Rational(section.numerator, section.denominator)
+            reference(f"moment at {section}, {at}", expected=b.bending_moment().subs(x, at_s),
+                      computed=exact(beam.moment(section, exact=True)), **ref)
+            reference(f"shear at {section}, {at}", expected=b.shear_force().subs(x, at_s),
+                      computed=exact(beam.shear(section, exact=True)), **ref)
     # Maxwell: the deflection line at p read at the load equals sympy's deflection at p
     for p in (sympy.Rational(4), sympy.Rational(13), sympy.Rational(21)):
         pf = F(int(p.p), int(p.q))
-        assert exact(beam.deflection(pf, exact=True)) == b.deflection().subs(x, p)
-        assert exact(beam.rotation(pf, exact=True)) == b.slope().subs(x, p)
-    assert beam.deflection(13)(float(x_load)) == pytest.approx(float(b.deflection().subs(x, 13)), rel=1e-12)
+        reference(f"deflection line at {p} (Maxwell), {at}", expected=b.deflection().subs(x, p),
+                  computed=exact(beam.deflection(pf, exact=True)), **ref)
+        reference(f"rotation line at {p} (Maxwell), {at}", expected=b.slope().subs(x, p),
+                  computed=exact(beam.rotation(pf, exact=True)), **ref)
+    reference(f"deflection at 13, float line, {at}", expected=float(b.deflection().subs(x, 13)),
+              computed=beam.deflection(13)(float(x_load)), rel=1e-12, **ref)
 
 
 # --------------------------------------------------------------------------
@@ -321,14 +371,19 @@ def test_propped_continuous_beam_with_overhang_against_sympy(x_load):
 # a load left of it the mirror image (distances from the right support).
 
 
-def test_simple_span_deflection_line_handbook_formula():
+def test_simple_span_deflection_line_handbook_formula(reference):
     L, EI, a = F(16), F(3000), F(10)
     beam = ilkit.Beam(L, {0: "pin", L: "roller"}, EI=EI)
     line = beam.deflection(a, exact=True)
-    for x in [F(1), F(5, 2), F(7), F(10), F(12), F(15)]:
-        if x >= a:
-            want = (L - x) * a * (L**2 - (L - x) ** 2 - a**2) / (6 * EI * L)
-        else:
-            want = x * (L - a) * (L**2 - x**2 - (L - a) ** 2) / (6 * EI * L)
-        assert line.ordinate_exact(x) == want
-    assert beam.deflection(a)(12.0) == pytest.approx(float(line.ordinate_exact(F(12))), rel=1e-12)
+    xs = [F(1), F(5, 2), F(7), F(10), F(12), F(15)]
+    want = [
+        (L - x) * a * (L**2 - (L - x) ** 2 - a**2) / (6 * EI * L) if x >= a
+        else x * (L - a) * (L**2 - x**2 - (L - a) ** 2) / (6 * EI * L)
+        for x in xs
+    ]
+    ref = dict(source=AISC + "; common practice", clause="simple beam, concentrated load at any point: "
+               "deflection P b x (L² - b² - x²) / (6 EI L)")
+    reference("simple span 16, deflection line at 10, load at " + ", ".join(str(x) for x in xs), expected=want,
+              computed=[line.ordinate_exact(x) for x in xs], **ref)
+    reference("float deflection line, load at 12", expected=float(line.ordinate_exact(F(12))),
+              computed=beam.deflection(a)(12.0), rel=1e-12, **ref)

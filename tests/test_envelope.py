@@ -87,7 +87,7 @@ def test_shear_faces_at_a_support_differ_by_the_reaction(gerber):
     assert right(xs) - left(xs) == pytest.approx(gerber.reaction(100)(xs), abs=1e-12)
 
 
-def test_interior_reaction_two_truck_rule_by_hand(gerber, gerber_env):
+def test_interior_reaction_two_truck_rule_by_hand(gerber, gerber_env, reference):
     # R at x=100 (influence line: x/100 on 0..120 up to 1.2 at the hinge, down to 0 at x=130 over the
     # drop-in span, 0 beyond).  Lane area 120 x 1.2 / 2 + 10 x 1.2 / 2 = 78 ft -> 0.64 x 78 = 49.92 kip.
     # One truck: 32 at 120, 32 at 106, 8 at 92 -> 38.4 + 33.92 + 7.36 = 79.68 kip -> 1.33 x 79.68 + 49.92.
@@ -97,8 +97,13 @@ def test_interior_reaction_two_truck_rule_by_hand(gerber, gerber_env):
     one = 1.33 * 79.68 + 49.92
     two = 0.9 * (1.33 * 103.2 + 49.92)
     assert two > one
-    assert row["R max [kip]"] == pytest.approx(two, rel=1e-12)
-    assert row["R max case"] == "90 % (two design trucks + lane)"
+    reference("HL-93, hinged girder, interior reaction at 100 ft: 0.9 (1.33 x 103.2 + 49.92)", expected=two,
+              computed=row["R max [kip]"], rel=1e-12, unit="kip",
+              source="AASHTO LRFD Bridge Design Specifications; hand calculation from the influence line",
+              clause="3.6.1.2, 3.6.1.3.1 (two-truck rule, from memory)", from_memory=True)
+    reference("the two-truck rule governs the interior reaction", expected="90 % (two design trucks + lane)",
+              computed=row["R max case"], source="AASHTO LRFD Bridge Design Specifications", clause="3.6.1.3.1",
+              from_memory=True)
     # end supports: the rule does not apply
     assert "two design trucks" not in gerber_env.reactions.set_index("x [ft]").loc[0.0, "R max case"]
 
@@ -118,16 +123,22 @@ def test_absolute_maximum_moment_is_at_least_every_section(gerber_env):
     assert 0 < float(best.quantity.at) < 250 and best.quantity.kind == "moment"
 
 
-def test_simple_span_envelope_under_a_uniform_load():
+def test_simple_span_envelope_under_a_uniform_load(reference):
     # closed form: M max(x) = w x (L - x) / 2, V max(x) = w (L - x)^2 / (2L), V min(x) = -w x^2 / (2L);
     # absolute maximum w L^2 / 8 at midspan
     L, w = 36.0, 2.5
     env = envelope(ilkit.Beam(L, {0: "pin", L: "roller"}, units="kN-m"), UniformLoad(w, units="kN-m"), divisions=12)
     x = env.sections["x [m]"].to_numpy()
-    assert env.sections["M max [kN·m]"].to_numpy() == pytest.approx(w * x * (L - x) / 2)
-    assert env.sections["V max [kN]"].to_numpy() == pytest.approx(w * (L - x) ** 2 / (2 * L))
-    assert env.sections["V min [kN]"].to_numpy() == pytest.approx(-w * x**2 / (2 * L))
-    assert env.absolute_maximum_moment.value == pytest.approx(w * L**2 / 8)
+    ref = dict(rel=1e-12, abs=1e-12, source="closed forms for a uniform load on a simple span (common practice)",
+               clause="areas of the influence lines")
+    reference("M max(x) = w x (L - x) / 2 at twelfth points", expected=w * x * (L - x) / 2,
+              computed=env.sections["M max [kN·m]"].to_numpy(), unit="kN·m", **ref)
+    reference("V max(x) = w (L - x)² / (2L)", expected=w * (L - x) ** 2 / (2 * L),
+              computed=env.sections["V max [kN]"].to_numpy(), unit="kN", **ref)
+    reference("V min(x) = -w x² / (2L)", expected=-w * x**2 / (2 * L), computed=env.sections["V min [kN]"].to_numpy(),
+              unit="kN", **ref)
+    reference("absolute maximum moment w L² / 8", expected=w * L**2 / 8, computed=env.absolute_maximum_moment.value,
+              unit="kN·m", **ref)
 
 
 def test_extra_sections_and_lookup_of_a_governing_placement(gerber):
@@ -179,3 +190,95 @@ def test_continuous_girder_envelope():
     scan = [place(beam.moment(a), hl93(), beam=beam).value for a in np.arange(at - 2, at + 2.01, 0.25)]
     assert best.value >= max(scan) - 1e-9
     assert best.value - max(scan) < 1e-3 * best.value
+
+
+# ------------------------------------------- every support kind (regression: ties were sorted on result objects)
+# Our own beams (kN, m), one per kind of support or release.  Where the moment jumps over a support (an
+# interior fixed support, a rotational spring) the two faces at one position carry different extremes, and
+# ordering the samples by position once fell through to comparing Extreme objects: TypeError.
+EVERY_SUPPORT_KIND = {
+    "pin and roller": ilkit.Beam(24, {0: "pin", 24: "roller"}, units="kN-m"),
+    "fixed at both ends": ilkit.Beam(24, {0: "fixed", 24: "fixed"}, EI=1e5, units="kN-m"),
+    "fixed end and roller": ilkit.Beam(24, {0: "fixed", 24: "roller"}, EI=1e5, units="kN-m"),
+    "interior fixed support": ilkit.Beam(26, {0: "pin", 10: "fixed", 26: "roller"}, EI=1e5, units="kN-m"),
+    "interior vertical spring": ilkit.Beam(
+        30, {0: "pin", 12: ilkit.Spring(vertical=4000), 30: "roller"}, EI=1e5, units="kN-m"
+    ),
+    "interior rotational spring": ilkit.Beam(
+        30, {0: "pin", 12: ilkit.Spring(rotational=2e4), 30: "roller"}, EI=1e5, units="kN-m"
+    ),
+    "end rotational spring": ilkit.Beam(
+        20, {0: ilkit.Spring(rotational=3e4), 20: "roller"}, EI=1e5, units="kN-m"
+    ),
+    "settling fixed end": ilkit.Beam(
+        20, {0: ilkit.Spring(vertical=5000, rotational="rigid"), 14: "roller"}, EI=1e5, units="kN-m"
+    ),
+    "hinge": ilkit.Beam(30, {0: "fixed", 24: "roller"}, hinges=[9], units="kN-m"),
+    "shear release": ilkit.Beam(30, {0: "fixed", 20: "roller", 30: "roller"}, shear_releases=[8], EI=1e5,
+                                units="kN-m"),
+}
+# our own two-axle vehicle and lane load, placed together
+PAIR = ilkit.Combination(
+    "pair and lane",
+    [AxleTrain([80, 120], [3.5], units="kN-m", name="pair"), UniformLoad(6, units="kN-m", name="lane")],
+)
+
+
+@pytest.mark.parametrize("name", list(EVERY_SUPPORT_KIND))
+def test_envelope_on_every_support_kind_matches_placement_on_each_line(name):
+    beam = EVERY_SUPPORT_KIND[name]
+    env = envelope(beam, PAIR, divisions=4)
+    for _, row in env.sections.iterrows():
+        side = row["side"] or None
+        m = extremes(beam.moment(row["x [m]"], side=side), PAIR, beam=beam)
+        v = extremes(beam.shear(row["x [m]"], side=side), PAIR, beam=beam)
+        assert (row["M max [kN·m]"], row["M min [kN·m]"]) == (m.maximum.value, m.minimum.value)
+        assert (row["V max [kN]"], row["V min [kN]"]) == (v.maximum.value, v.minimum.value)
+    assert list(env.reactions["x [m]"]) == [float(s.at) for s in beam.supports]
+    for _, row in env.reactions.iterrows():
+        r = extremes(beam.reaction(row["x [m]"]), PAIR, beam=beam)
+        assert (row["R max [kN]"], row["R min [kN]"]) == (r.maximum.value, r.minimum.value)
+    best = env.absolute_maximum_moment
+    assert best.value >= env.sections["M max [kN·m]"].max()
+    assert best.value == place(beam.moment(best.quantity.at), PAIR, beam=beam).value
+
+
+def test_envelope_ties_at_an_interior_fixed_support_do_not_compare_results():
+    # Propped cantilevers on either side of the fixed support at x = 10: spans of 10 m and 16 m.  Beam fixed at
+    # one end and simply supported at the other under a uniform load w (AISC Steel Construction Manual, Table
+    # 3-23, case 12, from memory; also the compatibility of the prop): fixed-end moment -w l^2 / 8, largest
+    # sagging moment 9 w l^2 / 128 at 3 l / 8 from the simple support.  Each line is single-signed, so a lane
+    # load that may be broken covers the whole span.
+    beam = EVERY_SUPPORT_KIND["interior fixed support"]
+    w = 5
+    env = envelope(beam, UniformLoad(w, units="kN-m"), divisions=8)
+    rows = env.sections.set_index(["x [m]", "side"])
+    assert rows.loc[(10.0, "left"), "M min [kN·m]"] == pytest.approx(-w * 10**2 / 8, rel=1e-12)
+    assert rows.loc[(10.0, "right"), "M min [kN·m]"] == pytest.approx(-w * 16**2 / 8, rel=1e-12)
+    assert rows.loc[(3.75, ""), "M max [kN·m]"] == pytest.approx(9 * w * 10**2 / 128, rel=1e-12)
+    assert rows.loc[(20.0, ""), "M max [kN·m]"] == pytest.approx(9 * w * 16**2 / 128, rel=1e-12)
+    best = env.absolute_maximum_moment
+    assert best.value == pytest.approx(9 * w * 16**2 / 128, rel=1e-9)
+    assert float(best.quantity.at) == pytest.approx(20, abs=1e-4)
+    # each face's placement is the one behind its own row
+    assert env.extreme("moment", 10, "min", side="right").value == rows.loc[(10.0, "right"), "M min [kN·m]"]
+
+
+def test_symmetric_girder_reports_both_mirror_positions_of_the_absolute_maximum():
+    # regression: a symmetric girder's absolute maximum was given at one of two mirror positions without a word.
+    # Two equal moving loads P at d on a simple span L (AISC Steel Construction Manual, Table 3-23, case 44,
+    # from memory): M max = P (2L - d)^2 / (8L), under one load at d/4 from midspan, on either side.
+    P, d, L = 180, 3.2, 12
+    trolley = AxleTrain([P, P], [d], units="kN-m", name="trolley")
+    env = envelope(ilkit.Beam(L, {0: "pin", L: "roller"}, units="kN-m"), trolley, divisions=12)
+    assert env.absolute_maximum_moment.value == pytest.approx(P * (2 * L - d) ** 2 / (8 * L), rel=1e-9)
+    assert env.absolute_maximum_positions == pytest.approx((L / 2 - d / 4, L / 2 + d / 4), abs=1e-5 * L)
+    # the continuous girder of the demo is symmetric too (90 + 115 + 90 ft): mirror positions about 147.5
+    env = envelope(ilkit.Beam(295, {0: "pin", 90: "roller", 205: "roller", 295: "roller"}, EI=1, units="kip-ft"),
+                   hl93(), divisions=10)
+    a, b = env.absolute_maximum_positions
+    assert a + b == pytest.approx(295, abs=1e-4) and a < 147.5 < b
+    # a girder that is not symmetric has one
+    env = envelope(ilkit.Beam(30, {0: "pin", 12: "roller", 30: "roller"}, EI=1, units="kN-m"),
+                   UniformLoad(5, units="kN-m"), divisions=10)
+    assert len(env.absolute_maximum_positions) == 1

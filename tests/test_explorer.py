@@ -485,3 +485,127 @@ def test_close_closes_every_control(girder):
     controls = [explorer.quantity, explorer.location, explorer.slider, explorer.position, explorer.readout]
     explorer.close()
     assert all(c.comm is None for c in controls)
+
+
+@pytest.mark.parametrize(
+    "supports",
+    [{0: "pin", 10: "fixed", 26: "roller"}, {0: "pin", 10: ilkit.Spring(rotational=2e4), 26: "roller"}],
+    ids=["interior fixed support", "interior rotational spring"],
+)
+def test_envelope_toggle_on_a_beam_whose_moment_jumps_at_a_support(supports):
+    # regression: the envelope sorted ties of two faces on result objects (TypeError in the toggle's callback)
+    beam = ilkit.Beam(26, supports, EI=1e5, units="kN-m")
+    lane = ilkit.UniformLoad(5, units="kN-m", name="lane")
+    explorer = Explorer(beam, [lane], quantity="moment", at=10, side="right", backend="inline")
+    explorer.envelope.value = True
+    explorer.redraw()
+    env = ilkit.envelope(beam, lane)
+    drawn = next(a for a in explorer._figure.ax_line.get_lines() if a.get_gid() == "smallest")
+    assert sorted(drawn.get_ydata()) == pytest.approx(sorted(env.sections["M min [kN·m]"]), rel=1e-12)
+    assert "ilkit-error" not in explorer.message.value
+    explorer.close()
+
+
+# ------------------------------------------------------------ mix-ups (regressions: each fault by name)
+def test_two_loads_with_the_same_name_are_refused(continuous):
+    # regression: the second load silently replaced the first in the chooser and the envelope view
+    other = ilkit.AxleTrain([50, 50], [2.0], units="kN-m", name="five-axle vehicle")
+    with pytest.raises(ilkit.LoadInputError, match="is named 'five-axle vehicle', as is another load"):
+        Explorer(continuous, [VEHICLE, other], backend="inline")
+    with pytest.raises(ilkit.LoadInputError, match="named '1', as is another load"):
+        Explorer(continuous, {1: VEHICLE, "1": other}, backend="inline")
+    with pytest.raises(ilkit.LoadInputError, match="as is the explorer's unit load"):
+        Explorer(continuous, [ilkit.AxleTrain([1], [], units="kN-m", name="unit load")], backend="inline")
+    # a load named like a model's part: both would be offered as 'HL-93: design truck'
+    clash = ilkit.AxleTrain([100], [], units="kip-ft", name="HL-93: design truck")
+    with pytest.raises(ilkit.LoadInputError, match=r"two loads would be offered as 'HL-93: design truck'"):
+        Explorer(continuous, [ilkit.loads.hl93(), clash], backend="inline")
+    # explicit names in a mapping tell them apart
+    explorer = Explorer(continuous, {"vehicle A": VEHICLE, "vehicle B": other}, backend="inline")
+    assert list(explorer.load.options) == ["unit load", "vehicle A", "vehicle B"]
+    explorer.load.value = "vehicle B"
+    explorer.position.value = 40.0
+    assert explorer.value == ilkit.stand(explorer.line, other, 40.0).effect
+    explorer.close()
+
+
+def test_an_error_from_a_bad_entry_is_cleared_by_the_next_valid_move(continuous):
+    # regression: the message of a bad entry stayed on screen after later valid moves
+    explorer = Explorer(continuous, [VEHICLE], backend="inline")
+    explorer.load.value = "five-axle vehicle"
+    moves = [
+        ("slider", lambda: setattr(explorer.slider, "value", explorer.slider.value + 3)),
+        ("direction", lambda: setattr(explorer.direction, "value", "right to left")),
+        ("largest", lambda: explorer.largest.click()),
+        ("envelope", lambda: setattr(explorer.envelope, "value", not explorer.envelope.value)),
+    ]
+    for name, move in moves:
+        explorer.position.value = 1e4  # a bad entry
+        assert "outside the load's travel" in message(explorer), name
+        move()
+        assert explorer.message.value == "", name
+    explorer.location.value = "abc"  # a bad section, then a move of the load
+    assert "cannot read 'abc'" in message(explorer)
+    explorer.slider.value -= 1
+    assert explorer.message.value == ""
+    # a note (not an error) stays: the face shown where the quantity jumps
+    explorer.quantity.value = "shear"
+    explorer.location.value = "30"
+    explorer.slider.value += 1
+    assert "jumps at x = 30" in message(explorer)
+    explorer.close()
+
+
+def test_an_envelope_that_cannot_be_drawn_turns_its_toggle_off_with_the_reason():
+    bare = ilkit.Beam(20, {0: "pin", 20: "roller"})
+    explorer = Explorer(bare, [VEHICLE], backend="inline")
+    explorer.envelope.value = True
+    explorer.redraw()
+    assert explorer.envelope.value is False and "declares no units" in message(explorer)
+    assert "Showing the influence line" in message(explorer)
+    explorer.slider.value += 2
+    assert explorer.message.value == ""
+    explorer.close()
+
+
+# ---------------------------------------------------- words and units (regressions: each fault by name)
+def test_controls_and_read_out_say_what_each_number_contains(continuous):
+    explorer = Explorer(continuous, [VEHICLE], quantity="moment", at=50, backend="inline")
+    # every box has a label with its unit (regression: the position box had none; "at x =" had no unit)
+    assert explorer.location.description == "at x [m]"
+    assert explorer.position.description == "load at x [m]"
+    assert explorer.model.description == "load model"  # regression: the control was labelled "of"
+    assert [label for label, _ in explorer.side.options] == ["left side", "right side"]  # one word, as side=
+    explorer.redraw()
+    assert explorer._figure.ax_line.get_title(loc="left") == "Influence line: bending moment M at x = 50 m"
+    assert "most negative" in explorer.smallest.tooltip
+    explorer.load.value = "five-axle vehicle"
+    assert "effect of this load alone (unfactored" in explorer.readout.value
+    explorer.envelope.value = True
+    text = explorer.readout.value
+    assert "five-axle vehicle here (the governing case, factored" in text and "smallest (most negative)" in text
+    assert "qualified engineer" in explorer.caution.value and explorer.caution in explorer.widget.children
+    explorer.quantity.value = "shear"
+    explorer.location.value = "30"
+    assert "showing the left side" in message(explorer) and "left face" not in explorer.readout.value
+    explorer.close()
+
+
+def test_deflection_read_out_is_in_millimetres_as_in_the_plot(continuous):
+    # regression: deflection lines were plotted in m/kN with a 1e-5 axis offset
+    explorer = Explorer(continuous, quantity="deflection", at=50, backend="inline")
+    explorer.position.value = 45.0
+    line = continuous.deflection(50)
+    assert explorer.value == line(45.0)  # the core value, in m/kN
+    assert shown_unit(explorer) == "mm/kN"
+    assert shown(explorer) == pytest.approx(1000 * line(45.0), rel=1e-4)
+    explorer.redraw()
+    ax = explorer._figure.ax_line
+    assert ax.get_ylabel() == "ordinate [mm/kN]"
+    ax.figure.canvas.draw()
+    assert ax.yaxis.get_offset_text().get_text() == ""
+    ticks = [(t.get_loc(), t.label1.get_text()) for t in ax.yaxis.get_major_ticks() if t.label1.get_text()]
+    assert len(ticks) >= 3
+    for loc, text in ticks:  # each label reads the tick's position in mm/kN
+        assert float(text.replace("−", "-")) == pytest.approx(1000 * loc, abs=1e-9)
+    explorer.close()

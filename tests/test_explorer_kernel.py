@@ -1,9 +1,10 @@
 """Fast slider drags in a real Jupyter kernel: every event updates the read-out, the redraws are coalesced.
 
 The test starts an ipykernel, opens an explorer in it, slows its redraw down
-to 50 ms, and sends 60 slider updates over the widget's comm, one every 5 ms
+to 200 ms, and sends 60 slider updates over the widget's comm, one every 5 ms
 (as a browser does during a fast drag).  Events that arrive while a redraw
-runs must not queue one redraw each behind it.
+runs must not queue one redraw each behind it.  The bounds hold on a slow or
+busy machine: a redraw covers every event that arrives within 200 ms.
 """
 
 from __future__ import annotations
@@ -24,7 +25,7 @@ draws, values = [], []
 _render = explorer._render
 def slow_render():
     draws.append(explorer.x)
-    time.sleep(0.05)
+    time.sleep(0.2)
     _render()
 explorer._redraw._callback = slow_render
 explorer.slider.observe(lambda change: values.append((explorer.x, explorer.value)), "value")
@@ -34,9 +35,13 @@ print(explorer.slider.model_id, explorer.slider.value)
 
 @pytest.fixture(scope="module")
 def kernel():
-    from jupyter_client.manager import start_new_kernel
+    from ilkit.demo import kernel_manager
 
-    manager, client = start_new_kernel(kernel_name="python3")
+    manager = kernel_manager()  # this Python, whatever kernelspecs the machine holds
+    manager.start_kernel()
+    client = manager.client()
+    client.start_channels()
+    client.wait_for_ready(timeout=120)
     yield client
     client.stop_channels()
     manager.shutdown_kernel(now=True)
@@ -64,10 +69,12 @@ def test_a_fast_drag_updates_every_read_out_and_coalesces_the_redraws(kernel):
         content = {"comm_id": slider, "data": {"method": "update", "state": {"value": step}, "buffer_paths": []}}
         kernel.session.send(kernel.shell_channel.socket, "comm_msg", content=content)
         time.sleep(0.005)
-    time.sleep(1.0)
+    deadline = time.monotonic() + 60  # until the last redraw has run (no fixed wait)
+    while run(kernel, "print(explorer._redraw.pending)").strip() == "True" and time.monotonic() < deadline:
+        time.sleep(0.1)
     check = "all(v == girder.moment(28)(x) for x, v in values)"
     report = run(kernel, f"print(len(values), len(draws), draws[-1] == explorer.x, {check})")
     events, redraws, last, exact = report.split()
     assert int(events) == 60 and exact == "True"  # every read-out, each the core's ordinate
-    assert int(redraws) <= 15  # about one redraw per 50 ms, not one per event
+    assert int(redraws) <= 15  # about one redraw per 200 ms of events, not one per event
     assert last == "True"  # the last redraw shows where the load stopped

@@ -49,35 +49,47 @@ def two_spans():
     return ilkit.Beam(2 * L, {0: "pin", L: "roller", 2 * L: "roller"}, EI=1, units="kN-m")
 
 
-def test_two_equal_spans_middle_reaction(two_spans) -> None:
+HANDBOOK = "handbook formulas for a simple span (common practice), the force method written out in the test"
+
+
+def test_two_equal_spans_middle_reaction(two_spans, reference) -> None:
     # Closed forms (flexibility method written out here): the primary structure is the simple span 2L;
     # its midspan deflection under a unit load at midspan is (2L)^3 / (48 EI) = L^3 / (6 EI) (handbook
     # formula), the flexibility coefficient; the deflection there under a unit load at x <= L is
     # x (3 (2L)^2 - 4 x^2) / (48 EI) (handbook formula), so R_B(x) = x (3L^2 - x^2) / (2L^3).
     d = derivation(two_spans.reaction(L, exact=True))
     flexibility = table_after(d, "Flexibility coefficients")
-    assert flexibility.rows[0][1].text == str(Fraction(L**3, 6))
-    assert "Redundants and primary structure" in d.to_text() and "supports pin at 0, roller at 20" in d.to_text()
-    for x in (Fraction(1), Fraction(5, 2), Fraction(7), Fraction(L)):
-        assert d.expression.subs(X, x) == x * (3 * L**2 - x**2) / (2 * L**3)
+    reference("printed flexibility coefficient: midspan deflection (2L)³ / (48 EI) = L³ / (6 EI)",
+              expected=str(Fraction(L**3, 6)), computed=flexibility.rows[0][1].text, source=HANDBOOK,
+              clause="simple span, load at midspan: P l³ / (48 EI)")
+    assert "Redundants and primary structure" in d.to_text() and "supports pin at 0 m, roller at 20 m" in d.to_text()
+    xs = (Fraction(1), Fraction(5, 2), Fraction(7), Fraction(L))
+    reference("derived R_B(x) = x (3L² - x²) / (2L³), x = 1, 5/2, 7, 10",
+              computed=[d.expression.subs(X, x) for x in xs],
+              expected=[x * (3 * L**2 - x**2) / (2 * L**3) for x in xs], source=HANDBOOK,
+              clause="simple span deflection x (3 l² - 4 x²) / (48 EI), l = 2L")
     # symmetric about the middle support
     assert d.expression.subs(X, 2 * L - Fraction(3)) == d.expression.subs(X, Fraction(3))
 
 
-def test_two_equal_spans_moment_over_the_support(two_spans) -> None:
+def test_two_equal_spans_moment_over_the_support(two_spans, reference) -> None:
     # Three-moment equation for two equal spans, unit load at a in the first span (common practice):
     # 2 M_B (L + L) = -a (L^2 - a^2) / L, so M_B(a) = -a (L^2 - a^2) / (4 L^2) (hogging negative).
     line = two_spans.moment(L, exact=True)
     d = derivation(line)
-    for a in (Fraction(2), Fraction(5), Fraction(17, 2)):
-        assert d.expression.subs(X, a) == -a * (L**2 - a**2) / (4 * L**2)
+    loads = (Fraction(2), Fraction(5), Fraction(17, 2))
+    reference("derived M_B(a) = -a (L² - a²) / (4L²), a = 2, 5, 17/2",
+              computed=[d.expression.subs(X, a) for a in loads],
+              expected=[-a * (L**2 - a**2) / (4 * L**2) for a in loads],
+              source="three-moment equation for two equal spans (common practice)",
+              clause="2 M_B (L + L) = -a (L² - a²) / L")
     assert same_pieces(force_method(two_spans, line.quantity, exact=True).line, line)
     # the float derivation prints the same numbers to six figures
     text = derivation(two_spans.moment(L)).to_text()
     assert "166.667·X_1(x) = δ_1(x)" in text and "Largest difference from the stiffness method" in text
 
 
-def test_spring_adds_one_over_k_and_fixed_end_releases_a_moment() -> None:
+def test_spring_adds_one_over_k_and_fixed_end_releases_a_moment(reference) -> None:
     # A span fixed at 0 and on a vertical spring k at L (EI = 1, L = 6).  The released restraint is the
     # fixity; the primary structure is the span pinned at 0 on the spring.  Closed form (written out here):
     # a unit couple at 0 turns the end by L/(3 EI) (handbook formula for a simple span) plus the rigid
@@ -86,7 +98,10 @@ def test_spring_adds_one_over_k_and_fixed_end_releases_a_moment() -> None:
     beam = ilkit.Beam(6, {0: "fixed", 6: ilkit.Spring(vertical=k)}, EI=1)
     fm = force_method(beam, Quantity("moment_reaction", Fraction(0)), exact=True)
     assert [r.words for r in fm.redundants] == ["moment reaction at x=0"]
-    assert fm.flexibility[0][0] == Fraction(6, 3) + 1 / (k * 36)
+    reference("flexibility of the fixity: L/(3 EI) + 1/(k L²), L = 6, EI = 1, k = 1/4",
+              expected=Fraction(6, 3) + 1 / (k * 36), computed=fm.flexibility[0][0],
+              source="handbook end rotation of a simple span under an end couple, L/(3 EI), plus the rigid turn "
+              "on the spring (common practice)", clause="written out in the test")
     assert same_pieces(fm.line, beam.moment_reaction(0, exact=True))
     # a spring that is itself released: 1/k on the diagonal, printed
     beam = ilkit.Beam(20, {0: "pin", 8: ilkit.Spring(vertical=3), 20: "roller"}, EI=[(0, 8, 2), (8, 20, 5)])

@@ -22,6 +22,9 @@ import pytest
 import ilkit
 from ilkit.loads import AxleTrain, KnifeEdge, UniformLoad, envelope, extremes, place
 
+RULES = "classic rules for moving concentrated loads on a simple span (structural-analysis handbooks)"
+COMMON = "common practice"
+
 
 def simple(L, units="kip-ft"):
     return ilkit.Beam(L, {0: "pin", L: "roller"}, units=units)
@@ -65,14 +68,16 @@ def rule_absolute_maximum(L, loads, spacings):
         (45, [12, 12, 30, 5], [3, 9, 2.5]),  # our own permit vehicle
     ],
 )
-def test_absolute_maximum_moment_follows_the_classic_rule(L, loads, spacings):
+def test_absolute_maximum_moment_follows_the_classic_rule(L, loads, spacings, reference):
     train = AxleTrain(loads, spacings, units="kip-ft")
     env = envelope(simple(L), train, divisions=20)
     expected = rule_absolute_maximum(L, loads, spacings)
-    assert env.absolute_maximum_moment.value == pytest.approx(expected, rel=1e-9)
+    reference(f"absolute maximum moment, {L} ft span, axles {loads} at {spacings} ft", expected=expected,
+              computed=env.absolute_maximum_moment.value, rel=1e-9, unit="kip·ft", source=RULES,
+              clause="span centre bisects the distance between a load and the resultant; " + COMMON)
 
 
-def test_design_truck_absolute_maximum_at_100_ft():
+def test_design_truck_absolute_maximum_at_100_ft(reference):
     # hand calculation from 3.6.1.2.2: resultant 72 kip at 14/3 ft behind the middle axle; with the
     # span centre halfway, M = 72/L (L/2 - 7/3)^2 - 8 x 14 = 1523.92 kip-ft at x = 50 -+ 7/3
     # (AASHTO Standard Specifications, 17th ed., Appendix A, HS20 truck, 100 ft span: 1524.0 kip-ft,
@@ -81,12 +86,16 @@ def test_design_truck_absolute_maximum_at_100_ft():
     best = env.absolute_maximum_moment
     L = 100
     hand = 72 / L * (L / 2 - 7 / 3) ** 2 - 8 * 14
-    assert best.value == pytest.approx(hand, rel=1e-10)
-    assert round(best.value, 0) == 1524.0
+    reference("design truck (14 ft), 100 ft span, absolute maximum moment: 72/L (L/2 - 7/3)² - 112", expected=hand,
+              computed=best.value, rel=1e-10, unit="kip·ft", source=RULES + "; AASHTO LRFD 3.6.1.2.2 axles",
+              clause="hand calculation in the test")
+    reference("the same, rounded: HS20 truck, 100 ft span", expected=1524.0, computed=round(best.value, 0),
+              unit="kip·ft", source="AASHTO Standard Specifications for Highway Bridges, 17th ed.",
+              clause="Appendix A, HS20 truck, 100 ft span", from_memory=True)
     assert min(abs(float(best.quantity.at) - (50 - 7 / 3)), abs(float(best.quantity.at) - (50 + 7 / 3))) < 1e-4
 
 
-def test_short_span_where_loads_leave_and_the_rule_alone_is_wrong():
+def test_short_span_where_loads_leave_and_the_rule_alone_is_wrong(reference):
     # design truck on a 20 ft span: the rule with all three axles puts the middle axle at
     # L/2 - 7/3 and the front axle 14 ft further, off the span, and would give 99.6 kip-ft.
     # With the axles that stay on: one 32 kip axle at midspan, P L / 4 = 160 kip-ft; two 32 kip axles
@@ -97,7 +106,8 @@ def test_short_span_where_loads_leave_and_the_rule_alone_is_wrong():
     assert front_axle < 0 and rule_value == pytest.approx(99.6, abs=0.05)
     env = envelope(simple(L), AxleTrain([8, 32, 32], [14, 14], units="kip-ft"), divisions=10)
     best = env.absolute_maximum_moment
-    assert best.value == pytest.approx(160.0, rel=1e-12)
+    reference("design truck, 20 ft span: one 32 kip axle at midspan, P L / 4", expected=160.0, computed=best.value,
+              rel=1e-12, unit="kip·ft", source=RULES, clause="P L / 4; " + COMMON)
     assert float(best.quantity.at) == 10.0
     counted = [a for a in best.placements[0].axles if a.counted]
     assert [a.load for a in counted] == [32.0] and counted[0].x == pytest.approx(10.0)
@@ -129,10 +139,12 @@ def criterion_maximum_at_section(L, a, loads, spacings):
         (90, 45, [12, 12, 30, 5], [3, 9, 2.5]),
     ],
 )
-def test_maximum_at_a_section_follows_the_criterion(L, a, loads, spacings):
+def test_maximum_at_a_section_follows_the_criterion(L, a, loads, spacings, reference):
     line = simple(L).moment(a)
     found = place(line, AxleTrain(loads, spacings, units="kip-ft"))
-    assert found.value == pytest.approx(criterion_maximum_at_section(L, a, loads, spacings), rel=1e-12)
+    reference(f"largest moment at {a} ft of a {L} ft span, axles {loads} at {spacings} ft",
+              expected=criterion_maximum_at_section(L, a, loads, spacings), computed=found.value, rel=1e-12,
+              unit="kip·ft", source=RULES, clause="criterion W_left / a <= W / L <= (W_left + P_k) / a; " + COMMON)
     # the governing placement has an axle exactly at the section
     assert any(abs(ax.x - a) < 1e-9 for ax in found.placements[0].axles)
 
@@ -160,48 +172,60 @@ def rule_end_shear(L, loads, spacings):
         (12, [10, 25, 25], [9, 4]),
     ],
 )
-def test_maximum_end_shear_follows_the_rule(L, loads, spacings):
+def test_maximum_end_shear_follows_the_rule(L, loads, spacings, reference):
     line = simple(L).shear(0)
     found = place(line, AxleTrain(loads, spacings, units="kip-ft"))
-    assert found.value == pytest.approx(rule_end_shear(L, loads, spacings), rel=1e-12)
+    reference(f"largest end shear, {L} ft span, axles {loads} at {spacings} ft",
+              expected=rule_end_shear(L, loads, spacings), computed=found.value, rel=1e-12, unit="kip",
+              source=RULES, clause="successive loads moved onto the support; " + COMMON)
 
 
-def test_design_truck_end_shear_at_100_ft():
+def test_design_truck_end_shear_at_100_ft(reference):
     # hand calculation: rear axle at the support, V = 32 + 32 x 86/100 + 8 x 72/100 = 65.28 kip
     # (AASHTO Standard Specifications, 17th ed., Appendix A, HS20, 100 ft: 65.3 kip, from memory)
     found = place(simple(100).shear(0), AxleTrain([8, 32, 32], [14, 14], units="kip-ft"))
-    assert found.value == pytest.approx(65.28, rel=1e-12)
+    reference("design truck (14 ft), 100 ft span, end shear: 32 + 32 x 0.86 + 8 x 0.72", expected=65.28,
+              computed=found.value, rel=1e-12, unit="kip", source=RULES, clause="hand calculation in the test")
+    reference("the same, rounded: HS20 truck, 100 ft span", expected=65.3, computed=round(found.value, 1), unit="kip",
+              source="AASHTO Standard Specifications for Highway Bridges, 17th ed.",
+              clause="Appendix A, HS20 truck, 100 ft span", from_memory=True)
 
 
 # ------------------------------------------------------------- crane wheels
 @pytest.mark.parametrize(("L", "d"), [(20, 3), (12, 4), (30, 10), (10, 5.5), (10, 8), (7, 6)])
-def test_two_equal_moving_loads_crane_wheel_formula(L, d):
+def test_two_equal_moving_loads_crane_wheel_formula(L, d, reference):
     # two equal loads P at d: the span centre bisects the distance between one load and the resultant
     # (d/2 away), so the load stands at L/2 - d/4 and M = P (2L - d)^2 / (8L); this beats one load at
     # midspan (P L / 4) only while d < (2 - sqrt 2) L
     P = 50.0
     expected = P * (2 * L - d) ** 2 / (8 * L) if d < (2 - 2**0.5) * L else P * L / 4
     env = envelope(simple(L, "kN-m"), AxleTrain([P, P], [d], units="kN-m"), divisions=8)
-    assert env.absolute_maximum_moment.value == pytest.approx(expected, rel=1e-9)
+    ref = dict(unit="kN·m", source="two equal moving loads on a simple span (crane-wheel formula, handbook beam "
+               "tables)", clause="P (2L - d)² / (8L) while d < (2 - √2) L, else P L / 4")
+    reference(f"absolute maximum moment, L = {L} m, d = {d} m", expected=expected,
+              computed=env.absolute_maximum_moment.value, rel=1e-9, **ref)
     section = L / 2 - d / 4 if d < (2 - 2**0.5) * L else L / 2
-    assert place(simple(L, "kN-m").moment(section), AxleTrain([P, P], [d], units="kN-m")).value == pytest.approx(
-        expected, rel=1e-12
-    )
+    reference(f"largest moment at {section:g} m, L = {L} m, d = {d} m", expected=expected,
+              computed=place(simple(L, "kN-m").moment(section), AxleTrain([P, P], [d], units="kN-m")).value,
+              rel=1e-12, **ref)
 
 
 # ------------------------------------------------------------- uniform loads
 @pytest.mark.parametrize(("L", "a"), [(20, 5), (20, 10), (33, 2.5), (8, 7)])
-def test_uniform_load_over_the_parts_of_each_sign(L, a):
+def test_uniform_load_over_the_parts_of_each_sign(L, a, reference):
     # simple span: M(a) line area a (L - a) / 2; V(a) line areas (L - a)^2 / (2L) and -a^2 / (2L)
     w = 12.5
     beam = simple(L, "kN-m")
     lane = UniformLoad(w, units="kN-m")
     m = extremes(beam.moment(a), lane)
-    assert m.maximum.value == pytest.approx(w * a * (L - a) / 2, rel=1e-12)
+    ref = dict(rel=1e-12, source="areas of a simple span's influence lines in closed form", clause=COMMON)
+    reference(f"uniform load, L = {L}, moment at {a}: w a (L - a) / 2", expected=w * a * (L - a) / 2,
+              computed=m.maximum.value, unit="kN·m", **ref)
     assert m.minimum.value == 0.0 and m.minimum.placements[0].patches == ()
     v = extremes(beam.shear(a), lane)
-    assert v.maximum.value == pytest.approx(w * (L - a) ** 2 / (2 * L), rel=1e-12)
-    assert v.minimum.value == pytest.approx(-w * a**2 / (2 * L), rel=1e-12)
+    reference(f"uniform load, L = {L}, shear at {a}: w (L - a)² / (2L) and -w a² / (2L)",
+              expected=[w * (L - a) ** 2 / (2 * L), -w * a**2 / (2 * L)], computed=[v.maximum.value, v.minimum.value],
+              unit="kN", **ref)
     (patch,) = v.minimum.placements[0].patches
     assert (patch.start, patch.end) == (0.0, a)
 
@@ -217,11 +241,12 @@ def test_uniform_load_equals_load_times_signed_area_on_hinged_beam():
         assert sum(p.end - p.start for p in e.maximum.placements[0].patches) <= 50
 
 
-def test_knife_edge_goes_to_the_largest_ordinate():
+def test_knife_edge_goes_to_the_largest_ordinate(reference):
     beam = ilkit.Beam(Fraction(30), {0: "pin", 20: "roller"}, units="kN-m")
     line = beam.moment(10)  # largest ordinate L a (L - a) / L = 5 at x = 10; smallest -5 at the tip x = 30
     e = extremes(line, KnifeEdge(120, units="kN-m"))
-    assert e.maximum.value == pytest.approx(600.0)
-    assert e.minimum.value == pytest.approx(-600.0)
+    reference("knife edge 120 kN: 120 x 5 at the section, 120 x (-5) at the tip", expected=[600.0, -600.0],
+              computed=[e.maximum.value, e.minimum.value], rel=1e-12, unit="kN·m",
+              source="closed-form moment line of a simple span with an overhang", clause=COMMON)
     assert e.minimum.placements[0].axles[0].x == 30.0
     assert e.maximum.placements[0].direction is None

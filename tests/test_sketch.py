@@ -8,6 +8,7 @@ import matplotlib
 import numpy as np
 import pytest
 from hypothesis import HealthCheck, given, settings
+from scenarios import built_in_girder
 from views_strategies import determinate_lines
 
 matplotlib.use("Agg")
@@ -42,7 +43,7 @@ def polygon_area(collection) -> float:
 
 
 def girder() -> ilkit.Beam:
-    return ilkit.Beam(30, {0: "fixed", 25: "roller"}, hinges=[10], units="kN-m")
+    return built_in_girder()
 
 
 @settings(max_examples=25, deadline=None, suppress_health_check=[HealthCheck.filter_too_much, HealthCheck.too_slow])
@@ -79,43 +80,44 @@ def test_sketch_labels_shape_and_shading_are_the_core_values(line: InfluenceLine
 
 
 def test_moment_sketch_shows_the_hinge_and_the_unit_kink() -> None:
-    line = girder().moment(5)
+    line = girder().moment(4.8)
     ax = sketch(line)
     (release,) = gids(ax, "release")
     assert release.get_gid() == "release"
     assert "kink 1 rad" in [a.get_text() for a in gids(ax, "imposed")]
-    # the existing hinge at x=10 sits on the displaced shape, at the core ordinate -5
-    (hinge,) = gids(ax, "hinge:10")
+    # the existing hinge at x=9.6 sits on the displaced shape, at the core ordinate -4.8
+    (hinge,) = gids(ax, "hinge:9.6")
     anchor = hinge.get_transform().transform((0, 0))
-    assert np.allclose(anchor, ax.transData.transform((10, line(10.0))))
+    assert np.allclose(anchor, ax.transData.transform((9.6, line(9.6))))
+    assert line(9.6) == pytest.approx(-4.8)  # derived by hand: the cantilever arm from the section to the hinge
     title = ax.get_title(loc="left")
     assert "Müller-Breslau" in title and "kN·m/kN" in title
 
 
 def test_shear_sketch_shows_the_release_and_the_unit_jump() -> None:
-    line = girder().shear(18)
+    line = girder().shear(15)
     ax = sketch(line)
     assert gids(ax, "release")
     imposed = gids(ax, "imposed")
     arrows = [a for a in imposed if a.get_text() == "" and a.arrow_patch is not None]
     (arrow,) = arrows
     (x0, y0), (x1, y1) = arrow.xyann, arrow.xy
-    assert (x0, x1) == (18.0, 18.0)
+    assert (x0, x1) == (15.0, 15.0)
     assert y1 - y0 == pytest.approx(1.0)  # the faces slide apart by the imposed unit displacement
-    assert (y0, y1) == (line.left(18.0), line.right(18.0))
+    assert (y0, y1) == (line.left(15.0), line.right(15.0))
     assert "1" in [a.get_text() for a in imposed]
 
 
 def test_reaction_sketch_lifts_the_released_support_by_one() -> None:
-    line = girder().reaction(25)
+    line = girder().reaction(31.2)
     ax = sketch(line)
-    released = gids(ax, "support:roller:25")
+    released = gids(ax, "support:roller:31.2")
     assert released and all(
         matplotlib.colors.same_color(a.get_edgecolor() if hasattr(a, "get_edgecolor") else a.get_color(), style.MUTED)
         for a in released
     )
     (arrow,) = [a for a in gids(ax, "imposed") if a.get_text() == ""]
-    assert arrow.xyann == (25.0, 0.0) and arrow.xy == (25.0, 1.0)
+    assert arrow.xyann == (31.2, 0.0) and arrow.xy == (31.2, 1.0)
     fixed = gids(ax, "support:fixed:0")
     assert fixed and not matplotlib.colors.same_color(fixed[0].get_color(), style.MUTED)
 
@@ -138,20 +140,21 @@ def test_sketch_needs_a_mechanism() -> None:
 
 
 def test_plot_line_labels_extremes_and_units() -> None:
-    line = girder().shear(18)
+    line = girder().shear(15)
     ax = plot_line(line)
     texts = {a.get_gid(): a.get_text() for a in gids(ax, "ordinate:")}
-    assert texts == {"ordinate:18:left": short(line.left(18.0)), "ordinate:18:right": short(line.right(18.0)),
-                     "ordinate:30:both": short(line.left(30.0))}
+    assert texts == {"ordinate:15:left": short(line.left(15.0)), "ordinate:15:right": short(line.right(15.0)),
+                     "ordinate:37.2:both": short(line.left(37.2))}
     assert ax.get_xlabel() == "load position x [m]" and ax.get_ylabel() == "ordinate [kN/kN]"
 
 
 def test_beam_diagram_has_every_symbol_and_the_span_lengths() -> None:
-    beam = ilkit.Beam(30, {0: "fixed", 14: "pin", 25: "roller"}, hinges=[10], shear_releases=[18], units="kip-ft")
+    beam = built_in_girder(supports={0: "fixed", 16.8: "pin", 31.2: "roller"}, shear_releases=[22.8], units="kip-ft")
     ax = draw_beam(beam)
-    for gid in ("support:fixed:0", "support:pin:14", "support:roller:25", "hinge:10", "shear-release:18", "beam"):
+    for gid in ("support:fixed:0", "support:pin:16.8", "support:roller:31.2", "hinge:9.6", "shear-release:22.8",
+                "beam"):
         assert gids(ax, gid), gid
-    assert [a.get_text() for a in gids(ax, "dimension-text")] == ["10 ft", "4 ft", "4 ft", "7 ft", "5 ft"]
+    assert [a.get_text() for a in gids(ax, "dimension-text")] == ["9.6 ft", "7.2 ft", "6 ft", "8.4 ft", "6 ft"]
     assert len(draw_spring(ax, 5.0)) > 1 and gids(ax, "spring:vertical:5")
     assert gids(ax, "spring:rotational:20") == [] and draw_spring(ax, 20.0, "rotational")
     with pytest.raises(ValueError, match="rotational"):
@@ -162,10 +165,10 @@ def test_drawing_keeps_global_style_untouched_and_svg_is_reproducible() -> None:
     before = dict(matplotlib.rcParams)
     from ilkit.views.display import line_figure
 
-    svg1 = style.figure_svg(line_figure(girder().moment(5)))
-    svg2 = style.figure_svg(line_figure(girder().moment(5)))
+    svg1 = style.figure_svg(line_figure(girder().moment(4.8)))
+    svg2 = style.figure_svg(line_figure(girder().moment(4.8)))
     assert svg1 == svg2
-    assert "kink 1 rad" in svg1 and ">-5<" in svg1  # text stays text; the label is the core value
+    assert "kink 1 rad" in svg1 and ">-4.8<" in svg1  # text stays text; the label is the core value
     assert dict(matplotlib.rcParams) == before
 
 
@@ -176,7 +179,7 @@ def test_missing_matplotlib_names_the_install(monkeypatch: pytest.MonkeyPatch) -
     with pytest.raises(ilkit.MissingDependencyError, match=r"pip install ilkit\[plot\]"):
         draw_beam(girder())
     with pytest.raises(ImportError):  # MissingDependencyError is also an ImportError
-        sketch(girder().moment(5))
+        sketch(girder().moment(4.8))
 
 
 def springs_beam() -> ilkit.Beam:

@@ -17,8 +17,10 @@ from ilkit import Spring
 from ilkit.analysis import method_for
 from ilkit.quantity import Quantity
 
+HANDBOOK = "handbook deflections of simple beams and cantilevers (common practice), force method in the test"
 
-def test_midspan_spring_under_a_simple_span():
+
+def test_midspan_spring_under_a_simple_span(reference):
     """Simple span L with a vertical spring k at midspan.
 
     Handbook: midspan deflection of a simple beam under a unit load at x <= L/2
@@ -29,16 +31,19 @@ def test_midspan_spring_under_a_simple_span():
     beam = ilkit.Beam(L, {0: "pin", L / 2: Spring(vertical=k), L: "roller"}, EI=EI)
     assert beam.degree == 1
     line = beam.reaction(L / 2, exact=True)
-    for x in [F(1), F(5, 2), F(4), F(6)]:
-        want = x * (3 * L**2 - 4 * x**2) / (48 * EI) / (1 / k + L**3 / (48 * EI))
-        assert line.ordinate_exact(x) == want
-        assert line.ordinate_exact(L - x) == want  # symmetry
+    xs = [F(1), F(5, 2), F(4), F(6)]
+    want = [x * (3 * L**2 - 4 * x**2) / (48 * EI) / (1 / k + L**3 / (48 * EI)) for x in xs]
+    clause = "R (1/k + L³/(48 EI)) = x (3L² - 4x²) / (48 EI)"
+    reference("spring force at midspan, load at 1, 5/2, 4, 6", expected=want,
+              computed=[line.ordinate_exact(x) for x in xs], source=HANDBOOK, clause=clause)
+    reference("spring force at midspan, mirrored loads (symmetry)", expected=want,
+              computed=[line.ordinate_exact(L - x) for x in xs], source=HANDBOOK, clause=clause)
     # the spring's settlement is its force over k: the deflection line at the spring
     xs = np.linspace(0, 12, 25)
     np.testing.assert_allclose(beam.deflection(L / 2)(xs), beam.reaction(L / 2)(xs) / float(k), atol=1e-15)
 
 
-def test_rotational_spring_at_the_end_of_a_propped_span():
+def test_rotational_spring_at_the_end_of_a_propped_span(reference):
     """Pin with a rotational spring k_r at x=0, roller at L.
 
     Handbook end rotation of a simple beam under a unit load at x:
@@ -50,9 +55,10 @@ def test_rotational_spring_at_the_end_of_a_propped_span():
     beam = ilkit.Beam(L, {0: Spring(rotational=kr), L: "roller"}, EI=EI)
     assert beam.degree == 1
     line = beam.moment_reaction(0, exact=True)
-    for x in [F(1), F(5, 2), F(6), F(11)]:
-        theta0 = x * (L - x) * (2 * L - x) / (6 * EI * L)
-        assert line.ordinate_exact(x) == theta0 / (1 / kr + L / (3 * EI))
+    xs = [F(1), F(5, 2), F(6), F(11)]
+    reference("spring moment at 0, load at 1, 5/2, 6, 11", computed=[line.ordinate_exact(x) for x in xs],
+              expected=[x * (L - x) * (2 * L - x) / (6 * EI * L) / (1 / kr + L / (3 * EI)) for x in xs],
+              source=HANDBOOK, clause="M (1/k_r + L/(3EI)) = θ0 = x (L - x)(2L - x) / (6 EI L)")
     # the spring moment is k_r times the rotation line at the support (counter-clockwise = resisting)
     xs = np.linspace(0, 12, 25)
     np.testing.assert_allclose(beam.moment_reaction(0)(xs), float(kr) * beam.rotation(0)(xs), atol=1e-12)
@@ -60,23 +66,28 @@ def test_rotational_spring_at_the_end_of_a_propped_span():
     np.testing.assert_allclose(beam.moment(0)(xs), -beam.moment_reaction(0)(xs), atol=1e-12)
     stiff = beam.replace(supports={0: Spring(rotational=F(10) ** 12), L: "roller"})
     fixed_end = np.array([x * (12 - x) * (24 - x) / (2 * 144) for x in xs])
-    np.testing.assert_allclose(stiff.moment_reaction(0)(xs), fixed_end, atol=1e-6)
+    reference("very stiff rotational spring: the fixed-end moment of a propped cantilever", expected=fixed_end,
+              computed=stiff.moment_reaction(0)(xs), abs=1e-6, source=HANDBOOK,
+              clause="x (L - x)(2L - x) / (2L²), 25 load positions")
 
 
-def test_cantilever_on_a_settling_fixed_support():
+def test_cantilever_on_a_settling_fixed_support(reference):
     """A fixed end on a vertical spring: the tip deflection under a unit load at x is the
     handbook cantilever value x² (3L - x) / (6 EI) plus the settlement 1/k (the support carries 1)."""
     L, EI, k = F(5), F(400), F(250)
     beam = ilkit.Beam(L, {0: Spring(vertical=k, rotational="rigid")}, EI=EI)
     assert beam.is_determinate
     tip = beam.deflection(L, exact=True)
-    for x in [F(1), F(5, 2), F(5)]:
-        assert tip.ordinate_exact(x) == x**2 * (3 * L - x) / (6 * EI) + 1 / k
+    xs = [F(1), F(5, 2), F(5)]
+    reference("tip deflection, load at 1, 5/2, 5: x² (3L - x) / (6 EI) + 1/k",
+              computed=[tip.ordinate_exact(x) for x in xs],
+              expected=[x**2 * (3 * L - x) / (6 * EI) + 1 / k for x in xs], source=HANDBOOK,
+              clause="cantilever deflection at the tip under a load at x, plus the settlement")
     assert beam.reaction(0)(2.0) == 1.0  # statics, exact kinematic line
     assert beam.moment_reaction(0)(2.0) == 2.0
 
 
-def test_determinate_beam_on_two_springs():
+def test_determinate_beam_on_two_springs(reference):
     """A simple span on two springs: force lines are those of statics (the exact
     kinematic path, springs or not); the deflection line adds the rigid-body settlement
     (1 - a/L)(1 - x/L)/k1 + (a/L)(x/L)/k2 to the handbook simple-span value."""
@@ -88,16 +99,20 @@ def test_determinate_beam_on_two_springs():
     assert beam.reaction(0).is_exact and beam.moment(a).is_exact
     assert beam.reaction(0).ordinate_exact(3) == F(7, 10)
     line = beam.deflection(a, exact=True)
-    for x in [F(1), F(4), F(15, 2)]:
+    xs = [F(1), F(4), F(15, 2)]
+    want = []
+    for x in xs:
         if x >= a:
             bending = (L - x) * a * (L**2 - (L - x) ** 2 - a**2) / (6 * EI * L)
         else:
             bending = x * (L - a) * (L**2 - x**2 - (L - a) ** 2) / (6 * EI * L)
-        settlement = (1 - a / L) * (1 - x / L) / k1 + (a / L) * (x / L) / k2
-        assert line.ordinate_exact(x) == bending + settlement
+        want.append(bending + (1 - a / L) * (1 - x / L) / k1 + (a / L) * (x / L) / k2)
+    reference("simple span on two springs, deflection at 4, load at 1, 4, 15/2", expected=want,
+              computed=[line.ordinate_exact(x) for x in xs], source=HANDBOOK,
+              clause="simple-beam deflection P b x (L² - b² - x²) / (6 EI L) plus the rigid-body settlement")
 
 
-def test_stiff_springs_make_a_rigid_continuous_beam():
+def test_stiff_springs_make_a_rigid_continuous_beam(reference):
     """Two-span beam: stiff springs under the pier tend to the rigid-pier closed form
     R2 = x (3L² - x²)/(2L³) (handbook, two equal spans)."""
     L = 10.0
@@ -107,7 +122,10 @@ def test_stiff_springs_make_a_rigid_continuous_beam():
     for k in (1e3, 1e6, 1e9):
         beam = ilkit.Beam(20, {0: "pin", 10: Spring(vertical=k), 20: "roller"}, EI=1000)
         gaps.append(np.max(np.abs(beam.reaction(10)(xs) - want)))
-    assert gaps[2] < 1e-8
+    reference("stiff pier spring (k = 1e9): R2 = x (3L² - x²)/(2L³), 21 load positions", expected=want,
+              computed=ilkit.Beam(20, {0: "pin", 10: Spring(vertical=1e9), 20: "roller"}, EI=1000).reaction(10)(xs),
+              abs=1e-8, source="handbook beam formulas (AISC, Beam Diagrams and Formulas)",
+              clause="continuous beam, two equal spans, concentrated load at any point", from_memory=True)
     assert gaps[0] > 100 * gaps[1] > 1e4 * gaps[2]
 
 

@@ -16,6 +16,7 @@ import pint
 import pytest
 from hypothesis import given
 from hypothesis import strategies as st
+from scenarios import built_in_girder
 
 import ilkit
 from ilkit.units import FLEXURAL_STIFFNESS, LENGTH, SYSTEMS, conversion, factor_to, magnitude_in
@@ -49,8 +50,8 @@ def test_metres_in_feet_beam_gives_round_feet() -> None:
 
 
 def test_mixed_length_units_on_a_declared_system_are_all_converted() -> None:
-    beam = ilkit.Beam(Q_(30, "m"), {0: "fixed", Q_(2500, "cm"): "roller"}, hinges=[Q_(10000, "mm")], units="kN-m")
-    assert beam == ilkit.Beam(30, {0: "fixed", 25: "roller"}, hinges=[10], units="kN-m")
+    beam = ilkit.Beam(Q_(37.2, "m"), {0: "fixed", Q_(3120, "cm"): "roller"}, hinges=[Q_(9600, "mm")], units="kN-m")
+    assert beam == built_in_girder()
 
 
 def test_flexural_stiffness_conversions() -> None:
@@ -81,25 +82,25 @@ def test_a_length_quantity_in_gives_the_exact_number_out(value: Fraction, unit: 
 
 
 def test_in_units_converts_every_number_and_round_trips() -> None:
-    beam = ilkit.Beam(30, {0: "fixed", 25: "roller"}, hinges=[10], shear_releases=[], EI=5000, units="kN-m")
+    beam = built_in_girder(shear_releases=[], EI=2.1e5)
     us = beam.in_units("kip-ft")
-    assert us.length == 30 / FT and us.supports[1].at == 25 / FT
-    assert us.EI == 5000 / (LBF * FT**2)
+    assert us.length == Fraction("37.2") / FT and us.supports[1].at == Fraction("31.2") / FT
+    assert us.EI == 210_000 / (LBF * FT**2)
     assert us.in_units("kN-m") == beam
 
 
 def test_lines_of_a_converted_beam_scale_as_their_units() -> None:
-    metric = ilkit.Beam(30, {0: "fixed", 25: "roller"}, hinges=[10], units="kN-m")
+    metric = built_in_girder()
     us = metric.in_units("kip-ft")
-    x_m = Fraction(27)
+    x_m = Fraction("34.2")
     x_ft = x_m / FT
     # a reaction line is force per force: the same number in any system
-    assert us.reaction(25 / FT).ordinate_exact(x_ft) == metric.reaction(25).ordinate_exact(x_m)
+    assert us.reaction(Fraction("31.2") / FT).ordinate_exact(x_ft) == metric.reaction(31.2).ordinate_exact(x_m)
     # a moment line is a length (force x length per force): feet = metres / 0.3048
-    assert us.moment(5 / FT).ordinate_exact(x_ft) == metric.moment(5).ordinate_exact(x_m) / FT
+    assert us.moment(Fraction("4.8") / FT).ordinate_exact(x_ft) == metric.moment(4.8).ordinate_exact(x_m) / FT
     # a load position given as a quantity is converted too
-    assert metric.moment(5)(Q_(x_ft, "ft")) == pytest.approx(metric.moment(5)(27.0), rel=1e-14)
-    assert metric.moment(Q_(500, "cm")) is metric.moment(5)
+    assert metric.moment(4.8)(Q_(x_ft, "ft")) == pytest.approx(metric.moment(4.8)(34.2), rel=1e-14)
+    assert metric.moment(Q_(480, "cm")) is metric.moment(4.8)
 
 
 def test_quantity_without_declared_units_names_the_fix() -> None:

@@ -9,12 +9,13 @@ import sys
 from pathlib import Path
 
 import nbformat
-from nbclient import NotebookClient
+
+from ilkit import demo  # runs notebooks in a kernel of this Python, on local sockets
 
 
 def execute(path: Path) -> None:
     nb = nbformat.read(path, as_version=4)
-    NotebookClient(nb, timeout=600, kernel_name="python3", resources={"metadata": {"path": str(path.parent)}}).execute()
+    demo.execute(nb, cwd=path.parent)
     for cell in nb.cells:
         cell.metadata.pop("execution", None)
     nbformat.write(nb, path)

@@ -80,9 +80,8 @@ lines = {
     "M over pier x=60 [kN·m/kN]": girder.moment(pier),
     "M at midspan x=80 [kN·m/kN]": girder.moment(mid),
     "V right of pier x=60 [kN/kN]": girder.shear(pier, side="right"),
-    "deflection at x=80 [mm per 100 kN]": girder.deflection(mid),
+    "deflection at x=80 [mm/kN]": girder.deflection(mid),
 }
-scale = {"deflection at x=80 [mm per 100 kN]": 1e5}   # m/kN -> mm per 100 kN (for the table below)
 
 fig, axes = plt.subplots(len(lines), 1, figsize=(7.5, 12), layout="constrained")
 for ax, line in zip(axes, lines.values()):
@@ -105,17 +104,8 @@ The largest and smallest ordinates with their positions, and the areas of the
 positive and negative parts (a uniform lane load of 1 kN/m on those parts).
 """),
     ("code", """
-rows = []
-for name, line in lines.items():
-    s = scale.get(name, 1)
-    rows.append({
-        "quantity": name,
-        "max": line.maximum.value * s, "at x": line.maximum.x,
-        "min": line.minimum.value * s, "at x ": line.minimum.x,
-        "area +": line.positive_area * s, "area -": line.negative_area * s,
-    })
-table = pd.DataFrame(rows).set_index("quantity")
-print(table.round(3).to_string())
+# deflections in mm/kN, as in the plots; each row says its units
+print(views.summary(lines).round(4).to_string())
 """),
     ("md", """
 Each line is stored as exact cubic pieces between its breakpoints; here are
@@ -177,20 +167,29 @@ for label, beam in (("rigid pier", girder), ("elastic pier", soft)):
 
 For a small beam with exact inputs, ask for `exact=True`: the line comes in
 rational arithmetic and `line.expr` is a piecewise cubic that can go into a
-calculation as it stands. A two-span beam of 8 m and 12 m, stiffer over the
-pier (EI 3 units from 6 to 10 m, 2 units elsewhere): the moment over the pier
-for a unit load at *x*:
+calculation as it stands. Another scenario of our own: a two-span footbridge
+girder of 16.5 m and 21 m, with a plate welded over the pier that raises its
+flexural stiffness from 120 to 180 MN·m² for 3 m either side of it. The moment
+over the pier for a unit load at *x* (kN·m per kN):
 """),
     ("code", """
-small = ilkit.Beam(20, {0: "pin", 8: "roller", 20: "roller"}, EI=[(0, 6, 2), (6, 10, 3), (10, 20, 2)])
-exact_line = small.moment(8, exact=True)
+footbridge = ilkit.Beam(
+    37.5, {0: "pin", 16.5: "roller", 37.5: "roller"},
+    EI=[(0, 13.5, 1.2e5), (13.5, 19.5, 1.8e5), (19.5, 37.5, 1.2e5)],   # kN·m²
+    units="kN-m",
+)
+exact_line = footbridge.moment(16.5, exact=True)
 print(exact_line.is_exact)
 print(exact_line.expr)
-print("ordinate for the load at x=4:", exact_line.ordinate_exact(4))
+eta = exact_line.ordinate_exact(8.25)   # the load at midspan of the first span
+print(f"ordinate for the load at x = 8.25 m: {eta} = {float(eta):.4f} kN·m/kN")
+"""),
+    ("code", """
+views.formula(exact_line, 5)   # the same line with decimal coefficients, for reading
 """),
     ("md", """
 How that line is obtained, written out for the calculation package by the
-force method: the pier reaction is released, leaving a simple span of 20 m
+force method: the pier reaction is released, leaving a simple span of 37.5 m
 (the primary structure); the flexibility coefficient is the primary
 structure's deflection at the pier under a unit force there; compatibility
 gives the redundant for every load position; the pier moment follows by

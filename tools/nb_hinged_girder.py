@@ -36,7 +36,8 @@ Three rigid parts (6 unknown movements) held by four supports and two hinges
 (6 conditions): the girder is statically determinate and stable.
 """),
     ("code", """
-girder.is_determinate, girder.degree, girder.parts
+print(f"determinate: {girder.is_determinate}, degree of indeterminacy: {girder.degree}")
+print("rigid parts:", ", ".join(f"{float(a):g} to {float(b):g} m" for a, b in girder.parts))
 """),
     ("md", """
 ## Influence lines
@@ -47,6 +48,8 @@ the sagging moment at the middle of the anchor span and at the middle of the
 suspended span.
 """),
     ("code", """
+from ilkit import views
+
 lines = {
     "R at pier B (x=32)": girder.reaction(32),
     "M over pier B (x=32)": girder.moment(32),
@@ -56,11 +59,9 @@ lines = {
     "M mid suspended span (x=54)": girder.moment(54),
 }
 for name, line in lines.items():
-    print(f"{name:30s} {line.expr}")
+    print(f"{name:30s} {views.formula(line, None)}")   # the exact line, each stretch once
 """),
     ("code", """
-from ilkit import views
-
 fig, axes = plt.subplots(len(lines) + 1, 1, figsize=(9, 2.2 * (len(lines) + 1)), sharex=True)
 views.draw_beam(girder, ax=axes[0], title="The girder")
 for ax, (name, line) in zip(axes[1:], lines.items()):
@@ -77,18 +78,7 @@ Ordinates just left and right of every breakpoint, and the areas for uniform loa
 girder.moment(32).ordinates().round(4)
 """),
     ("code", """
-summary = pd.DataFrame(
-    {
-        "max": [line.maximum.value for line in lines.values()],
-        "at x [m]": [line.maximum.x for line in lines.values()],
-        "min": [line.minimum.value for line in lines.values()],
-        "at x [m] ": [line.minimum.x for line in lines.values()],
-        "positive area": [line.positive_area for line in lines.values()],
-        "negative area": [line.negative_area for line in lines.values()],
-    },
-    index=list(lines),
-).round(4)
-summary
+views.summary(lines).round(4)   # extremes with their positions, areas, and the units of each
 """),
     ("md", """
 ## A check by hand

@@ -129,8 +129,10 @@ round(float(lane.effect), 2), round(float(0.64 * line.positive_area), 2)
 ## Envelope along the girder
 
 Largest and smallest moment and shear at twentieth points of every span (both
-faces at the piers), the reaction envelope and the absolute maximum moment,
-searched between the sections to 1e-6 of the girder length.
+sides of the piers), the reaction envelope and the absolute maximum moment,
+searched between the sections to 1e-6 of the girder length. The girder and
+the load model are symmetric, so the absolute maximum is attained at two
+mirror positions; both are listed.
 """),
     ("code", """
 env = loads.envelope(girder, hl93, divisions=20)
@@ -138,7 +140,7 @@ env.reactions.round(1)
 """),
     ("code", """
 best = env.absolute_maximum_moment
-round(best.value, 1), round(float(best.quantity.at), 3), best.case
+round(best.value, 1), [round(p, 3) for p in env.absolute_maximum_positions], best.case
 """),
     ("code", """
 fig, (top, middle, bottom) = plt.subplots(3, 1, figsize=(7.5, 8), layout="constrained")
@@ -215,7 +217,8 @@ best = crane.absolute_maximum_moment
 # two equal moving loads P at d on a simple span L (handbook formula): P (2L - d)^2 / (8L),
 # under the load that stands at L/2 - d/4
 hand, at = 180 * (2 * 12 - 3.2) ** 2 / (8 * 12), 12 / 2 - 3.2 / 4
-round(best.value, 2), round(hand, 2), round(float(best.quantity.at), 4), at
+# the runway is symmetric: the maximum is attained under either load, d/4 either side of midspan
+round(best.value, 2), round(hand, 2), [round(p, 4) for p in crane.absolute_maximum_positions], (at, 12 - at)
 """),
     ("md", """
 ## The calculation sheet

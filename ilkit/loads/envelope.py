@@ -1,7 +1,7 @@
 """Envelopes: the largest and smallest moment and shear at sections along a beam under a load model.
 
 Sections are the ends, every support, every release and equal divisions of
-each span and overhang.  At interior supports and releases both faces are
+each span and overhang.  At interior supports and releases both sides are
 listed (``side`` ``"left"`` and ``"right"``).  The reaction envelope covers
 every support; the absolute maximum moment is searched along the whole beam
 and refined to 1e-6 of the beam length.  Sign conventions are those of
@@ -50,7 +50,9 @@ class Envelope(RichDisplay):
     releases), with the largest and smallest moment and shear and the
     governing case of each.  ``reactions``: one row per support.
     ``absolute_maximum_moment``: the largest sagging moment anywhere, with its
-    section in ``.quantity.at``.  Column names carry the units.
+    section in ``.quantity.at``; ``absolute_maximum_positions`` lists every
+    section that attains it (both mirror positions of a symmetric girder).
+    Column names carry the units.
     """
 
     beam: Beam
@@ -59,6 +61,11 @@ class Envelope(RichDisplay):
     reactions: pd.DataFrame = field(repr=False)
     absolute_maximum_moment: Extreme
     _found: dict[tuple[str, Fraction, Side | None], Extremes] = field(repr=False, compare=False)
+    load_model: LoadModel | None = field(default=None, repr=False, compare=False)
+    """The load model applied (in the beam's units): its cases give the parts of every factor."""
+    absolute_maximum_positions: tuple[float, ...] = ()
+    """Every section where the absolute maximum moment is attained (to :data:`SAME_VALUE`): two mirror
+    positions on a symmetric girder; ``absolute_maximum_moment`` is placed at one of them."""
 
     def __repr__(self) -> str:
         a = self.absolute_maximum_moment
@@ -82,7 +89,7 @@ class Envelope(RichDisplay):
         """The governing placement behind one entry of the tables.
 
         ``quantity`` is ``"moment"``, ``"shear"`` or ``"reaction"``; ``at`` a
-        section or support of the tables; ``side`` picks the face where there
+        section or support of the tables; ``side`` picks the side where there
         are two (the left one if not given).
         """
         kinds = ("moment", "shear", "reaction")
@@ -117,7 +124,9 @@ def envelope(
 
     ``divisions``: equal parts per span and per overhang (10 gives tenth
     points).  ``at``: further section positions.  The load is converted to
-    the beam's units; a beam without units is an error.
+    the beam's units; a beam without units is an error.  Values are in the
+    beam's units with the signs of :mod:`ilkit.model` (sagging moment positive,
+    reactions upward).
     """
     import pandas as pd
 
@@ -203,8 +212,10 @@ def envelope(
                 "R min case": r.minimum.case,
             }
         )
-    best = _absolute_maximum(beam, model, found, stations + releases)
-    return Envelope(beam, model.name, pd.DataFrame(rows), pd.DataFrame(reaction_rows), best, found)
+    best, positions = _absolute_maximum(beam, model, found, stations + releases)
+    return Envelope(
+        beam, model.name, pd.DataFrame(rows), pd.DataFrame(reaction_rows), best, found, model, positions
+    )
 
 
 def _absolute_maximum(
@@ -212,19 +223,31 @@ def _absolute_maximum(
     model: LoadModel,
     found: dict[tuple[str, Fraction, Side | None], Extremes],
     barriers: list[Fraction],
-) -> Extreme:
-    """Largest moment over all sections: the sampled local maxima refined on finer and finer grids."""
-    sampled = sorted(((k[1], e.maximum) for k, e in found.items() if k[0] == "moment"), key=lambda item: item[0])
-    xs = [float(p) for p, _ in sampled]
-    values = [e.value for _, e in sampled]
+) -> tuple[Extreme, tuple[float, ...]]:
+    """Largest moment over all sections: the sampled local maxima refined on each side of the sample
+    (:func:`_refine`); also every section that attains it.
+
+    The samples are ordered on plain keys (position, then the left side before
+    the right one): where the moment jumps (an interior fixed support, a
+    rotational spring) the two sides at one position carry different extremes,
+    and ties must never fall through to comparing result objects.  A side is
+    refined only on its own side of the jump.
+    """
+    face_order = {"left": 0, None: 1, "right": 2}
+    sampled = sorted(
+        ((k[1], k[2], e.maximum) for k, e in found.items() if k[0] == "moment"),
+        key=lambda s: (s[0], face_order[s[1]]),
+    )
+    xs = [float(p) for p, _, _ in sampled]
+    values = [e.value for _, _, e in sampled]
     top = max(values)
-    best = max((e for _, e in sampled), key=lambda e: e.value)
+    candidates = [e for _, _, e in sampled]
     if top <= 0:
-        return best
+        return _attained(candidates, beam)
     cuts = sorted(float(b) for b in barriers)
     tol = 1e-6 * float(beam.length)
-    brackets = []
-    for i, value in enumerate(values):
+    brackets: list[dict[float, Extreme]] = []
+    for i, (value, (_, side, sample)) in enumerate(zip(values, sampled)):
         neighbours = values[max(i - 1, 0) : i + 2]
         if value < max(neighbours) or value < 0.95 * top:
             continue
@@ -233,44 +256,74 @@ def _absolute_maximum(
         # stay between supports and releases, where the moment line is smooth in the section position
         lo = max([lo, *(c for c in cuts if c < xs[i])])
         hi = min([hi, *(c for c in cuts if c > xs[i])])
-        if hi - lo > 2 * tol:
-            here: dict[float, Extreme] = {}
-            for x, e in zip(xs, (e for _, e in sampled)):  # the sections searched already (both faces kept)
-                if lo <= x <= hi and (x not in here or e.value > here[x].value):
-                    here[x] = e
-            brackets.append(here)
-    found_here = _refine(beam, model, brackets, tol)
-    return found_here if found_here is not None and found_here.value > best.value else best
+        if side == "left":
+            hi = xs[i]
+        elif side == "right":
+            lo = xs[i]
+        # each side of the sample on its own: the moment may peak on both (mirror positions on a symmetric
+        # girder, where the sample at the axis of symmetry lies between two equal maxima)
+        for a, b in ((lo, xs[i]), (xs[i], hi)):
+            if b - a > 2 * tol:
+                end = b if a == xs[i] else a  # the other end: its sample on the bracket's face
+                here = {xs[i]: sample, end: _facing(sampled, end, "right" if end == a else "left")}
+                brackets.append(here)
+    candidates.extend(_refine(beam, model, brackets, tol))
+    return _attained(candidates, beam)
 
 
-def _refine(beam: Beam, model: LoadModel, brackets: list[dict[float, Extreme]], tol: float) -> Extreme | None:
-    """The largest moment in the brackets, by successive parabolas: through the best section known and its
-    neighbours, seven sections around the parabola's vertex (at three distances) are searched (those of
-    every bracket together), until the best section's neighbours are within ``tol`` of it.  The bracket always holds
-    the best section between two lower ones, so a kink slows the search but cannot mislead it."""
+def _facing(sampled: list[tuple[Fraction, Side | None, Extreme]], x: float, face: Side) -> Extreme:
+    """The sample at ``x`` on ``face`` (the only one where the moment does not jump there)."""
+    at = [(s, e) for p, s, e in sampled if float(p) == x]
+    return next((e for s, e in at if s == face), at[0][1])
+
+
+SAME_VALUE = 1e-9
+"""Relative difference below which two maxima found at different sections are the same value (a
+symmetric girder under a load that travels both ways attains its absolute maximum at mirror positions)."""
+
+
+def _attained(candidates: list[Extreme], beam: Beam) -> tuple[Extreme, tuple[float, ...]]:
+    """The largest candidate, and every distinct section where a candidate attains its value."""
+    best = max(candidates, key=lambda e: e.value)
+    near = SAME_VALUE * max(abs(best.value), 1e-300)
+    apart = 1e-5 * float(beam.length)
+    positions: list[float] = []
+    for e in sorted(candidates, key=lambda e: float(e.quantity.at)):
+        at = float(e.quantity.at)
+        if best.value - e.value <= near and all(abs(at - p) > apart for p in positions):
+            positions.append(at)
+    return best, tuple(positions)
+
+
+def _refine(beam: Beam, model: LoadModel, brackets: list[dict[float, Extreme]], tol: float) -> list[Extreme]:
+    """The largest moment in each bracket (given by the sections known in it, ends included), by
+    successive parabolas: through the best section known and its neighbours, seven sections around the
+    parabola's vertex (at three distances) are searched, those of every bracket together, until the best
+    section's neighbours are within ``tol`` of it.  The bracket always holds the best section between two
+    lower ones (or an end), so a kink slows the search but cannot mislead it."""
     known = [dict(b) for b in brackets]  # section -> its largest moment
-    best: Extreme | None = None
     todo: list[tuple[int, float]] = []
     for _ in range(_ROUNDS):
         if todo:
             found = maxima_of([beam.moment(x) for _, x in todo], model, beam=beam)
             for (k, x), e in zip(todo, found):
                 known[k][x] = e
-                if best is None or e.value > best.value:
-                    best = e
         todo = []
         for k, samples in enumerate(known):
             xs = sorted(samples)
-            values = [samples[x].value for x in xs]  # type: ignore[union-attr]
+            values = [samples[x].value for x in xs]
             i = max(range(len(xs)), key=lambda n: values[n])
             left, right = xs[max(i - 1, 0)], xs[min(i + 1, len(xs) - 1)]
             if right - left <= 2 * tol:
                 continue
-            x0, x1, x2 = left, xs[i], right
-            f0, f1, f2 = (samples[x].value for x in (x0, x1, x2))  # type: ignore[union-attr]
-            den = (x1 - x0) * (f1 - f2) - (x1 - x2) * (f1 - f0)
-            num = (x1 - x0) ** 2 * (f1 - f2) - (x1 - x2) ** 2 * (f1 - f0)
-            vertex = x1 - 0.5 * num / den if den != 0 else x1
+            if len(xs) < 3:  # the two ends alone: the middle first
+                vertex = 0.5 * (xs[0] + xs[-1])
+            else:
+                x0, x1, x2 = left, xs[i], right
+                f0, f1, f2 = (samples[x].value for x in (x0, x1, x2))
+                den = (x1 - x0) * (f1 - f2) - (x1 - x2) * (f1 - f0)
+                num = (x1 - x0) ** 2 * (f1 - f2) - (x1 - x2) ** 2 * (f1 - f0)
+                vertex = x1 - 0.5 * num / den if den != 0 else x1
             step = max((right - left) / _NARROW, tol / 2)
             closer = [max(step / 16**n, tol / 2) for n in (0, 1, 2)]  # three distances: fewer rounds
             offsets = (0.0, *closer, *(-d for d in closer))
@@ -278,4 +331,4 @@ def _refine(beam: Beam, model: LoadModel, brackets: list[dict[float, Extreme]], 
             todo.extend((k, x) for x in sorted(probes) if x not in samples)
         if not todo:
             break
-    return best
+    return [max(samples.values(), key=lambda e: e.value) for samples in known]

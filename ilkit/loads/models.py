@@ -1,9 +1,10 @@
 """Published moving-load models.
 
 Each function builds a model from the definitions of the standard it names,
-with the clause in its docstring.  Where a value was recalled rather than
-read in a copy of the standard, the docstring says **from memory**; every
-such value is an argument you can override.  Each model also carries this as
+with the clause in its docstring.  Where a value was read in a copy of the
+standard (or in a document quoting it), the docstring says **seen** after
+the clause; where it was recalled rather than read, it says **from memory**;
+every such value is an argument you can override.  Each model also carries this as
 plain data, for calculation sheets: ``model.source`` (document and clauses)
 and ``model.from_memory`` (the values recalled, each with its clause).  The
 licensed current edition of each standard (and its National Annex, for the

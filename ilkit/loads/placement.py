@@ -74,7 +74,11 @@ def place(
 
 
 def extremes(line: InfluenceLine, load: Load | Combination | LoadModel, *, beam: Beam | None = None) -> Extremes:
-    """Both the largest and the smallest effect of ``load`` on ``line`` (see :func:`place`)."""
+    """Both the largest and the smallest effect of ``load`` on ``line`` (see :func:`place`).
+
+    Effects are in the line's unit system (force, moment, length or rad, as the quantity) with
+    the signs of :mod:`ilkit.model`.
+    """
     found = _Study.of((_line(line),), (1, -1), load, beam).extremes(lazy=False)
     return Extremes(found[0], found[1])
 

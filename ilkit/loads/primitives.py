@@ -584,6 +584,7 @@ class KnifeEdge:
         return self if system == self.units else KnifeEdge(self.load * ff, units=system, name=self.name)
 
     def chain(self) -> Chain:
+        """One group of one load at offset 0."""
         return Chain((Group.of([], [self.load]),))
 
 

@@ -57,7 +57,7 @@ class AxlePosition:
 
     @property
     def effect(self) -> float:
-        """Load times ordinate for a counted axle, 0 otherwise (unfactored)."""
+        """Load times ordinate for a counted axle, 0 otherwise (unfactored), in the unit of the effect, signed."""
         return self.load * self.ordinate if self.counted else 0.0
 
     def __repr__(self) -> str:
@@ -109,7 +109,7 @@ class LoadPlacement(RichDisplay):
 
     @property
     def factored(self) -> float:
-        """``factor x effect``."""
+        """``factor x effect``, in the unit of the effect, with its sign."""
         return self.factor * self.effect
 
     def to_frame(self) -> pd.DataFrame:

@@ -14,7 +14,11 @@ Public names:
   :func:`sketch`: Müller-Breslau sketch (all take ``ax=`` and return it);
 * :func:`derivation` -> :class:`Derivation` (Markdown/LaTeX, text, HTML);
 * :func:`table`, :func:`to_csv`, :func:`to_excel`, :func:`to_latex`;
-* :func:`write_calculation_sheet` -> :class:`CalculationSheet`;
+  :func:`plain_names`: a table with columns easy to type (``"M_max"``);
+  :func:`summary`: key values of several lines, with units;
+* :func:`formula`: a line's formula for reading (decimals, no repeated pieces);
+* :func:`write_calculation_sheet` -> :class:`CalculationSheet`, with a
+  :class:`TitleBlock`;
 * :class:`Explorer` (``beam.explore()``): the interactive explorer;
   :func:`plot_placement`: where the loads of a governing placement stand;
   :func:`plot_envelope`: envelopes of moving loads.
@@ -33,11 +37,12 @@ from ilkit.views import moving_records  # noqa: F401
 from ilkit.views.derive import Derivation, derivation
 from ilkit.views.draw import draw_beam
 from ilkit.views.explorer import Explorer
+from ilkit.views.formula import formula
 from ilkit.views.moving import plot_envelope, plot_placement
 from ilkit.views.plot import plot_line
-from ilkit.views.report import CalculationSheet, write_calculation_sheet
+from ilkit.views.report import CalculationSheet, TitleBlock, write_calculation_sheet
 from ilkit.views.sketch import sketch
-from ilkit.views.tables import table, to_csv, to_excel, to_latex
+from ilkit.views.tables import plain_names, summary, table, to_csv, to_excel, to_latex
 
 __all__ = [
     "draw_beam",
@@ -49,8 +54,12 @@ __all__ = [
     "to_csv",
     "to_excel",
     "to_latex",
+    "plain_names",
+    "summary",
+    "formula",
     "write_calculation_sheet",
     "CalculationSheet",
+    "TitleBlock",
     "Explorer",
     "plot_envelope",
     "plot_placement",

@@ -11,6 +11,7 @@ from __future__ import annotations
 
 import base64
 import html
+import re
 from collections.abc import Callable, Iterable, Sequence
 from dataclasses import dataclass
 from fractions import Fraction
@@ -219,6 +220,7 @@ class Table:
     header: tuple[Inline, ...]
     rows: tuple[tuple[Inline, ...], ...]
     align: str = ""  # one of "l", "r", "c" per column; left by default
+    css: str = ""  # a class for the HTML table (e.g. "title-block")
 
 
 @dataclass(frozen=True)
@@ -247,8 +249,23 @@ def svg_data_uri(svg: str) -> str:
 
 
 # ------------------------------------------------------------------ markdown
+_SYMBOL = re.compile(r"(?<![\w\\])([A-Za-zδθη])_([A-Za-z0-9]{1,3})(?![\w])")
+"""A quantity's symbol with a subscript written in words, such as ``V_h`` or ``M_R``."""
+_LATEX_LETTER = {"δ": r"\delta", "θ": r"\theta", "η": r"\eta"}
+
+
+def _md_text(text: str) -> str:
+    """Text for Markdown: symbols such as ``V_h`` as inline formulas (``$V_{h}$``)."""
+    return _SYMBOL.sub(lambda m: f"${_LATEX_LETTER.get(m[1], m[1])}_{{{m[2]}}}$", text)
+
+
+def _html_text(text: str) -> str:
+    """Text for HTML, escaped; symbols such as ``V_h`` with a real subscript."""
+    return _SYMBOL.sub(r"<i>\1</i><sub>\2</sub>", html.escape(text))
+
+
 def _md_inline(item: Inline) -> str:
-    return f"${item.latex}$" if isinstance(item, Math) else item
+    return f"${item.latex}$" if isinstance(item, Math) else _md_text(item)
 
 
 def _md_cell(item: Inline) -> str:
@@ -264,7 +281,7 @@ def to_markdown(blocks: Iterable[Block], figure_link: Callable[[Figure], str] | 
     out: list[str] = []
     for b in blocks:
         if isinstance(b, Heading):
-            out.append("#" * b.level + " " + b.text)
+            out.append("#" * b.level + " " + _md_text(b.text))
         elif isinstance(b, Para):
             out.append("".join(_md_inline(i) for i in b.items))
         elif isinstance(b, Equation):
@@ -281,10 +298,10 @@ def to_markdown(blocks: Iterable[Block], figure_link: Callable[[Figure], str] | 
             out.append("\n".join(lines))
         elif isinstance(b, Figure):
             link = figure_link(b) if figure_link else svg_data_uri(b.svg)
-            out.append(f"![{b.caption}]({link})\n\n*{b.caption}*")
+            out.append(f"![{b.caption}]({link})\n\n*{_md_text(b.caption)}*")
         elif isinstance(b, Callout):
             label = "Caution" if b.kind == "caution" else "Note"
-            out.append(f"> **{label}.** {b.text}")
+            out.append(f"> **{label}.** {_md_text(b.text)}")
         else:  # pragma: no cover - Block is a closed union
             raise TypeError(f"unknown block {b!r}")
     return "\n\n".join(out) + "\n"
@@ -340,7 +357,7 @@ def to_text(blocks: Iterable[Block]) -> str:
 def _html_inline(item: Inline) -> str:
     if isinstance(item, Math):
         return f'<math><mrow>{item.mathml}</mrow></math>'
-    return html.escape(item)
+    return _html_text(item)
 
 
 def to_html(blocks: Iterable[Block], heading_offset: int = 0) -> str:
@@ -349,7 +366,7 @@ def to_html(blocks: Iterable[Block], heading_offset: int = 0) -> str:
     for b in blocks:
         if isinstance(b, Heading):
             level = min(b.level + heading_offset, 6)
-            out.append(f"<h{level}>{html.escape(b.text)}</h{level}>")
+            out.append(f"<h{level}>{_html_text(b.text)}</h{level}>")
         elif isinstance(b, Para):
             out.append("<p>" + "".join(_html_inline(i) for i in b.items) + "</p>")
         elif isinstance(b, Equation):
@@ -372,15 +389,17 @@ def to_html(blocks: Iterable[Block], heading_offset: int = 0) -> str:
                 + "</tr>"
                 for r in b.rows
             )
-            out.append(f"<table><thead><tr>{head}</tr></thead><tbody>{body}</tbody></table>")
+            css = f' class="{html.escape(b.css)}"' if b.css else ""
+            thead = f"<thead><tr>{head}</tr></thead>" if any(b.header) else ""
+            out.append(f"<table{css}>{thead}<tbody>{body}</tbody></table>")
         elif isinstance(b, Figure):
             out.append(
                 f'<figure><img src="{svg_data_uri(b.svg)}" alt="{html.escape(b.caption)}">'
-                f"<figcaption>{html.escape(b.caption)}</figcaption></figure>"
+                f"<figcaption>{_html_text(b.caption)}</figcaption></figure>"
             )
         elif isinstance(b, Callout):
             label = "Caution" if b.kind == "caution" else "Note"
-            out.append(f'<aside class="{b.kind}"><strong>{label}.</strong> {html.escape(b.text)}</aside>')
+            out.append(f'<aside class="{b.kind}"><strong>{label}.</strong> {_html_text(b.text)}</aside>')
         else:  # pragma: no cover
             raise TypeError(f"unknown block {b!r}")
     return "\n".join(out)

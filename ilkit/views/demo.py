@@ -10,7 +10,8 @@
   of one lane.  :func:`write_highway_sheet` writes its sheet with the load
   model, the governing placements and the envelope.
 
-The demo runner (``python -m ilkit.demo``) calls both.
+The demo runner (``python -m ilkit.demo``) calls both; their title blocks
+are filled in (the checker's box is left for a person).
 """
 
 from __future__ import annotations
@@ -19,7 +20,7 @@ from pathlib import Path
 
 from ilkit.influence import InfluenceLine
 from ilkit.model import Beam
-from ilkit.views.report import CalculationSheet, write_calculation_sheet
+from ilkit.views.report import CalculationSheet, TitleBlock, write_calculation_sheet
 
 __all__ = [
     "suspended_span_girder",
@@ -61,8 +62,13 @@ def write_demo_sheet(directory: str | Path) -> CalculationSheet:
         Path(directory) / "girder",
         lines=demo_lines(beam),
         title="Three-span girder with a suspended span: influence lines",
+        title_block=TitleBlock(
+            project="ilkit demo study (invented data)", structure="Three-span road bridge with a suspended span",
+            girder="Main girder, spans 32 + 44 + 32 m", prepared_by="ilkit demo", checked_by="",
+            date="2025-01-15", revision="A",
+        ),
         info={"scenario": "demo data (invented numbers), as in notebooks/hinged_girder.ipynb",
-              "structure": "spans 32 + 44 + 32 m; 26 m suspended span on hinges at 41 m and 67 m"},
+              "geometry": "spans 32 + 44 + 32 m; 26 m suspended span on hinges at 41 m and 67 m"},
     )
 
 
@@ -89,8 +95,13 @@ def write_highway_sheet(directory: str | Path) -> CalculationSheet:
         load=hl93(),
         divisions=10,
         title="Three-span continuous highway girder under HL-93",
+        title_block=TitleBlock(
+            project="ilkit demo study (invented data)", structure="Three-span continuous highway bridge",
+            girder="Interior girder, spans 90 + 115 + 90 ft", prepared_by="ilkit demo", checked_by="",
+            date="2025-01-15", revision="A",
+        ),
         info={"scenario": "demo data (invented numbers), as in notebooks/moving_loads.ipynb",
-              "structure": "continuous spans 90 + 115 + 90 ft, EI = 1e8 kip·ft² (force effects do not depend "
+              "geometry": "continuous spans 90 + 115 + 90 ft, EI = 1e8 kip·ft² (force effects do not depend "
                            "on its value)",
               "live load": "AASHTO LRFD HL-93, one lane, dynamic allowance 33 % on truck and tandem, no "
                            "multiple presence or distribution factor"},

@@ -60,9 +60,9 @@ SIGN_CONVENTIONS: dict[str, str] = {
 
 
 def quantity_title(quantity: Quantity, length_unit: str = "") -> str:
-    """Words such as ``"bending moment M at x = 5 m (left face)"``."""
+    """Words such as ``"bending moment M at x = 5 m (left side)"`` (``side`` as in the API)."""
     unit = f" {length_unit}" if length_unit else ""
-    side = f" ({quantity.side} face)" if quantity.side else ""
+    side = f" ({quantity.side} side)" if quantity.side else ""
     return f"{quantity.words} {quantity.symbol} at x = {fmt(quantity.at)}{unit}{side}"
 
 

@@ -28,7 +28,7 @@ from ilkit.influence import InfluenceLine
 from ilkit.model import Beam
 from ilkit.views import _doc, style
 from ilkit.views.derive import SIGN_CONVENTIONS, quantity_title
-from ilkit.views.plot import short
+from ilkit.views.numbers import area_unit, clean, line_scale, ordinate_unit, short
 from ilkit.views.tables import beam_facts
 
 if TYPE_CHECKING:  # pragma: no cover
@@ -99,22 +99,28 @@ def _(beam: Beam, include: Any = None, exclude: Any = None) -> dict[str, Any]:
 
 
 def line_facts(line: InfluenceLine) -> list[tuple[str, str]]:
-    """Key facts of a line: sign convention, extremes with positions, areas (core values)."""
+    """Key facts of a line: sign convention, extremes with positions, areas (core values, in the units of
+    the plots and tables: :mod:`ilkit.views.numbers`)."""
     units = line.units
-    u = f" {line.unit}" if line.unit else ""
+    factor, unit = ordinate_unit(line)
+    scale = line_scale(line)
+    u = f" {unit}" if unit else ""
     at = f" {units.length}" if units else ""
-    area_unit = f" {line.unit} × {units.length}" if units else ""
+    per_area = f" {area_unit(line)}" if units else ""
 
     def where(o: Any) -> str:
-        side = f", {o.side} face" if o.side else ""
-        return f"{short(o.value)}{u} at x = {fmt(o.x)}{at}{side}"
+        side = f", {o.side} side" if o.side else ""
+        return f"{short(clean(o.value, scale) * factor)}{u} at x = {fmt(o.x)}{at}{side}"
+
+    def area(value: float) -> str:
+        return f"{short(clean(value, scale * line.length) * factor)}{per_area}"
 
     return [
         ("sign convention", f"{line.quantity.words} {SIGN_CONVENTIONS[line.quantity.kind]}"),
         ("largest ordinate", where(line.maximum)),
-        ("smallest ordinate", where(line.minimum)),
-        ("positive area", f"{short(line.positive_area)}{area_unit}"),
-        ("negative area", f"{short(line.negative_area)}{area_unit}"),
+        ("smallest ordinate (most negative)", where(line.minimum)),
+        ("positive area", area(line.positive_area)),
+        ("negative area", area(line.negative_area)),
         ("breakpoints", ", ".join(fmt(b) for b in line.breakpoints) + at),
         ("form", "exact (rational)" if line.is_exact else "numeric"),
     ]
@@ -122,13 +128,13 @@ def line_facts(line: InfluenceLine) -> list[tuple[str, str]]:
 
 @mimebundle.register(InfluenceLine)
 def _(line: InfluenceLine, include: Any = None, exclude: Any = None) -> dict[str, Any]:
-    from ilkit.views.tables import doc_table
+    from ilkit.views.tables import ordinate_table
 
     title = html.escape("Influence line of the " + quantity_title(line.quantity, line.units.length
                                                                     if line.units else ""))
     body = (
         figure_html(lambda: line_figure(line), title)
         + _facts_html(line_facts(line))
-        + _doc.to_html([doc_table(line.ordinates())])
+        + _doc.to_html([ordinate_table(line)])
     )
     return {"text/html": f'{_CSS}<div class="ilkit-view"><strong>{title}</strong>{body}</div>'}

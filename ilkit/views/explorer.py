@@ -6,7 +6,7 @@
   chosen quantity with its key ordinates and shaded areas;
 * a chooser for the quantity and a box for its location (reactions snap to
   the supports, hinge shears to the hinges; where the quantity jumps the
-  explorer asks for the face);
+  explorer asks for the side);
 * a load chooser (a unit load and the load models given), a slider that
   moves the load by steps, a box for its exact position and a travel
   direction; the axles are drawn on the beam and
@@ -42,8 +42,11 @@ from ilkit._exact import fmt, to_exact
 from ilkit.errors import IlkitError, LoadInputError, SideRequiredError
 from ilkit.quantity import KINDS
 from ilkit.views._explorer_figure import ExplorerFigure
+from ilkit.views.caution import CAUTION_SHORT
+from ilkit.views.derive import quantity_title
 from ilkit.views.livefigure import Backend, Coalescer, _require
 from ilkit.views.loaddraw import Axle, Loading
+from ilkit.views.numbers import effect_display, ordinate_unit
 
 if TYPE_CHECKING:  # pragma: no cover
     from ilkit.influence import InfluenceLine
@@ -85,7 +88,7 @@ class Explorer:
         Its location (beam length unit); default: the middle of the first span
         (the first support for reactions).
     side:
-        The face, where the quantity jumps at ``at``.
+        The side, where the quantity jumps at ``at``.
     backend:
         ``"inline"`` or ``"ipympl"``; default: follow matplotlib's backend.
 
@@ -96,8 +99,9 @@ class Explorer:
         button) to drive the explorer from code.  ``slider`` moves the load by
         steps (its value counts the steps); ``position`` is the exact position
         of the load (a number box; setting it moves the load).
-    readout, message:
-        The read-out and the message area (HTML widgets).
+    readout, message, caution:
+        The read-out, the message area and the caution that results must be
+        checked by a qualified engineer (HTML widgets).
     line:
         The influence line shown (a core object).
     x:
@@ -139,6 +143,7 @@ class Explorer:
         self._quiet = False  # set while the explorer itself changes a control
         self._facts_of: InfluenceLine | None = None
         self._facts_html = ""
+        self._error_shown = False  # an error is on screen: the next valid change clears it
 
         kinds = [k for k in KINDS if self._offers(k)]
         if not isinstance(quantity, str) or quantity not in kinds:
@@ -146,17 +151,20 @@ class Explorer:
         if side is not None and (not isinstance(side, str) or side not in ("left", "right")):
             raise _choice_error("side", side, ("left", "right"))
         wide = {"description_width": "4.8em"}
+        length = f" [{beam.units.length}]" if beam.units else ""
         self.quantity = w.Dropdown(
             options=[(_words(k), k) for k in kinds], value=quantity, description="quantity",
             layout=w.Layout(width="18em"), style=wide,
         )  # fmt: skip
         self.location = w.Text(
-            value="", description="at x =", continuous_update=False,
-            layout=w.Layout(width="11em"), style={"description_width": "3.5em"},
+            value="", description=f"at x{length}", continuous_update=False,
+            layout=w.Layout(width="12em"), style={"description_width": "4.5em"},
+            tooltip="the section (or support, or hinge) of the quantity",
         )  # fmt: skip
         self.side = w.ToggleButtons(
-            options=[("left face", "left"), ("right face", "right")], value=side or "left",
+            options=[("left side", "left"), ("right side", "right")], value=side or "left",
             style={"button_width": "6.5em"}, layout=w.Layout(display="none"),
+            tooltips=["just left of the section", "just right of the section"],
         )  # fmt: skip
         self.load = w.Dropdown(
             options=list(self._travelling), value=UNIT_LOAD, description="load",
@@ -170,30 +178,35 @@ class Explorer:
         # its steps (or with rounding noise) to a step and sends it back, which would move
         # a load put exactly somewhere (a worst placement) and race with later settings.
         self.slider = w.IntSlider(
-            description="load at x", continuous_update=True, readout=False,
-            layout=w.Layout(width="30em"), style=wide,
+            description="move load", continuous_update=True, readout=False,
+            layout=w.Layout(width="27em"), style=wide,
         )  # fmt: skip
         self.position = w.FloatText(
-            layout=w.Layout(width="7em"), tooltip="exact position of the load (its front)",
+            description=f"load at x{length}", layout=w.Layout(width="14em"), style={"description_width": "7em"},
+            tooltip="exact position of the load: the unit load, or the front (lead axle) of a vehicle",
         )  # fmt: skip
         self._x0, self._step = 0.0, 1.0  # the slider's step k stands for x = x0 + k * step
         narrow = w.Layout(width="6.5em")
         self.largest = w.Button(description="largest", tooltip="jump to the placement of the largest value",
                                 layout=narrow)  # fmt: skip
-        self.smallest = w.Button(description="smallest", tooltip="jump to the placement of the smallest value",
+        self.smallest = w.Button(description="smallest",
+                                 tooltip="jump to the placement of the smallest value (the most negative)",
                                  layout=narrow)  # fmt: skip
         self.envelope = w.ToggleButton(value=False, description="envelope", layout=narrow,
                                        tooltip="show the envelope of the load model along the beam")  # fmt: skip
         self.model = w.Dropdown(
-            options=list(self._models), value=next(iter(self._models), None), description="of",
-            layout=w.Layout(width="15em", display="" if self._models else "none"),
-            style={"description_width": "1.6em"},
+            options=list(self._models), value=next(iter(self._models), None), description="load model",
+            layout=w.Layout(width="19em", display="" if self._models else "none"),
+            style={"description_width": "5.5em"}, tooltip="the load model whose envelope is shown",
         )  # fmt: skip
         self.envelope.layout.display = "" if self._models else "none"
         self.readout = w.HTML()
         self.message = w.HTML()
+        self.caution = w.HTML(
+            f"<div style='color:#5a5a5a; font-size:0.85em'>{html.escape(CAUTION_SHORT)}</div>"
+        )
         for name in ("quantity", "location", "side", "load", "direction", "slider", "position", "largest",
-                     "smallest", "envelope", "model", "readout", "message"):  # fmt: skip
+                     "smallest", "envelope", "model", "readout", "message", "caution"):  # fmt: skip
             getattr(self, name).add_class(f"ilkit-{name}")
 
         self._figure = ExplorerFigure(beam, backend=backend)
@@ -207,6 +220,7 @@ class Explorer:
                 self.readout,
                 self.message,
                 self._figure.live.widget,
+                self.caution,
             ]
         )
         self.widget.add_class("ilkit-explorer")
@@ -331,7 +345,7 @@ class Explorer:
         self._set_quietly(self.side, line.quantity.side or self.side.value)
         self.side.layout.display = "" if needs_side else "none"
         if needs_side:
-            face = f"The {_words(kind)} jumps at x = {fmt(at)}: showing the {line.quantity.side} face."
+            face = f"The {_words(kind)} jumps at x = {fmt(at)}: showing the {line.quantity.side} side."
             note = f"{note} {face}".strip()
         self._show_message(note)
         self._limit = self._worst = None
@@ -438,6 +452,8 @@ class Explorer:
         except IlkitError as err:
             self._show_message(str(err), error=True)
             return
+        if self._error_shown:  # a valid state again: an earlier error no longer applies
+            self._show_message("")
         self._figure.set_loading(loading)
         self._write_readout()
 
@@ -477,6 +493,8 @@ class Explorer:
 
     # --------------------------------------------------------------- envelope
     def _on_envelope(self, change: dict[str, Any]) -> None:
+        if self._error_shown:
+            self._show_message("")
         self._background_stale = True
         self._write_readout()
         self._redraw.request()
@@ -511,13 +529,13 @@ class Explorer:
         )
         rows = []
         if self.placement is None:
-            unit, what = line.unit, "ordinate"
+            factor, unit = ordinate_unit(line)
+            what = "ordinate"
             if self._limit:
                 where += f" (just {self._limit} of it)"
         else:
-            from ilkit.loads.results import effect_unit
-
-            unit, what = effect_unit(q, line.units) if line.units else "", "effect"
+            factor, unit = effect_display(q, line.units)
+            what = "effect of this load alone (unfactored: no dynamic allowance, no other loads, no factors)"
             placed = self.placement
             if placed.direction:
                 where += f", travelling <span class='ilkit-travel'>{placed.direction}</span>"
@@ -527,12 +545,12 @@ class Explorer:
                 off = [str(a.number) for a in placed.axles if not a.counted and 0 <= a.x <= line.length]
                 left_off = f"; axle {', '.join(off)} left off (it would reduce the extreme)" if off else ""
                 rows.append(f"worst placement{left_off}")
-        side = f", {q.side} face" if q.side else ""
+        side = f", {q.side} side" if q.side else ""
         rows.insert(
             0,
             f"<b>{html.escape(_words(q.kind))}</b> at x = {fmt(q.at)}{html.escape(length_unit)}{side}"
             f" &nbsp;·&nbsp; {where} &nbsp;·&nbsp; {what} "
-            f"<b><span class='ilkit-value'>{_number(self.value)}</span> "
+            f"<b><span class='ilkit-value'>{_number(self.value * factor)}</span> "
             f"<span class='ilkit-unit'>{html.escape(unit)}</span></b>",
         )
         if self.envelope.value and self.model.value is not None:
@@ -561,12 +579,15 @@ class Explorer:
             return html.escape(str(err))
         hi, lo = found.maximum, found.minimum
         return (
-            f"{html.escape(name)} here: largest <span class='ilkit-envelope-max'>{_number(hi.value)}</span> "
-            f"({html.escape(hi.case)}), smallest <span class='ilkit-envelope-min'>{_number(lo.value)}</span> "
-            f"({html.escape(lo.case)}) {html.escape(hi.unit)}"
+            f"{html.escape(name)} here (the governing case, factored: dynamic allowance, every load of the case "
+            f"and its factors included): largest <span class='ilkit-envelope-max'>{_number(hi.value)}</span> "
+            f"({html.escape(hi.case)}), smallest (most negative) "
+            f"<span class='ilkit-envelope-min'>{_number(lo.value)}</span> ({html.escape(lo.case)}) "
+            f"{html.escape(hi.unit)}"
         )
 
     def _show_message(self, text: str, *, error: bool = False) -> None:
+        self._error_shown = error and bool(text)
         if not text:
             self.message.value = ""
             return
@@ -594,7 +615,10 @@ class Explorer:
                 try:
                     found = self._envelope_of(self.model.value)
                 except IlkitError as err:
-                    self._show_message(str(err), error=True)
+                    # the toggle goes off with the reason: what is drawn is the line, as the controls say
+                    self._set_quietly(self.envelope, False)
+                    self._show_message(f"envelope: {err} Showing the influence line.", error=True)
+                    self._write_readout()
                 else:
                     self._figure.show_envelope(found, q.kind, at=float(q.at))
                     return
@@ -602,7 +626,8 @@ class Explorer:
                 self._show_message(
                     "Envelopes are drawn for bending moment, shear and reactions; showing the influence line."
                 )
-        self._figure.show_line(line, title=f"Influence line: {_words(q.kind)} {q.label}")
+        title = quantity_title(q, line.units.length if line.units else "")
+        self._figure.show_line(line, title=f"Influence line: {title}")
 
     # ----------------------------------------------------------------- helpers
     def _set_quietly(self, control: Any, value: Any) -> None:
@@ -629,13 +654,36 @@ def _read_loads(loads: Any) -> tuple[dict[str, Travelling | None], dict[str, Any
     else:
         items = [(getattr(loads, "name", "load"), loads)]
     moving = (AxleTrain, KnifeEdge, UniformBlocks)
+    owners: dict[str, str] = {UNIT_LOAD: UNIT_LOAD}
+
+    def offer(label: str, part: Travelling, owner: str) -> None:
+        if label in travelling and not (owners[label] == owner and travelling[label] == part):
+            first = "the explorer's unit load" if label == UNIT_LOAD else f"a part of {owners[label]!r}"
+            raise LoadInputError(
+                f"loads: two loads would be offered as {label!r} ({first} and a part of {owner!r}), so one "
+                "would be lost. Rename one (e.g. AxleTrain(..., name='second truck')), or give a mapping "
+                "{name: load} with distinct names.",
+                field="loads",
+                value=label,
+            )
+        travelling[label], owners[label] = part, owner
+
     for name, item in items:
+        if name in models or name == UNIT_LOAD:
+            first = "the explorer's unit load" if name == UNIT_LOAD else "another load"
+            raise LoadInputError(
+                f"loads: {item!r} is named {name!r}, as is {first}; the explorer offers loads by name, so one "
+                "would be lost. Rename one (e.g. AxleTrain(..., name='second truck')), or give a mapping "
+                "{name: load} with distinct names.",
+                field="loads",
+                value=name,
+            )
         if isinstance(item, moving):
-            travelling[name] = item
+            offer(name, item, name)
         elif isinstance(item, (Combination, LoadModel)):
             cases = item.cases if isinstance(item, LoadModel) else (item,)
             for part in (p for case in cases for p in case.parts if isinstance(p, moving)):
-                travelling.setdefault(name if part.name == name else f"{name}: {part.name}", part)
+                offer(name if part.name == name else f"{name}: {part.name}", part, name)
         elif not isinstance(item, UniformLoad):
             raise LoadInputError(
                 f"loads: {item!r} is not a load; give axle trains, knife-edge loads, blocks, uniform loads, "

@@ -39,12 +39,14 @@ if TYPE_CHECKING:  # pragma: no cover
     from ilkit.influence import InfluenceLine
     from ilkit.loads.results import LoadPlacement
 
-__all__ = ["Axle", "Loading", "LoadArtists", "ARROW_TOP", "ARROW_BASE"]
+__all__ = ["Axle", "Loading", "LoadArtists", "ARROW_TOP", "ARROW_BASE", "PATCH_TOP"]
 
 ARROW_TOP = 0.55
 """Height of the tallest axle arrow above the beam axis (the beam diagram's data units)."""
 ARROW_BASE = 0.08
 """Where the arrows end, just above the beam axis (the beam diagram's data units)."""
+PATCH_TOP = ARROW_TOP * 0.7
+"""Top of the hatched band of a loaded stretch (the beam diagram's data units)."""
 
 
 @dataclass(frozen=True)
@@ -119,7 +121,7 @@ class LoadArtists:
         self.heads.set_data([a.x for a in counted], [base + 0.02] * len(counted))
         self.idle.set_data(*stems(idle))
         self.idle_heads.set_data([a.x for a in idle], [base + 0.02] * len(idle))
-        top = ARROW_TOP * 0.7
+        top = PATCH_TOP
         self.band.set_verts([[(s, base), (e, base), (e, top), (s, top)] for s, e, _ in loading.patches])
         if line is None:
             self.drops.set_data([], [])

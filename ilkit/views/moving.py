@@ -8,7 +8,7 @@ The numbers are the core's (:func:`ilkit.loads.place`, :func:`ilkit.loads.stand`
   explorer's, :mod:`ilkit.views.loaddraw`), with the ordinate under every
   axle, the loaded stretches and the direction of travel;
 * :func:`plot_envelope`: the largest and smallest bending moment or shear at
-  every section of an envelope (both faces at supports and releases, so
+  every section of an envelope (both sides at supports and releases, so
   jumps show as vertical steps), or the largest and smallest reaction at
   every support.
 """
@@ -24,12 +24,13 @@ from ilkit.errors import UnsupportedResultError
 from ilkit.loads.results import Extreme, LoadPlacement, effect_unit
 from ilkit.views import style
 from ilkit.views.derive import quantity_title
-from ilkit.views.loaddraw import ARROW_BASE, LoadArtists, Loading, arrow_tip
+from ilkit.views.loaddraw import ARROW_BASE, PATCH_TOP, LoadArtists, Loading, arrow_tip
+from ilkit.views.numbers import ordinate_unit
 from ilkit.views.plot import (
     LABEL_BOX,
     breakpoint_ticks,
     draw_line,
-    free_offsets,
+    ordinate_axis,
     points_per_unit,
     short,
     text_width,
@@ -102,11 +103,12 @@ def plot_envelope(
             ax.plot(xs, lo, color=style.INK, linewidth=1.0, linestyle=(0, (5, 2)), gid="smallest")
             if kind == "moment":
                 best = envelope.absolute_maximum_moment
-                at = float(best.quantity.at)
-                ax.plot([at], [best.value], "o", color=style.INK, markersize=4, gid="absolute-maximum")
-                ax.annotate(f"absolute maximum {short(best.value)} at x = {short(at, 5)}", xy=(at, best.value),
-                            xytext=(0, 5), textcoords="offset points", ha="center", va="bottom", fontsize=7,
-                            gid="absolute-maximum-words", annotation_clip=False)
+                where = envelope.absolute_maximum_positions or (float(best.quantity.at),)
+                ax.plot(where, [best.value] * len(where), "o", color=style.INK, markersize=4, gid="absolute-maximum")
+                at = " and ".join(short(p, 5) for p in where)
+                ax.annotate(f"absolute maximum {short(best.value)} at x = {at}", xy=(sum(where) / len(where),
+                            best.value), xytext=(0, 5), textcoords="offset points", ha="center", va="bottom",
+                            fontsize=7, gid="absolute-maximum-words", annotation_clip=False)
                 ax.margins(y=0.15)
         length_unit = x_col[x_col.find("[") + 1 : x_col.find("]")] if "[" in x_col else ""
         ax.set_xlabel(f"section x [{length_unit}]" if length_unit else "section x")
@@ -116,7 +118,7 @@ def plot_envelope(
 
 
 def _face_order(table: Any) -> np.ndarray:
-    """Left face before right face at a section that has both (0 left, 1 no side, 2 right)."""
+    """Left side before right side at a section that has both (0 left, 1 no side, 2 right)."""
     if "side" not in table.columns:
         return np.ones(len(table))
     return table["side"].map({"left": 0, "right": 2}).fillna(1).to_numpy(dtype=float)
@@ -172,7 +174,7 @@ def plot_placement(
     """
     line = _line_of(result)
     placements = result.placements if isinstance(result, Extreme) else (result,)
-    loading = Loading.of(placements)
+    loading = _in_view(Loading.of(placements), line.length)
     beam: Beam | None = getattr(line.origin, "beam", None)
     units = line.units
     length = line.length
@@ -188,14 +190,15 @@ def plot_placement(
         for side in ("top", "right"):
             ax.spines[side].set_visible(False)  # the band of the loads takes the top of the axes
         _share_height(ax, strip, line, loading)
-        _label_axles(strip, ax, loading, units.force if units else "")
+        _label_axles(strip, ax, loading, units.force if units else "", ordinate_unit(line)[0])
         _label_patches(strip, loading, points_per_unit(ax), units.line_load if units else "")
         direction = next((p.direction for p in placements if p.direction), None)
         if direction is not None:
             _travel_words(strip, direction, beam, length)
         breakpoint_ticks(ax, line)
         ax.set_xlabel(f"x [{units.length}]" if units else "x")
-        ax.set_ylabel(f"ordinate [{line.unit}]" if line.unit else "ordinate")
+        unit = ordinate_unit(line)[1]
+        ax.set_ylabel(f"ordinate [{unit}]" if unit else "ordinate")
         ax.yaxis.label.set_y((1 - _BAND) / 2)  # beside the line, not the band
         ax.set_title(title if title is not None else placement_title(result))
         return ax
@@ -210,16 +213,13 @@ _BAND_RANGE = (-0.42, 0.85)
 def _share_height(ax: Axes, strip: Axes, line: InfluenceLine, loading: Loading) -> None:
     """The line in the lower part of the axes, the beam band in the upper part; the y axis drawn
     only along the line's range."""
-    from matplotlib.ticker import MaxNLocator
-
     values = [0.0, line.maximum.value, line.minimum.value, *(a.ordinate for a in loading.axles if a.counted)]
     lo, hi = min(values), max(values)
     size = (hi - lo) or 1.0
     lo, hi = lo - 0.22 * size, hi + 0.22 * size
     top = hi + (hi - lo) * _BAND / (1 - _BAND)
     ax.set_ylim(lo, top)
-    ticks = [t for t in MaxNLocator(5).tick_values(lo, hi) if lo <= t <= hi]
-    ax.set_yticks(ticks)
+    ordinate_axis(ax, line, lo=lo, hi=hi)
     ax.spines["left"].set_bounds(lo, hi)
     b0, b1 = _BAND_RANGE
     strip.set_ylim(b1 - (b1 - b0) / _BAND, b1)
@@ -236,37 +236,83 @@ def _draw_beam(strip: Axes, beam: Beam | None, length: float) -> None:
         strip.plot([0, length], [0, 0], color=style.INK, linewidth=2.6, solid_capstyle="butt", gid="beam")
 
 
-def _label_axles(strip: Axes, ax: Axes, loading: Loading, force: str) -> None:
-    """The load above every counted axle's arrow and the ordinate under it on the line
-    (labels that would overlap are moved out)."""
+def _in_view(loading: Loading, length: float) -> Loading:
+    """The loading as a still figure shows it: axles (off the beam, not counted) beyond the drawn margin are
+    left out rather than drawn cut by the frame; loaded stretches end at the beam's ends."""
+    from dataclasses import replace
+
+    margin = 0.02 * length
+    axles = tuple(a for a in loading.axles if -margin <= a.x <= length + margin)
+    patches = tuple((max(s, 0.0), min(e, length), q) for s, e, q in loading.patches if e > 0 and s < length)
+    return replace(loading, axles=axles, patches=patches)
+
+
+def _clusters(xs: list[float], widths: list[float], per_unit: float) -> list[list[int]]:
+    """Runs of consecutive labels (by position) that would touch: closer than half their widths."""
+    groups: list[list[int]] = []
+    for k, x in enumerate(xs):
+        if groups and (x - xs[groups[-1][-1]]) * per_unit < (widths[k] + widths[groups[-1][-1]]) / 2 + 2:
+            groups[-1].append(k)
+        else:
+            groups.append([k])
+    return groups
+
+
+def _label_axles(strip: Axes, ax: Axes, loading: Loading, force: str, factor: float) -> None:
+    """The loads above the arrows and the ordinate under every counted axle on the line.
+
+    Axles too close for a label each share one: ``4 × 355.9 kN`` for equal
+    loads, ``25 + 32 kip`` otherwise.  An ordinate whose label would cover
+    another is left to the table (the largest ordinates are labelled first);
+    labels are never stacked.  Load labels stand above the hatching of a
+    loaded stretch.
+    """
     counted = sorted((a for a in loading.axles if a.counted), key=lambda a: a.x)
+    if not counted:
+        return
     heaviest = max((a.load for a in loading.axles), default=1.0)
     unit = f" {force}" if force else ""
-    loads = [short(a.load) + (unit if k == 0 else "") for k, a in enumerate(counted)]
-    ordinates = [short(a.ordinate) for a in counted]
-    tips = [(a.x, arrow_tip(a.load, heaviest)) for a in counted]
-    lifts = free_offsets(strip, tips, [text_width(t, 6.5) for t in loads], [True] * len(counted), first=5.0)
-    drops = free_offsets(ax, [(a.x, a.ordinate) for a in counted], [text_width(t, 7.0) + 1 for t in ordinates],
-                         [a.ordinate >= 0 for a in counted], first=5.0)
-    for k, a in enumerate(counted):
-        strip.annotate(loads[k], xy=tips[k], xytext=(0, lifts[k] - 3), textcoords="offset points", ha="center",
-                       va="bottom", fontsize=6.5, gid=f"load:{fmt(a.x)}", annotation_clip=False, bbox=LABEL_BOX)
-        ax.annotate(ordinates[k], xy=(a.x, a.ordinate), xytext=(0, drops[k]), textcoords="offset points",
-                    ha="center", va="bottom" if drops[k] > 0 else "top", fontsize=7,
-                    gid=f"axle-ordinate:{fmt(a.x)}", annotation_clip=False, bbox=LABEL_BOX)
+    per_unit = points_per_unit(ax)
+    hatch_top = PATCH_TOP if loading.patches else 0.0
+    widths = [text_width(short(a.load), 6.5) for a in counted]
+    for group in _clusters([a.x for a in counted], widths, per_unit):
+        members = [counted[k] for k in group]
+        loads = [short(a.load) for a in members]
+        text = f"{len(loads)} × {loads[0]}" if len(set(loads)) == 1 and len(loads) > 1 else " + ".join(loads)
+        top = max(max(arrow_tip(a.load, heaviest) for a in members), hatch_top)
+        x = (members[0].x + members[-1].x) / 2
+        strip.annotate(text + unit, xy=(x, top), xytext=(0, 2), textcoords="offset points", ha="center",
+                       va="bottom", fontsize=6.5, gid=f"load:{fmt(members[0].x)}", annotation_clip=False,
+                       bbox=LABEL_BOX)
+    placed: list[tuple[float, float, float, float]] = []
+    to_points = 72.0 / ax.figure.dpi
+    for a in sorted(counted, key=lambda a: -abs(a.ordinate)):
+        text = short(a.ordinate * factor)
+        px, py = (v * to_points for v in ax.transData.transform((a.x, a.ordinate)))
+        width, height, up = text_width(text, 7.0) + 1, 8.0, a.ordinate >= 0
+        box = (px - width / 2, px + width / 2, py + 5 if up else py - 5 - height, py + 5 + height if up else py - 5)
+        if any(not (box[1] <= b[0] or box[0] >= b[1] or box[3] <= b[2] or box[2] >= b[3]) for b in placed):
+            continue  # no room: the table gives it
+        placed.append(box)
+        ax.annotate(text, xy=(a.x, a.ordinate), xytext=(0, 5 if up else -5), textcoords="offset points",
+                    ha="center", va="bottom" if up else "top", fontsize=7, gid=f"axle-ordinate:{fmt(a.x)}",
+                    annotation_clip=False, bbox=LABEL_BOX)
 
 
 def _label_patches(strip: Axes, loading: Loading, points: float, line_load: str) -> None:
-    """The intensity of each loaded stretch, inside its band where no counted axle crosses it."""
+    """The intensity of each loaded stretch: inside its band where no counted axle crosses it, or above a
+    stretch too short to carry it."""
     unit = f" {line_load}" if line_load else ""
     axles = [a.x for a in loading.axles if a.counted]
     for s, e, q in loading.patches:
         text = f"{short(q)}{unit}"
         half = (text_width(text, 6.5) + 4) / 2 / points
-        lo, hi = max(s, 0.0), e
-        if hi - lo < 2 * half:
-            continue  # too short to carry its label; the table gives it
-        spots = np.linspace(lo + half, hi - half, 9)
+        if e - s < 2 * half:
+            strip.annotate(text, xy=((s + e) / 2, PATCH_TOP), xytext=(0, 2), textcoords="offset points",
+                           ha="center", va="bottom", fontsize=6.5, gid=f"patch:{fmt(s)}", annotation_clip=False,
+                           bbox=LABEL_BOX)
+            continue
+        spots = np.linspace(s + half, e - half, 9)
         x = max(spots, key=lambda c: min((abs(c - a) for a in axles), default=np.inf))
         strip.annotate(text, xy=(float(x), ARROW_BASE + 0.15), ha="center", va="center", fontsize=6.5,
                        gid=f"patch:{fmt(s)}", annotation_clip=False, bbox=LABEL_BOX)

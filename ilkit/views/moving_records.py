@@ -20,6 +20,7 @@ so they cannot disagree.  Every number is the core's, rounded for reading
 
 from __future__ import annotations
 
+import html
 import math
 from collections.abc import Callable
 from typing import TYPE_CHECKING, Any
@@ -32,9 +33,10 @@ from ilkit.loads.primitives import AxleTrain, KnifeEdge, Load, UniformBlocks, Un
 from ilkit.loads.results import Extreme, Extremes, LoadPlacement
 from ilkit.views import _doc, style
 from ilkit.views._doc import Block, Figure, Heading, Para, Table
+from ilkit.views.caution import CAUTION_SHORT
 from ilkit.views.display import mimebundle
 from ilkit.views.moving import ENVELOPE_KINDS, placement_title, plot_envelope, plot_placement
-from ilkit.views.plot import short
+from ilkit.views.numbers import area_unit, ordinate_unit, short
 from ilkit.views.report import report_section
 from ilkit.views.tables import doc_table, table, without_noise
 
@@ -81,7 +83,9 @@ def figure_block(make: Callable[[Any], Any], height: float, caption: str, name: 
 
 
 def _slug(text: str) -> str:
-    return "".join(c if c.isalnum() else "-" for c in text).strip("-")
+    """A file stem: letters, digits, dots and minus signs kept (``x-36.5``, ``-12``); other characters as
+    ``-``."""
+    return "".join(c if c.isalnum() or c in ".-_" else "-" for c in text).strip("-.")
 
 
 def _column(frame: pd.DataFrame, prefix: str) -> str:
@@ -97,82 +101,140 @@ def _bracket(unit: str) -> str:
     return f" [{unit}]" if unit else ""
 
 
-def placement_table(result: Extreme | LoadPlacement) -> Table:
-    """One row per axle and loaded stretch and a total: position, load, ordinate, factor, effect.
+FACTOR_WORDS = "factor (dynamic allowance × case factor)"
+"""What the factor on a load's effect holds (:meth:`ilkit.Combination.part_factor`)."""
+
+
+def factor_parts(model: LoadModel | None, case: str, placement: LoadPlacement) -> tuple[float, float] | None:
+    """``(dynamic, case factor)`` whose product is ``placement.factor``: the dynamic factor on the load
+    (1 + allowance, or 1) and the factor of its ``case`` in ``model``; ``None`` when not known."""
+    if model is None:
+        return None
+    for combination in model.cases:
+        if combination.name != case:
+            continue
+        for part in combination.parts:
+            if part.name == placement.load:
+                dynamic = combination.part_factor(part) / combination.factor
+                if math.isclose(dynamic * combination.factor, placement.factor, rel_tol=1e-12):
+                    return dynamic, combination.factor
+    return None
+
+
+def _factor_text(factor: float, parts: tuple[float, float] | None) -> str:
+    if parts is None or 1.0 in parts:
+        return short(factor, 4)
+    return f"{short(parts[0], 4)} × {short(parts[1], 4)}"
+
+
+def placement_table(result: Extreme | LoadPlacement, model: LoadModel | None = None) -> Table:
+    """One row per axle and loaded stretch and a total: position, axle load or intensity, the ordinate
+    under an axle or the area under a stretch, the factor and the factored effect.
 
     The rows are those of ``result.to_frame()`` (the core's table, rounding
-    noise shown as 0); the total is ``result.value`` (factored) for an
-    extreme, ``factor x effect`` for one load.
+    noise shown as 0), each number in a column of its own with its unit; the
+    total is ``result.value`` (factored) for an extreme, ``factor x effect``
+    for one load.  With the load ``model`` the factor is written as its parts
+    (``1.33 × 0.9``: dynamic allowance times case factor).
     """
     frame = without_noise(result.to_frame())
     if frame.empty:
         return Table(("load", "effect"), (("nothing on the beam", "0"),), "lr")
+    line = result.line
     x, to_x = _column(frame, "x"), _column(frame, "to x")
     load = next(c for c in frame.columns if c.startswith("load [") or c == "axle load")
     intensity, effect = _column(frame, "intensity"), _column(frame, "effect")
     factored = _column(frame, "factored effect")
+    factor, ordinate = ordinate_unit(line) if line is not None else (1.0, "")
+    area = area_unit(line) if line is not None else ""
     header = (
-        "load", f"x{_bracket(_unit(x))}", f"P{_bracket(_unit(load))}, q{_bracket(_unit(intensity))}", "ordinate",
-        "counted", "factor", f"factored effect{_bracket(_unit(factored))}",
+        "load", f"x{_bracket(_unit(x))}", f"P{_bracket(_unit(load))}", f"q{_bracket(_unit(intensity))}",
+        f"ordinate{_bracket(ordinate)}", f"area{_bracket(area)}", "counted", FACTOR_WORDS,
+        f"factored effect{_bracket(_unit(factored))}",
     )
+    case = result.case if isinstance(result, Extreme) else ""
+    parts = {p.load: factor_parts(model, case, p) for p in (result.placements if isinstance(result, Extreme)
+                                                             else (result,))}
     rows: list[tuple[str, ...]] = []
     for _, r in frame.iterrows():
         patch = not _missing(r[to_x])
-        side = f" ({r['side']})" if r["side"] else ""
+        side = f" ({r['side']} side)" if r["side"] else ""
         rows.append((
             f"{r['load']}, {r['item']}",
             f"{short(r[x], 6)} to {short(r[to_x], 6)}" if patch else short(r[x], 6) + side,
-            short(r[intensity] if patch else r[load], 5),
-            f"area {short(r[effect] / r[intensity], 5)}" if patch else short(r["ordinate"], 4),
-            "yes" if r["counted"] else "no", short(r["factor"], 4), short(r[factored], 5),
+            "" if patch else short(r[load], 5),
+            short(r[intensity], 5) if patch else "",
+            "" if patch else short(r["ordinate"] * factor, 4),
+            short(r[effect] / r[intensity] * factor, 5) if patch else "",
+            "yes" if r["counted"] else "no", _factor_text(r["factor"], parts.get(r["load"])),
+            short(r[factored], 5),
         ))
     total = result.value if isinstance(result, Extreme) else result.factored
-    rows.append(("total", "", "", "", "", "", short(total, 5)))
-    return Table(header, tuple(rows), "lrrrlrr")
+    rows.append(("total", "", "", "", "", "", "", "", short(total, 5)))
+    return Table(header, tuple(rows), "lrrrrrlrr")
 
 
 def _missing(value: Any) -> bool:
     return value is None or (isinstance(value, float) and math.isnan(value))
 
 
-def _placement_words(p: LoadPlacement, length_unit: str) -> str:
-    """How one load stands: direction, front, spacings, effect and factor."""
+def _placement_words(p: LoadPlacement, length_unit: str, parts: tuple[float, float] | None = None) -> str:
+    """How one load stands: direction, front, spacings, effect and factor (with its parts when known)."""
     u = f" {length_unit}" if length_unit else ""
-    parts = [p.load]
+    words = [p.load]
     if p.direction:
-        parts.append(f"travelling {p.direction}")
+        words.append(f"travelling {p.direction}")
     if p.front is not None and p.axles:
-        parts.append(f"lead axle at x = {short(p.front, 6)}{u}")
+        words.append(f"lead axle at x = {short(p.front, 6)}{u}")
     if len(p.spacings) > 0:
-        parts.append("spacings " + ", ".join(short(s, 6) for s in p.spacings) + u)
+        words.append("spacings " + ", ".join(short(s, 6) for s in p.spacings) + u)
     if p.patches:
-        parts.append("loaded " + ", ".join(f"{short(s.start, 6)} to {short(s.end, 6)}" for s in p.patches) + u)
+        words.append("loaded " + ", ".join(f"{short(s.start, 6)} to {short(s.end, 6)}" for s in p.patches) + u)
     dropped = [a.number for a in p.axles if not a.counted]
     if dropped:
-        parts.append(f"axle{'s' if len(dropped) > 1 else ''} {', '.join(map(str, dropped))} not counted "
+        words.append(f"axle{'s' if len(dropped) > 1 else ''} {', '.join(map(str, dropped))} not counted "
                      "(off the beam, or left off because it would reduce the extreme)")
-    parts.append(f"effect {short(p.effect, 5)} × factor {short(p.factor, 4)} = {short(p.factored, 5)}")
-    return "; ".join(parts)
+    if parts is not None:
+        factor = (f"× dynamic factor {short(parts[0], 4)} × case factor {short(parts[1], 4)}"
+                  if parts != (1.0, 1.0) else "× factor 1")
+        words.append(f"effect {short(p.effect, 5)} (unfactored) {factor} = {short(p.factored, 5)}")
+    else:
+        words.append(f"effect {short(p.effect, 5)} (unfactored) × factor {short(p.factor, 4)} (dynamic allowance "
+                     f"× case factor) = {short(p.factored, 5)}")
+    return "; ".join(words)
 
 
 # ------------------------------------------------------------------ placements
-def placement_blocks(result: Extreme | LoadPlacement, number: str = "") -> list[Block]:
-    """A placement as document blocks: heading, how each load stands, plot, table."""
+def placement_blocks(result: Extreme | LoadPlacement, number: str = "", model: LoadModel | None = None
+                     ) -> list[Block]:
+    """A placement as document blocks: heading, how each load stands, plot, table (``model``: the load
+    model, to write each factor as its parts)."""
     line = result.line
     headline, _, second = placement_title(result).partition("\n") if line is not None else (repr(result), "", "")
     length_unit = line.units.length if line is not None and line.units else ""
     placements = result.placements if isinstance(result, Extreme) else (result,)
+    case = result.case if isinstance(result, Extreme) else ""
     blocks: list[Block] = [Heading(f"{number} {headline}".strip(), 3)]
     if isinstance(result, Extreme):
         blocks.append(Para((f"Governing case: {result.case}. Value: {short(result.value, 5)} {result.unit}, the sum "
                             "of the factored effects of its loads:",)))
-    blocks += [Para((_placement_words(p, length_unit) + ".",)) for p in placements]
+    blocks += [Para((_placement_words(p, length_unit, factor_parts(model, case, p)) + ".",)) for p in placements]
     if line is not None:
-        name = _slug(f"placement-{number}-{headline}")
         blocks.append(figure_block(lambda ax: plot_placement(result, ax), 3.3,
-                                   f"{number} {headline}; {second}".strip(), name))
-    blocks.append(placement_table(result))
+                                   f"{number} {headline}; {second}".strip(), _figure_name(result, number)))
+    blocks.append(placement_table(result, model))
     return blocks
+
+
+def _figure_name(result: Extreme | LoadPlacement, number: str) -> str:
+    """A file stem for a placement's figure: the paragraph, largest or smallest, the quantity (no values, so
+    no signs are lost), e.g. ``placement-4-1b-smallest-M-at-x-36``."""
+    line = result.line
+    assert line is not None
+    which = ("largest" if result.extreme == "max" else "smallest") if isinstance(result, Extreme) else "standing"
+    side = f"-{line.quantity.side}" if line.quantity.side else ""
+    label = f"{line.quantity.symbol}-at-x-{fmt(line.quantity.at)}{side}"
+    return _slug(f"placement-{number.replace('.', '-')}-{which}-{label}")
 
 
 @report_section.register(Extreme)
@@ -187,10 +249,17 @@ def _(result: Extremes, number: str) -> list[Block]:
 
 
 # ------------------------------------------------------------------- envelopes
+NO_CASE = "—"
+"""The governing case shown beside an extreme of zero: no load gives a value there, so none governs."""
+
+
 def _envelope_table(frame: pd.DataFrame, symbol: str, where: tuple[str, ...]) -> Table:
-    cols = [*where, _column(frame, f"{symbol} max"), f"{symbol} max case", _column(frame, f"{symbol} min"),
-            f"{symbol} min case"]
-    return doc_table(frame[cols], digits=5)
+    hi, lo = _column(frame, f"{symbol} max"), _column(frame, f"{symbol} min")
+    clean = without_noise(frame[[*where, hi, f"{symbol} max case", lo, f"{symbol} min case"]])
+    for value in (hi, lo):
+        case = f"{symbol} {'max' if value == hi else 'min'} case"
+        clean[case] = clean[case].where(clean[value] != 0, NO_CASE)
+    return doc_table(clean, digits=5)
 
 
 def envelope_blocks(envelope: Envelope, number: str = "") -> list[Block]:
@@ -203,17 +272,16 @@ def envelope_blocks(envelope: Envelope, number: str = "") -> list[Block]:
     x_col = _column(sections, "x")
     blocks: list[Block] = [
         Heading(f"{number} Envelope of {envelope.model}".strip(), 3),
-        Para((f"Largest and smallest bending moment and shear at {len(sections)} section faces (the ends, every "
-              "support and release, with both faces inside the beam, and equal divisions of every span and "
+        Para((f"Largest and smallest bending moment and shear at {len(sections)} section rows (the ends, every "
+              "support and release, with both sides inside the beam, and equal divisions of every span and "
               f"overhang), and the largest and smallest reaction at every support, under {envelope.model}. "
-              f"Absolute maximum (sagging) moment: {short(best.value, 5)} {best.unit} at x = "
-              f"{short(float(best.quantity.at), 6)}{length} ({best.case}), searched between the sections to "
-              "1e-6 of the beam length.",)),
+              f"Absolute maximum (sagging) moment: {short(best.value, 5)} {best.unit} ({best.case}) at "
+              f"{_positions(envelope, length)}, searched between the sections to 1e-6 of the beam length.",)),
     ]
     for kind, (_, words) in ENVELOPE_KINDS.items():
         blocks.append(figure_block(lambda ax, k=kind: plot_envelope(envelope, k, ax), 2.6,  # type: ignore[misc]
                                    f"{number} Envelope of {words}: {envelope.model}".strip(),
-                                   _slug(f"envelope-{number}-{kind}")))
+                                   _slug(f"envelope-{number.replace('.', '-')}-{kind}")))
     blocks += [
         Para((f"Bending moment{_bracket(_unit(_column(sections, 'M max')))} at the sections:",)),
         _envelope_table(sections, "M", (x_col, "side")),
@@ -222,8 +290,18 @@ def envelope_blocks(envelope: Envelope, number: str = "") -> list[Block]:
         Para((f"Reactions{_bracket(_unit(_column(envelope.reactions, 'R max')))}:",)),
         _envelope_table(envelope.reactions, "R", (_column(envelope.reactions, "x"), "support")),
     ]
-    blocks += placement_blocks(best, f"{number}.1" if number else "")
+    blocks += placement_blocks(best, f"{number}.1" if number else "", envelope.load_model)
     return blocks
+
+
+def _positions(envelope: Envelope, length: str) -> str:
+    """Where the absolute maximum is attained: one section, or each of several with the same value."""
+    at = envelope.absolute_maximum_positions or (float(envelope.absolute_maximum_moment.quantity.at),)
+    words = " and ".join(f"x = {short(p, 6)}{length}" for p in at)
+    if len(at) > 1:
+        words += (" (the same value at each, within rounding: mirror positions of a symmetric girder under a load "
+                  "that travels both ways; the placement below is the one at the first)")
+    return words
 
 
 @report_section.register(Envelope)
@@ -321,9 +399,10 @@ def _(model: LoadModel, number: str) -> list[Block]:
 def _html(blocks: list[Block]) -> dict[str, Any]:
     from ilkit.views.display import _CSS
 
-    # the sheet's level-3 headings are the display's title
+    # the sheet's level-3 headings are the display's title; the caution closes every display
     body = _doc.to_html([Heading(b.text, 4) if isinstance(b, Heading) and b.level == 3 else b for b in blocks])
-    return {"text/html": f'{_CSS}<div class="ilkit-view">{body}</div>'}
+    caution = f'<p class="note">{html.escape(CAUTION_SHORT)}</p>'
+    return {"text/html": f'{_CSS}<div class="ilkit-view">{body}{caution}</div>'}
 
 
 @mimebundle.register(Extreme)

@@ -3,7 +3,7 @@ its key ordinates labelled with the values the core computes.
 
 Works for every :class:`~ilkit.InfluenceLine`, exact or numeric, straight or
 curved pieces.  Labels: the ordinate at every breakpoint where it is not zero
-(both faces where the line jumps) and, for curved lines, the largest and
+(both sides where the line jumps) and, for curved lines, the largest and
 smallest ordinates inside pieces.  Every label artist has the gid
 ``"ordinate:<x>:<side>"`` (side ``left``, ``right`` or ``both``).
 """
@@ -19,6 +19,7 @@ from ilkit._exact import fmt
 from ilkit.views import style
 from ilkit.views._args import expect
 from ilkit.views.derive import quantity_title
+from ilkit.views.numbers import ordinate_unit, short
 
 if TYPE_CHECKING:  # pragma: no cover
     from matplotlib.artist import Artist
@@ -37,20 +38,38 @@ __all__ = [
     "points_per_unit",
     "LABEL_BOX",
     "short",
+    "ordinate_axis",
 ]
 
 
-def short(value: float, digits: int = 4) -> str:
-    """A figure label for a number: ``digits`` significant figures, no ``-0``."""
-    text = f"{value:.{digits}g}"
-    return "0" if text in ("-0", "0") else text
+def ordinate_axis(ax: Axes, line: InfluenceLine, *, lo: float | None = None, hi: float | None = None) -> None:
+    """The vertical axis of ``ax`` in the display unit of ``line``'s ordinates (:func:`ordinate_unit`).
+
+    Ticks at round numbers of that unit (mm/kN for a deflection line, not
+    m/kN with a ``1e-5`` offset), written without an offset.  With ``lo`` and
+    ``hi`` the ticks are set once, between them; else they follow the limits.
+    """
+    from matplotlib.ticker import FuncFormatter, MaxNLocator
+
+    factor, _ = ordinate_unit(line)
+
+    class Scaled(MaxNLocator):  # type: ignore[misc]
+        def tick_values(self, vmin: float, vmax: float) -> Any:
+            return super().tick_values(vmin * factor, vmax * factor) / factor
+
+    locator = Scaled(5 if lo is not None else "auto")
+    if lo is not None and hi is not None:
+        ax.set_yticks([t for t in locator.tick_values(lo, hi) if lo <= t <= hi])
+    else:
+        ax.yaxis.set_major_locator(locator)
+    ax.yaxis.set_major_formatter(FuncFormatter(lambda v, _: short(v * factor, 6)))
 
 
 def key_ordinates(line: InfluenceLine, *, tol: float = 1e-12) -> list[tuple[float, str, float]]:
     """``(x, side, value)`` of the ordinates worth labelling; side is ``left``, ``right`` or ``both``.
 
-    Breakpoints where the line is not zero (both faces at a jump; only the
-    face on the beam at its ends), and the extremes inside curved pieces
+    Breakpoints where the line is not zero (both sides at a jump; only the
+    side on the beam at its ends), and the extremes inside curved pieces
     (unless a labelled breakpoint is close by).  For a line of a beam's
     analysis, breakpoints that are only changes of ``EI`` are left out (they
     are element ends, not points of the structure).
@@ -144,7 +163,8 @@ def label_ordinates(ax: Axes, line: InfluenceLine) -> list[Artist]:
     Call it once the axes' limits are set (the labels are spaced in points).
     """
     found = key_ordinates(line)
-    texts = [short(v) for _, _, v in found]
+    factor, _ = ordinate_unit(line)
+    texts = [short(v * factor) for _, _, v in found]
     align = [{"left": "right", "right": "left", "both": "center"}[side] for _, side, _ in found]
     shift = [{"left": -3.0, "right": 3.0, "both": 0.0}[side] for _, side, _ in found]
     offsets = free_offsets(ax, [(x, v) for x, _, v in found], [text_width(t) for t in texts],
@@ -214,7 +234,9 @@ def plot_line(line: InfluenceLine, ax: Axes | None = None, *, title: str | None 
     """Plot an influence line with its parts shaded and key ordinates labelled; returns the axes.
 
     The horizontal axis is the load position ``x`` (beam length unit), the
-    vertical axis the ordinate (quantity per unit load, positive up).
+    vertical axis the ordinate (quantity per unit load, positive up; a
+    deflection in mm or in, a rotation in mrad per unit load, as in the
+    tables: :func:`ilkit.views.numbers.ordinate_unit`).
     """
     from ilkit.influence import InfluenceLine
 
@@ -225,7 +247,9 @@ def plot_line(line: InfluenceLine, ax: Axes | None = None, *, title: str | None 
         draw_line(ax, line, labels=False)
         units = line.units
         ax.set_xlabel(f"load position x [{units.length}]" if units else "load position x")
-        ax.set_ylabel(f"ordinate [{line.unit}]" if line.unit else "ordinate")
+        unit = ordinate_unit(line)[1]
+        ax.set_ylabel(f"ordinate [{unit}]" if unit else "ordinate")
+        ordinate_axis(ax, line)
         ax.set_xlim(line.breakpoints[0], line.breakpoints[-1])
         ax.margins(y=0.2)
         breakpoint_ticks(ax, line)

@@ -7,10 +7,13 @@
 * ``<path>.md``: the same in Markdown with LaTeX formulas, its figures as SVG
   files in the folder ``<path>_figures/`` beside it.
 
-The sheet holds: the caution that results must be checked by a qualified
-engineer under the governing codes; the inputs (beam summary and diagram,
-units, sign conventions); for every influence line its Müller-Breslau sketch,
-key ordinates, ordinate table and derivation; the method and its sources.
+The sheet holds: a title block (project, structure, girder, prepared by,
+checked by, date, revision; :class:`TitleBlock`) and, in print, the page
+number with the title at the foot of every page; the caution that results
+must be checked by a qualified engineer under the governing codes; the
+inputs (beam summary and diagram, units, sign conventions); for every
+influence line its Müller-Breslau sketch, key ordinates, ordinate table and
+derivation; the method and its sources.
 
 Results from other parts of ilkit (placements, envelopes) join the sheet
 through ``results=``: each type adds its section with
@@ -25,6 +28,7 @@ from dataclasses import dataclass, replace
 from functools import singledispatch
 from pathlib import Path
 
+from ilkit._files import write_files
 from ilkit.errors import BeamInputError, UnsupportedResultError
 from ilkit.influence import InfluenceLine
 from ilkit.loads.combination import LoadModel
@@ -35,20 +39,16 @@ from ilkit.quantity import KINDS
 from ilkit.stiffness import UnitShape
 from ilkit.views import _doc, style
 from ilkit.views._doc import Block, Callout, Figure, Heading, Para, Table
+from ilkit.views.caution import CAUTION
 from ilkit.views.derive import SIGN_CONVENTIONS, derivation, quantity_title
 from ilkit.views.display import beam_figure, line_facts, line_figure
-from ilkit.views.plot import short
-from ilkit.views.tables import beam_facts, doc_table
+from ilkit.views.numbers import clean, effect_scale, short
+from ilkit.views.tables import beam_facts, ordinate_table
 
-__all__ = ["CAUTION", "CalculationSheet", "write_calculation_sheet", "sheet_blocks", "report_section", "default_lines"]
-
-CAUTION = (
-    "These results were produced by software as an aid to calculation. They must be checked by a qualified "
-    "engineer, who is responsible for their use; the governing design codes, the licensed current editions "
-    "of the standards and licensed professional practice take precedence over anything in this sheet."
-)
-"""The caution every calculation sheet carries, at its start and at its end."""
-
+__all__ = [
+    "CAUTION", "CalculationSheet", "TitleBlock", "TITLE_FIELDS", "write_calculation_sheet", "sheet_blocks",
+    "report_section", "default_lines",
+]
 
 _METHODS = {
     "Mechanism": "Statically determinate beams: the Müller-Breslau principle (virtual work on the beam with the "
@@ -71,6 +71,82 @@ class CalculationSheet:
     html: Path
     markdown: Path
     figures: Path
+
+
+@dataclass(frozen=True)
+class TitleBlock:
+    """The title block of a calculation sheet, at its head as on a drawing.
+
+    Every field is text; a field left empty is printed as an empty box, to
+    be filled in by hand (a date, a checker's initials).  The printed sheet
+    repeats the title, the project and the revision at the foot of every
+    page, with the page number (``page 3 of 12``).
+    """
+
+    project: str = ""
+    structure: str = ""
+    girder: str = ""
+    prepared_by: str = ""
+    checked_by: str = ""
+    date: str = ""
+    revision: str = ""
+
+    def __post_init__(self) -> None:
+        for name in TITLE_FIELDS:
+            value = getattr(self, name.replace(" ", "_"))
+            if not isinstance(value, str):
+                raise BeamInputError(
+                    f"TitleBlock: {name} must be text, got {type(value).__name__} {value!r:.60}; e.g. "
+                    f"TitleBlock({name.replace(' ', '_')}='...').",
+                    field=name,
+                    value=value,
+                )
+
+    @classmethod
+    def of(cls, value: TitleBlock | Mapping[str, str] | None) -> TitleBlock:
+        """``value`` as a title block: a :class:`TitleBlock`, a mapping with the fields as keys
+        (``{"project": ..., "prepared by": ...}``), or ``None`` (every field blank)."""
+        if value is None:
+            return cls()
+        if isinstance(value, TitleBlock):
+            return value
+        if not isinstance(value, Mapping):
+            raise BeamInputError(
+                f"write_calculation_sheet: title_block must be a TitleBlock or a mapping of its fields, got "
+                f"{type(value).__name__} {value!r:.60}.",
+                field="title_block",
+                value=value,
+            )
+        fields = {}
+        for key, text in value.items():
+            name = str(key).strip().lower().replace("_", " ")
+            if name not in TITLE_FIELDS:
+                raise BeamInputError(
+                    f"write_calculation_sheet: title_block has no field {key!r}; the fields are "
+                    f"{', '.join(repr(f) for f in TITLE_FIELDS)} (other header lines go in info=).",
+                    field="title_block",
+                    value=key,
+                )
+            fields[name.replace(" ", "_")] = text
+        return cls(**fields)
+
+    def blocks(self, title: str) -> list[Block]:
+        """The title block as document blocks: a boxed table of the fields and the title."""
+        rows = (
+            ("project", self.project, "revision", self.revision),
+            ("structure", self.structure, "date", self.date),
+            ("girder", self.girder, "prepared by", self.prepared_by),
+            ("calculation", title, "checked by", self.checked_by),
+        )
+        return [Table(("", "", "", ""), rows, "llll", "title-block")]
+
+    def footer(self, title: str) -> str:
+        """The words at the foot of every printed page (the page number follows them)."""
+        return " · ".join(t for t in (title, self.project, f"revision {self.revision}" if self.revision else "") if t)
+
+
+TITLE_FIELDS = ("project", "structure", "girder", "prepared by", "checked by", "date", "revision")
+"""The fields of a :class:`TitleBlock`, as they are printed."""
 
 
 def default_lines(beam: Beam) -> list[InfluenceLine]:
@@ -104,8 +180,8 @@ def _(line: InfluenceLine, number: str) -> list[Block]:
         Figure(style.figure_svg(fig), f"{number}: the beam displaced by the unit action (Müller-Breslau sketch)",
                f"line-{number.replace('.', '-')}"),
         Table(("key values", ""), tuple(line_facts(line))),
-        Para(("Ordinates at the breakpoints (both faces where the line jumps):",)),
-        doc_table(line.ordinates()),
+        Para(("Ordinates at the breakpoints (both sides where the line jumps):",)),
+        ordinate_table(line),
         Heading("Derivation", 4),
         *steps,
     ]
@@ -120,6 +196,7 @@ def sheet_blocks(
     divisions: int = 10,
     title: str = "Influence-line calculation sheet",
     info: Mapping[str, str] | None = None,
+    title_block: TitleBlock | Mapping[str, str] | None = None,
 ) -> list[Block]:
     """The sheet as document blocks (what :func:`write_calculation_sheet` renders)."""
     import ilkit
@@ -133,6 +210,10 @@ def sheet_blocks(
         chosen = listed(lines, wanted="write_calculation_sheet: lines: give a list of influence lines", field="lines")
         for line in chosen:
             expect(line, InfluenceLine, what="write_calculation_sheet: lines", hint="give influence lines")
+    results = listed(results, wanted="write_calculation_sheet: results: give a list of results, e.g. [found]",
+                     field="results", ordered=False)
+    _same_beam(beam, chosen, "lines")
+    _same_beam(beam, results, "results")
     if info is not None and not isinstance(info, Mapping):
         raise BeamInputError(
             "write_calculation_sheet: info must be a mapping of header fields, e.g. {'project': 'Bridge 12'}; "
@@ -140,8 +221,11 @@ def sheet_blocks(
             field="info",
             value=info,
         )
+    from ilkit.views.moving_records import placement_blocks
+
     moving = _moving_load(beam, chosen, load, divisions)  # computed before anything is drawn: bad input fails fast
-    blocks: list[Block] = [Heading(title, 1)]
+    block = TitleBlock.of(title_block)
+    blocks: list[Block] = [Heading(title, 1), *block.blocks(title)]
     if info:
         blocks.append(Table(("", ""), tuple((str(k), str(v)) for k, v in info.items())))
     blocks += [
@@ -172,10 +256,11 @@ def sheet_blocks(
             extremes_summary(moving.placements, f"{chapter}."),
         ]
         for i, found in enumerate(moving.placements, start=1):
-            blocks += report_section(found, f"{chapter}.{i}")
+            blocks += placement_blocks(found.maximum, f"{chapter}.{i}a", moving.model)
+            blocks += placement_blocks(found.minimum, f"{chapter}.{i}b", moving.model)
         blocks += [Heading(f"{chapter + 1}. Envelope", 2), *report_section(moving.envelope, f"{chapter + 1}.1")]
         chapter += 2
-    extra = list(results)
+    extra = results
     if extra:
         blocks.append(Heading(f"{chapter}. Further results", 2))
         for i, result in enumerate(extra, start=1):
@@ -200,6 +285,34 @@ def sheet_blocks(
     return blocks
 
 
+def _beam_of(result: object) -> Beam | None:
+    """The beam a result was computed on, where it says (lines, placements, extremes, envelopes)."""
+    if isinstance(result, Envelope):
+        return result.beam
+    if isinstance(result, Extremes):
+        result = result.maximum
+    line = result if isinstance(result, InfluenceLine) else getattr(result, "line", None)
+    if isinstance(line, InfluenceLine):
+        found = getattr(line.origin, "beam", None)
+        return found if isinstance(found, Beam) else None
+    return None
+
+
+def _same_beam(beam: Beam, items: Sequence[object], field: str) -> None:
+    """Refuse a result of another beam: a sheet about one beam must not show another's numbers."""
+    for i, item in enumerate(items):
+        other = _beam_of(item)
+        if other is not None and other != beam:
+            what = item.quantity.label if isinstance(item, InfluenceLine) else type(item).__name__
+            raise BeamInputError(
+                f"write_calculation_sheet: {field}[{i}] ({what}) belongs to another beam, {other!r}, not to the "
+                f"beam of this sheet, {beam!r}; a sheet shows one beam. Take the {field} from this beam "
+                "(e.g. beam.moment(x)), or write a sheet for the other one.",
+                field=field,
+                value=item,
+            )
+
+
 _PLACEMENT_METHOD = (
     "Moving loads: every axle train is tried in both directions of travel; axles off the beam count nothing; "
     "a uniform load that may be broken covers exactly the parts of the line of the wanted sign; the placements "
@@ -210,17 +323,23 @@ _PLACEMENT_METHOD = (
 
 
 def extremes_summary(found: Sequence[Extremes], prefix: str = "") -> Table:
-    """One row per quantity: the largest and the smallest value with their governing cases (core values,
-    five significant figures) and the section of the sheet that shows each placement."""
+    """One row per quantity: the largest and the smallest (most negative) value with their governing cases
+    (core values, five significant figures; an extreme of zero names no case) and, first, the paragraph of
+    the sheet that shows each placement."""
+    from ilkit.views.moving_records import NO_CASE
+
     rows = []
     for i, both in enumerate(found, start=1):
         hi, lo = both.maximum, both.minimum
         units = hi.line.units if hi.line is not None else None
         what = quantity_title(hi.quantity, units.length if units else "")
-        rows.append((f"{prefix}{i}", what, f"{short(hi.value, 5)} {hi.unit}", hi.case,
-                     f"{short(lo.value, 5)} {lo.unit}", lo.case))
-    return Table(("section", "quantity", "largest", "governing case", "smallest", "governing case"), tuple(rows),
-                 "llrlrl")
+        cells: list[str] = [f"{prefix}{i}", what]
+        for extreme in (hi, lo):
+            value = clean(extreme.value, effect_scale(extreme))
+            cells += [f"{short(value, 5)} {extreme.unit}", extreme.case if value else NO_CASE]
+        rows.append(tuple(cells))
+    header = ("see", "quantity", "largest", "governing case", "smallest (most negative)", "governing case")
+    return Table(header, tuple(rows), "llrlrl")
 
 
 @dataclass(frozen=True)
@@ -271,15 +390,29 @@ math { font-family: 'STIX Two Math', 'Cambria Math', 'Latin Modern Math', 'DejaV
   font-size: 1.05em; }
 math[display="block"] { margin: .6rem 0; }
 mtable.cases mtd { text-align: left; }
-@media print { body { background: white; } main.sheet { box-shadow: none; margin: 0; max-width: none; }
-  h3 { break-before: page; } figure, table { break-inside: avoid; } }
+table.title-block { width: 100%; border: 1.5px solid #1c1c1c; margin: .4rem 0 1rem; }
+table.title-block td { border: 1px solid #1c1c1c; height: 1.4rem; }
+table.title-block td:nth-child(odd) { width: 7rem; min-width: 0; color: #5a5a5a; font-size: 11px;
+  text-transform: uppercase; letter-spacing: .04em; }
+@media print { body { background: white; } main.sheet { box-shadow: none; margin: 0; max-width: none;
+  padding: 0; } h3 { break-before: page; } figure, table { break-inside: avoid; } }
+@page { size: A4; margin: 16mm 14mm 18mm 14mm;
+  @bottom-right { content: "page " counter(page) " of " counter(pages); font: 9px 'DejaVu Sans', sans-serif; }
+  @bottom-left { content: var(--footer); font: 9px 'DejaVu Sans', sans-serif; } }
 """
 
 
-def _page(title: str, body: str) -> str:
+def _css_text(text: str) -> str:
+    """``text`` as a CSS string (quotes, backslashes and ``<`` escaped; one line)."""
+    escaped = "".join(f"\\{ord(c):x} " if c in '"\\<>' or ord(c) < 32 else c for c in text)
+    return f'"{escaped}"'
+
+
+def _page(title: str, body: str, footer: str = "") -> str:
+    page_css = _CSS.replace("var(--footer)", _css_text(footer or title))
     return (
         '<!DOCTYPE html>\n<html lang="en">\n<head>\n<meta charset="utf-8">\n'
-        f"<title>{html.escape(title)}</title>\n<style>{_CSS}</style>\n</head>\n"
+        f"<title>{html.escape(title)}</title>\n<style>{page_css}</style>\n</head>\n"
         f'<body>\n<main class="sheet">\n{body}\n</main>\n</body>\n</html>\n'
     )
 
@@ -310,6 +443,7 @@ def write_calculation_sheet(
     results: Iterable[object] = (),
     title: str = "Influence-line calculation sheet",
     info: Mapping[str, str] | None = None,
+    title_block: TitleBlock | Mapping[str, str] | None = None,
 ) -> CalculationSheet:
     """Write the calculation sheet of ``beam`` as HTML and Markdown; returns the paths.
 
@@ -321,6 +455,10 @@ def write_calculation_sheet(
         Where to write: ``"out/girder"``, ``"out/girder.html"`` or
         ``"out/girder.md"`` all write ``out/girder.html``, ``out/girder.md``
         and the folder ``out/girder_figures/``.  Missing folders are created.
+        The files are written all or none: everything is rendered first,
+        then written to temporary files and renamed, so a failure leaves
+        an earlier sheet at the same path whole (never new HTML beside old
+        Markdown); file-system faults raise :class:`ilkit.WriteError`.
     lines:
         Influence lines to show, each with sketch, ordinates and derivation;
         default :func:`default_lines`.  A line whose derivation cannot be
@@ -340,24 +478,35 @@ def write_calculation_sheet(
         Sections of the envelope: equal parts per span and overhang.
     results:
         Further results with a registered :func:`report_section`.
-    title, info:
-        The sheet's title, and header fields such as
-        ``{"project": ..., "prepared by": ..., "date": ...}``.
+    title:
+        The sheet's title.
+    title_block:
+        The title block at the head of the sheet (:class:`TitleBlock`, or a
+        mapping ``{"project": ..., "structure": ..., "girder": ...,
+        "prepared by": ..., "checked by": ..., "date": ..., "revision": ...}``);
+        fields not given are left as empty boxes to fill in by hand.  The
+        printed sheet carries the title, project and revision and the page
+        number (``page 3 of 12``) at the foot of every page.
+    info:
+        Further header lines, e.g. ``{"scenario": ..., "live load": ...}``.
     """
     stem = _stem(path)
-    blocks = sheet_blocks(beam, lines, results, load=load, divisions=divisions, title=title, info=info)
-    stem.parent.mkdir(parents=True, exist_ok=True)
+    block = TitleBlock.of(title_block)
+    blocks = sheet_blocks(beam, lines, results, load=load, divisions=divisions, title=title, info=info,
+                          title_block=block)
     figures = stem.parent / f"{stem.name}_figures"
-    figures.mkdir(exist_ok=True)
+    svgs: dict[Path, str] = {}
 
     def link(fig: Figure) -> str:
         target = figures / f"{fig.name}.svg"
-        target.write_text(fig.svg, encoding="utf-8")
+        svgs[target] = fig.svg
         return f"{figures.name}/{target.name}"
 
     html_path = stem.with_suffix(".html")
     md_path = stem.with_suffix(".md")
-    html_path.write_text(_page(title, _doc.to_html(blocks)), encoding="utf-8")
-    md_path.write_text(_doc.to_markdown(blocks, link), encoding="utf-8")
+    markdown = _doc.to_markdown(blocks, link)
+    page = _page(title, _doc.to_html(blocks), block.footer(title))
+    # all files or none: a failure never leaves new HTML beside old Markdown
+    write_files({html_path: page, md_path: markdown, **svgs}, what="write_calculation_sheet")
     return CalculationSheet(html_path, md_path, figures)
 

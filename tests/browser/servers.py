@@ -43,10 +43,12 @@ def free_port() -> int:
 
 def _env(tmp: Path) -> dict[str, str]:
     env = dict(os.environ)
-    for name in ("JUPYTER_RUNTIME_DIR", "JUPYTER_CONFIG_DIR", "IPYTHONDIR", "MPLCONFIGDIR"):
+    # the machine's own Jupyter folders (a user's kernelspecs, settings) stay out of the test
+    for name in ("JUPYTER_RUNTIME_DIR", "JUPYTER_CONFIG_DIR", "JUPYTER_DATA_DIR", "IPYTHONDIR", "MPLCONFIGDIR"):
         folder = tmp / name.lower()
         folder.mkdir(exist_ok=True)
         env[name] = str(folder)
+    env["JUPYTER_PATH"] = env["JUPYTER_DATA_DIR"]
     env["PYTHONPATH"] = str(ROOT) + os.pathsep + env.get("PYTHONPATH", "")
     # no "get notified about Jupyter news?" pop-up over the page (and no calls out for news)
     labconfig = tmp / "jupyter_config_dir" / "labconfig"

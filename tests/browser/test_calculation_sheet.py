@@ -111,3 +111,28 @@ def test_rich_displays_render_in_jupyterlab(page, tmp_path, artifacts):
         assert derivation.locator("mjx-container, .MathJax").count() > 10
         assert "Ordinates at the breakpoints" in derivation.text_content()
         page.screenshot(path=str(artifacts / "lab-calculation-record.png"), full_page=False)
+
+
+def test_printed_sheet_has_its_title_block_and_page_numbers(page, sheet, artifacts):
+    # regression: the sheet had no title block and its printed pages no numbers
+    import io
+    import unicodedata
+
+    from pypdf import PdfReader
+
+    open_sheet(page, sheet.html)
+    block = page.locator("table.title-block")
+    assert block.count() == 1 and block.is_visible()
+    cells = block.locator("td").all_inner_texts()
+    for label in ("project", "structure", "girder", "prepared by", "checked by", "date", "revision"):
+        assert label.upper() in cells or label in cells
+    assert "ilkit demo study (invented data)" in cells and "2025-01-15" in cells
+    pdf = page.pdf(format="A4", print_background=True)
+    (artifacts / "calculation-sheet.pdf").write_bytes(pdf)
+    pages = PdfReader(io.BytesIO(pdf)).pages
+    assert len(pages) > 3
+    for number, printed in enumerate(pages, start=1):
+        text = " ".join(unicodedata.normalize("NFKC", printed.extract_text()).split())  # ligatures as letters
+        assert f"page {number} of {len(pages)}" in text, (number, text[-200:])
+        assert "Three-span girder with a suspended span: influence lines" in text
+        assert "revision A" in text
