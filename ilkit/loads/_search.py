@@ -441,11 +441,20 @@ def events(table: _Table, lines: Lines) -> tuple[Rows, np.ndarray, np.ndarray]:
     rows = Rows(g[keep], r[keep], knot[keep], anchor[keep], zero, zero.astype(int))
     first = np.nonzero(keep)[0]
     faces = np.logical_or.reduceat(np.concatenate(jumps)[order], first)
-    total = np.cumsum(np.concatenate(changes)[order], axis=0)
-    start = np.maximum.accumulate(np.where(block, np.arange(y.size), 0))  # first row of each row's block
-    before = np.where((start > 0)[:, None], total[np.maximum(start - 1, 0)], 0.0)
+    # the running sum of the changes, block by block (laid out one block per row, so that no block's sum
+    # depends on the others: a line gives the same alone and among many)
+    changes_sorted = np.concatenate(changes)[order]
+    total = np.empty_like(changes_sorted)
+    edges = np.concatenate(([0], np.nonzero(g[1:] != g[:-1])[0] + 1, [g.size]))
+    for lo, hi in zip(edges[:-1], edges[1:]):  # group by group, so that the layout wastes little
+        starts = np.nonzero(block[lo:hi])[0]
+        which = np.cumsum(block[lo:hi]) - 1
+        slot = np.arange(hi - lo) - starts[which]
+        laid = np.zeros((starts.size, int(slot.max(initial=0)) + 1, changes_sorted.shape[1]))
+        laid[which, slot] = changes_sorted[lo:hi]
+        total[lo:hi] = np.cumsum(laid, axis=1)[which, slot]
     last = np.append(first[1:] - 1, y.size - 1)  # the last row of each run of one event
-    return rows, (total - before)[last], faces
+    return rows, total[last], faces
 
 
 def _crossing(ls: LineSet, r: np.ndarray, j: np.ndarray, a: np.ndarray, w: np.ndarray) -> np.ndarray:
