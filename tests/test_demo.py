@@ -3,8 +3,10 @@
 from __future__ import annotations
 
 import nbformat
+import pytest
 
 from ilkit import demo
+from ilkit._files import write_file
 
 
 def test_demo_writes_index_pages_and_figures(tmp_path):
@@ -139,11 +141,9 @@ def test_demo_runs_the_notebooks_in_this_python(tmp_path, monkeypatch):
 def test_a_failed_page_write_leaves_the_existing_page_untouched(tmp_path):
     page = tmp_path / "study.html"
     page.write_text("the page of the last run", encoding="utf-8")
-    try:
-        demo._write(page, "half a page \ud800")  # a lone surrogate cannot be written as UTF-8
-    except UnicodeEncodeError:
-        pass
+    with pytest.raises(UnicodeEncodeError):  # a lone surrogate cannot be written as UTF-8
+        write_file(page, "half a page \ud800", what="demo")
     assert page.read_text(encoding="utf-8") == "the page of the last run"
     assert [p.name for p in tmp_path.iterdir()] == ["study.html"]  # no temporary file left
-    demo._write(page, "the new page")
+    write_file(page, "the new page", what="demo")
     assert page.read_text(encoding="utf-8") == "the new page"

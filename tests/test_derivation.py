@@ -110,12 +110,18 @@ def test_printed_breakpoint_ordinates_are_the_core_values(line: InfluenceLine) -
     assert {x for x, _ in seen} == set(line.exact_breakpoints)
 
 
-def test_simple_span_moment_matches_the_handbook_formula() -> None:
+def test_simple_span_moment_matches_the_handbook_formula(reference) -> None:
     # Simple span L, section a: M-line = x (L - a) / L for x <= a, a (L - x) / L for x >= a
-    # (closed form from statics of a simply supported beam: common practice).
+    # (the handbook case "simple beam, concentrated load at any point", read at the section by Maxwell).
     L, a = Fraction(20), Fraction(15, 2)
     beam = ilkit.Beam(L, {0: "pin", L: "roller"})
     d = derivation(beam.moment(a))
+    xs = (Fraction(3), a, Fraction(12))
+    reference("derived moment line at a = 15/2 of a 20 span, load at x = 3, 15/2, 12",
+              computed=[d.expression.subs(X, x) for x in xs],
+              expected=[x * (L - a) / L if x <= a else a * (L - x) / L for x in xs],
+              source="AISC Steel Construction Manual, Table 3-23 (beam diagrams and formulas)",
+              clause="simple beam, concentrated load at any point: M = P a b / l", from_memory=True)
     expected = sympy.Piecewise(
         (0, X < 0), (X * (L - a) / L, X < a), (a * (L - X) / L, X <= L), (0, True)
     )

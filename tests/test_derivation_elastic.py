@@ -36,7 +36,7 @@ def hermite(v1, r1, v2, r2, a, b):
     )
 
 
-def test_simple_span_deflection_matches_the_handbook() -> None:
+def test_simple_span_deflection_matches_the_handbook(reference) -> None:
     # Simply supported span L = 20, EI = 1000, unit load at midspan (closed forms, common practice):
     # end slopes P L² / (16 EI) = 1/40, clamped-end moments P L / 8 = 5/2, midspan deflection
     # P L³ / (48 EI) = 1/6 (Maxwell: the deflection line's ordinate at midspan).
@@ -47,20 +47,26 @@ def test_simple_span_deflection_matches_the_handbook() -> None:
     assert [(r[1].text, r[2].text, r[3].text) for r in nodal.rows] == [("0", "0", "1/40"), ("20", "0", "-1/40")]
     loads = table_after(d, "Loads")
     assert [c.text for c in loads.rows[0]] == ["1/2", "5/2", "1/2", "-5/2"]
-    assert d.expression.subs(X, 10) == sympy.Rational(1, 6)
+    reference("derived midspan deflection line of a 20 span, EI = 1000, load at midspan",
+              computed=d.expression.subs(X, 10), expected=sympy.Rational(20**3, 48 * 1000),
+              source="AISC Steel Construction Manual, Table 3-23 (beam diagrams and formulas)",
+              clause="simple beam, concentrated load at center: Δmax = P l³ / (48 EI)", from_memory=True)
     text = d.to_text()
     assert "a unit downward force at x=10" in text and "exactly, in rational arithmetic" in text
 
 
-def test_two_span_middle_reaction_matches_the_closed_form() -> None:
+def test_two_span_middle_reaction_matches_the_closed_form(reference) -> None:
     # Two equal spans L: R_B(x) = x (3L² - x²) / (2L³) for 0 <= x <= L (flexibility method written out:
     # deflection of the 2L span at B under a unit load at x, x (3L² - x²)/(12 EI), over that under a
     # unit load at B, L³/(6 EI)).
     L = 10
     beam = ilkit.Beam(2 * L, {0: "pin", L: "roller", 2 * L: "roller"}, EI=1)
     d = derivation(beam.reaction(L, exact=True), method="stiffness")
-    for x in (Fraction(1), Fraction(5, 2), Fraction(7)):
-        assert d.expression.subs(X, x) == x * (3 * L**2 - x**2) / (2 * L**3)
+    xs = (Fraction(1), Fraction(5, 2), Fraction(7))
+    reference("derived middle reaction of two equal 10 spans, load at x = 1, 5/2, 7",
+              computed=[d.expression.subs(X, x) for x in xs], expected=[x * (3 * L**2 - x**2) / (2 * L**3) for x in xs],
+              source="AISC Steel Construction Manual, Table 3-23 (beam diagrams and formulas)",
+              clause="continuous beam, two equal spans, concentrated load at any point", from_memory=True)
     assert "the bearing at x=10 settles by 1" in d.to_text()
 
 

@@ -243,7 +243,7 @@ def test_envelope_on_every_support_kind_matches_placement_on_each_line(name):
     assert best.value == place(beam.moment(best.quantity.at), PAIR, beam=beam).value
 
 
-def test_envelope_ties_at_an_interior_fixed_support_do_not_compare_results():
+def test_envelope_ties_at_an_interior_fixed_support_do_not_compare_results(reference):
     # Propped cantilevers on either side of the fixed support at x = 10: spans of 10 m and 16 m.  Beam fixed at
     # one end and simply supported at the other under a uniform load w (AISC Steel Construction Manual, Table
     # 3-23, case 12, from memory; also the compatibility of the prop): fixed-end moment -w l^2 / 8, largest
@@ -253,10 +253,17 @@ def test_envelope_ties_at_an_interior_fixed_support_do_not_compare_results():
     w = 5
     env = envelope(beam, UniformLoad(w, units="kN-m"), divisions=8)
     rows = env.sections.set_index(["x [m]", "side"])
-    assert rows.loc[(10.0, "left"), "M min [kN·m]"] == pytest.approx(-w * 10**2 / 8, rel=1e-12)
-    assert rows.loc[(10.0, "right"), "M min [kN·m]"] == pytest.approx(-w * 16**2 / 8, rel=1e-12)
-    assert rows.loc[(3.75, ""), "M max [kN·m]"] == pytest.approx(9 * w * 10**2 / 128, rel=1e-12)
-    assert rows.loc[(20.0, ""), "M max [kN·m]"] == pytest.approx(9 * w * 16**2 / 128, rel=1e-12)
+    aisc = dict(source="AISC Steel Construction Manual, Table 3-23 (beam diagrams and formulas)",
+                clause="case 12: beam fixed at one end, supported at the other, uniformly distributed load",
+                from_memory=True, rel=1e-12)
+    reference("fixed-end moment of the 10 m propped span, w = 5 kN/m: -w l²/8",
+              computed=rows.loc[(10.0, "left"), "M min [kN·m]"], expected=-w * 10**2 / 8, **aisc)
+    reference("fixed-end moment of the 16 m propped span, w = 5 kN/m: -w l²/8",
+              computed=rows.loc[(10.0, "right"), "M min [kN·m]"], expected=-w * 16**2 / 8, **aisc)
+    reference("largest sagging moment of the 10 m propped span at 3l/8: 9 w l²/128",
+              computed=rows.loc[(3.75, ""), "M max [kN·m]"], expected=9 * w * 10**2 / 128, **aisc)
+    reference("largest sagging moment of the 16 m propped span at 3l/8: 9 w l²/128",
+              computed=rows.loc[(20.0, ""), "M max [kN·m]"], expected=9 * w * 16**2 / 128, **aisc)
     best = env.absolute_maximum_moment
     assert best.value == pytest.approx(9 * w * 16**2 / 128, rel=1e-9)
     assert float(best.quantity.at) == pytest.approx(20, abs=1e-4)
@@ -264,14 +271,17 @@ def test_envelope_ties_at_an_interior_fixed_support_do_not_compare_results():
     assert env.extreme("moment", 10, "min", side="right").value == rows.loc[(10.0, "right"), "M min [kN·m]"]
 
 
-def test_symmetric_girder_reports_both_mirror_positions_of_the_absolute_maximum():
+def test_symmetric_girder_reports_both_mirror_positions_of_the_absolute_maximum(reference):
     # regression: a symmetric girder's absolute maximum was given at one of two mirror positions without a word.
     # Two equal moving loads P at d on a simple span L (AISC Steel Construction Manual, Table 3-23, case 44,
     # from memory): M max = P (2L - d)^2 / (8L), under one load at d/4 from midspan, on either side.
     P, d, L = 180, 3.2, 12
     trolley = AxleTrain([P, P], [d], units="kN-m", name="trolley")
     env = envelope(ilkit.Beam(L, {0: "pin", L: "roller"}, units="kN-m"), trolley, divisions=12)
-    assert env.absolute_maximum_moment.value == pytest.approx(P * (2 * L - d) ** 2 / (8 * L), rel=1e-9)
+    reference("absolute maximum moment of two 180 kN loads 3.2 m apart on a 12 m span: P (2L - d)² / (8L)",
+              computed=env.absolute_maximum_moment.value, expected=P * (2 * L - d) ** 2 / (8 * L), rel=1e-9,
+              source="AISC Steel Construction Manual, Table 3-23 (beam diagrams and formulas)",
+              clause="case 44: simple beam, two equal concentrated moving loads", from_memory=True)
     assert env.absolute_maximum_positions == pytest.approx((L / 2 - d / 4, L / 2 + d / 4), abs=1e-5 * L)
     # the continuous girder of the demo is symmetric too (90 + 115 + 90 ft): mirror positions about 147.5
     env = envelope(ilkit.Beam(295, {0: "pin", 90: "roller", 205: "roller", 295: "roller"}, EI=1, units="kip-ft"),
@@ -282,3 +292,16 @@ def test_symmetric_girder_reports_both_mirror_positions_of_the_absolute_maximum(
     env = envelope(ilkit.Beam(30, {0: "pin", 12: "roller", 30: "roller"}, EI=1, units="kN-m"),
                    UniformLoad(5, units="kN-m"), divisions=10)
     assert len(env.absolute_maximum_positions) == 1
+
+
+def test_envelope_extreme_at_a_jump_asks_for_the_side():
+    # regression: env.extreme("shear", 105) at a pier silently returned the left side
+    beam = ilkit.Beam(200, {0: "pin", 105: "roller", 200: "roller"}, EI=1e6, units="kip-ft")
+    env = envelope(beam, hl93(), divisions=2)
+    with pytest.raises(ilkit.SideRequiredError, match="side='left'"):
+        env.extreme("shear", 105)
+    left, right = env.extreme("shear", 105, side="left"), env.extreme("shear", 105, side="right")
+    assert left.quantity.side == "left" and right.quantity.side == "right"
+    assert left.value != right.value
+    # the moment does not jump over a roller: both sides hold one value and no side is needed
+    assert env.extreme("moment", 105, "min").value == env.extreme("moment", 105, "min", side="right").value

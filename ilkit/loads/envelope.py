@@ -18,7 +18,7 @@ from typing import TYPE_CHECKING, Any, Literal
 from ilkit._check import choice, listed, whole
 from ilkit._display import RichDisplay
 from ilkit._exact import fmt, fmt_precise
-from ilkit.errors import LoadInputError, UnitsError
+from ilkit.errors import LoadInputError, SideRequiredError, UnitsError
 from ilkit.loads.combination import Combination, LoadModel, as_model
 from ilkit.loads.placement import extremes_of, maxima_of
 from ilkit.loads.primitives import Load
@@ -89,8 +89,11 @@ class Envelope(RichDisplay):
         """The governing placement behind one entry of the tables.
 
         ``quantity`` is ``"moment"``, ``"shear"`` or ``"reaction"``; ``at`` a
-        section or support of the tables; ``side`` picks the side where there
-        are two (the left one if not given).
+        section or support of the tables; ``side`` picks the side where the
+        quantity jumps (at a pier, a release or its own section) and must be
+        given there, as for :meth:`ilkit.Beam.shear`: without it such a call
+        raises :class:`ilkit.SideRequiredError`.  Where the quantity does not
+        jump, both sides hold the same value and ``side`` may be left out.
         """
         kinds = ("moment", "shear", "reaction")
         choice(quantity, kinds, what="extreme: quantity", field="quantity", error=LoadInputError)
@@ -109,8 +112,21 @@ class Envelope(RichDisplay):
                 field="at",
                 value=at,
             )
+        if side is None and {k[2] for k in keys} == {"left", "right"}:
+            _needs_no_side(self.beam, quantity, keys[0][1])
         found = self._found[keys[0]]
         return found.maximum if extreme == "max" else found.minimum
+
+
+def _needs_no_side(beam: Beam, quantity: str, pos: Fraction) -> None:
+    """Raise :class:`SideRequiredError` where ``quantity`` jumps at ``pos`` (the beam decides, as for its lines)."""
+    try:
+        beam.line(quantity, pos)
+    except SideRequiredError as err:
+        raise SideRequiredError(
+            f"extreme: the {quantity} jumps at x={fmt_precise(pos)}, so the envelope holds two values there; "
+            f"name the side: env.extreme({quantity!r}, {fmt(pos)}, side='left') or side='right'."
+        ) from err
 
 
 def envelope(
