@@ -98,18 +98,18 @@ def girder_concurrent():
 
 def _extreme_of(env, row):
     """The envelope's extreme behind a row of the concurrent table."""
-    return env.extreme(row.quantity, row.x, row.extreme, side=row.side or None)
+    return env.extreme(row["quantity"], row["x"], row["extreme"], side=row["side"] or None)
 
 
 def test_concurrent_forces_equal_the_statics_of_the_placed_loads(girder_concurrent, reference):
     beam, env, found = girder_concurrent
     assert not found.notes
     expected, computed = [], []
-    for r in found.frame.itertuples():
-        at = beam.position(r._8)
-        face = r._9 or None
-        expected.append(_statics(beam, _extreme_of(env, r), r._7, at, face))
-        computed.append(r._10)
+    for r in found.frame.to_dict("records"):
+        at = beam.position(r["concurrent x"])
+        face = r["concurrent side"] or None
+        expected.append(_statics(beam, _extreme_of(env, r), r["concurrent quantity"], at, face))
+        computed.append(r["concurrent value"])
     reference(f"concurrent moments, shears and reactions of {len(found.extremes)} extremes on a girder built into the "
               "abutment with a hinge (our load model)", expected=expected, computed=computed,
               source="statics of the loaded beam, written in the test (reactions from the independent solver of "
@@ -137,13 +137,16 @@ def test_own_quantity_reproduces_the_extreme_and_faces_differ_by_the_axle(girder
 
 def test_tables(girder_concurrent):
     _, _, found = girder_concurrent
-    assert list(found.moment_with_shear().columns) == ["x [m]", "side", "extreme", "case", "M [kN·m]", "V side",
-                                                       "V [kN]"]
-    assert list(found.shear_with_moment().columns) == ["x [m]", "side", "extreme", "case", "V [kN]", "M side",
-                                                       "M [kN·m]"]
+    assert list(found.moment_with_shear().columns) == ["x [m]", "side", "extreme", "case", "dynamic", "M [kN·m]",
+                                                       "V side", "V [kN]"]
+    assert list(found.shear_with_moment().columns) == ["x [m]", "side", "extreme", "case", "dynamic", "V [kN]",
+                                                       "M side", "M [kN·m]"]
     reactions = found.reactions()
-    assert list(reactions.columns) == ["quantity", "x [m]", "side", "extreme", "case", "value", "R at x=0 [kN]",
-                                       "R at x=31.2 [kN]"]
+    assert list(reactions.columns) == ["quantity", "x [m]", "side", "extreme", "case", "dynamic", "value",
+                                       "R at x=0 [kN]", "R at x=31.2 [kN]"]
+    assert set(found.frame["dynamic"]) <= {"dynamic allowance 70 %", "no dynamic effect"}
+    # the record of factors: the allowance on the vehicle, in the values already (listed, not multiplied)
+    assert found.factors.describe() == "IM 70 % (four-axle vehicle)" and found.factors.product == 1.0
     assert len(reactions) == len(found.extremes)
     assert repr(found).startswith("ConcurrentForces(") and "units='kN-m'" in repr(found)
     assert isinstance(found, ConcurrentForces)
@@ -189,12 +192,13 @@ def test_continuous_girder_concurrent_forces_by_definition(model, reference):
     env = envelope(beam, model, divisions=5)
     found = concurrent_forces(env)
     expected, computed = [], []
-    for r in found.frame.itertuples():
+    for r in found.frame.to_dict("records"):
         e = _extreme_of(env, r)
-        face = r._9 or None
-        line = beam.line(r._7, r._8, face if r._7 != "reaction" else None)
+        face = r["concurrent side"] or None
+        kind = r["concurrent quantity"]
+        line = beam.line(kind, r["concurrent x"], face if kind != "reaction" else None)
         expected.append(_by_definition(line, e, face))
-        computed.append(r._10)
+        computed.append(r["concurrent value"])
     reference(f"{model.name} on a three-span continuous girder: concurrent moments, shears and reactions of every "
               "extreme", expected=expected, computed=computed, source="the definition, written in the test: loads "
               "times ordinates, stretches by Gauss-Legendre quadrature on each cubic piece",

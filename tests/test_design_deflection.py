@@ -6,7 +6,7 @@ import numpy as np
 import pytest
 
 import ilkit
-from ilkit.design import DeflectionCheck, aashto_deflection_load, deflection_check
+from ilkit.design import DeflectionCheck, Factor, aashto_deflection_load, deflection_check
 from ilkit.loads import AxleTrain, UniformLoad
 
 AASHTO = "AASHTO LRFD Bridge Design Specifications"
@@ -84,7 +84,14 @@ def test_share_is_lanes_times_multiple_presence_over_girders(reference):
         assert [f.kind for f in check.factors] == ["dynamic allowance", "lanes", "multiple presence", "distribution"]
     given = deflection_check(beam, lanes=2, girders=4, multiple_presence_factor=1.0, divisions=2)
     assert given.share == pytest.approx(0.5)
-    assert given.factors[2].source == ""  # given by the user
+    assert given.factors.get("multiple presence").source == ""  # given by the user
+    assert given.factors.get("dynamic allowance").parts == ("design truck", "25 % design truck")
+    assert given.factors.describe() == "IM 33 % (design truck, 25 % design truck) × N_L 2.00 × m 1.00 × 1/N_b 0.25"
+    # a share given as a factor that includes multiple presence refuses a second one
+    g = Factor("distribution", 0.55, "g_δ", includes=("multiple presence",))
+    assert deflection_check(beam, share=g, divisions=2).share == pytest.approx(0.55)
+    with pytest.raises(ilkit.FactorAppliedTwiceError):
+        deflection_check(beam, share=Factor("dynamic allowance", 1.33, "IM"), divisions=2)
 
 
 def test_limits_for_pedestrians_and_overhangs(reference):
@@ -126,7 +133,7 @@ def test_any_load_model_with_a_given_share():
     # two 100 kN loads 1.2 m apart at midspan ± 0.6: AISC simple beam, concentrated load at any point (from memory)
     by_hand = 0.6 * 100 * float(_point_deflection(30, 2.5e6, 14.4, 15) + _point_deflection(30, 2.5e6, 15.6, 15))
     assert float(check.envelope.loc[check.envelope["x [m]"] == 15, "max [m]"].iloc[0]) == pytest.approx(by_hand)
-    assert [f.kind for f in check.factors] == ["distribution"]
+    assert [f.kind for f in check.factors] == ["distribution"]  # the tandem of our own has no dynamic allowance
     uniform = deflection_check(beam, UniformLoad(10, units="kN-m", name="crowd"), share=1, divisions=2)
     assert uniform.spans["deflection [m]"].iloc[0] == pytest.approx(5 * 10 * 30**4 / (384 * 2.5e6), rel=1e-7)
 
@@ -146,15 +153,15 @@ def test_deflection_loading_is_data_with_its_sources():
         (lambda b: deflection_check(b.replace(EI=None), share=1), ilkit.StiffnessRequiredError, "flexural stiffness"),
         (lambda b: deflection_check(ilkit.Beam(10, {0: "pin", 10: "roller"}, EI=1), share=1), ilkit.UnitsError,
          "declares no units"),
-        (lambda b: deflection_check(b), ilkit.LoadInputError, "number of design lanes and of girders"),
-        (lambda b: deflection_check(b, lanes=2), ilkit.LoadInputError, "number of design lanes and of girders"),
-        (lambda b: deflection_check(b, share=0.5, lanes=2, girders=4), ilkit.LoadInputError, "not both"),
-        (lambda b: deflection_check(b, lanes=0, girders=4), ilkit.LoadInputError, "lanes: the number of design lanes"),
-        (lambda b: deflection_check(b, lanes=2, girders=2.5), ilkit.LoadInputError, "girders: the number of girders"),
-        (lambda b: deflection_check(b, share=-1), ilkit.LoadInputError, "share: must be greater than 0"),
-        (lambda b: deflection_check(b, share=1, limit=0), ilkit.LoadInputError, "limit: must be greater than 0"),
-        (lambda b: deflection_check(b, share=1, pedestrians="yes"), ilkit.LoadInputError, "pedestrians: give True"),
-        (lambda b: deflection_check("beam", share=1), ilkit.LoadInputError, "give a Beam"),
+        (lambda b: deflection_check(b), ilkit.DesignInputError, "number of design lanes and of girders"),
+        (lambda b: deflection_check(b, lanes=2), ilkit.DesignInputError, "number of design lanes and of girders"),
+        (lambda b: deflection_check(b, share=0.5, lanes=2, girders=4), ilkit.DesignInputError, "not both"),
+        (lambda b: deflection_check(b, lanes=0, girders=4), ilkit.DesignInputError, "lanes: the number of design"),
+        (lambda b: deflection_check(b, lanes=2, girders=2.5), ilkit.DesignInputError, "girders: the number of"),
+        (lambda b: deflection_check(b, share=-1), ilkit.DesignInputError, "share: must be greater than 0"),
+        (lambda b: deflection_check(b, share=1, limit=0), ilkit.DesignInputError, "limit: must be greater than 0"),
+        (lambda b: deflection_check(b, share=1, pedestrians="yes"), ilkit.DesignInputError, "pedestrians: give True"),
+        (lambda b: deflection_check("beam", share=1), ilkit.DesignInputError, "give a Beam"),
         (lambda b: deflection_check(b, "truck", share=1), ilkit.LoadInputError, "expected a load"),
         (lambda b: aashto_deflection_load(-0.1), ilkit.LoadInputError, "dynamic_allowance: must be at least 0"),
     ],

@@ -26,14 +26,25 @@ from ilkit import BeamInputError, IlkitError, IllConditionedError, LoadInputErro
 from ilkit.design import (
     Applied,
     CrossSection,
+    DistributedLoad,
     Factor,
     GirderLiveLoad,
     LimitState,
+    PointLoad,
+    Section,
+    Settlement,
+    SpanLoad,
+    Stage,
+    aashto_deflection_load,
     aashto_distribution,
+    concurrent_forces,
+    deflection_check,
     design_lanes,
+    envelope_sections,
     given_distribution,
     limit_states,
     notional_lanes,
+    permanent_effects,
     place_design_lanes,
     transverse_line,
 )
@@ -562,6 +573,15 @@ JUNK = st.one_of(
 _LINE = TWO_SPANS.moment(5)
 _DECK = CrossSection(4, 8.0, 3.0, 1.0)
 _ENVELOPE = envelope(SPAN, KNIFE, divisions=2)
+_DEAD = DistributedLoad("w", "DC", 1)
+_PERMANENT = permanent_effects(TWO_SPANS, [_DEAD], divisions=2)
+_EXTREME = place(TWO_SPANS.moment(5), KNIFE)
+
+
+def _permanent(load, **options):
+    return permanent_effects(TWO_SPANS, [load], divisions=1, quantities=("moment", "reaction"), **options)
+
+
 ENTRY_POINTS = {
     "Beam.length": lambda v: ilkit.Beam(v, {0: "fixed"}),
     "Beam.supports": lambda v: ilkit.Beam(10, v),
@@ -631,6 +651,30 @@ ENTRY_POINTS = {
     "limit_states": lambda v: limit_states(v),
     "GirderLiveLoad lanes": lambda v: GirderLiveLoad(hl93(), lanes=v),
     "GirderLiveLoad multiple_presence": lambda v: GirderLiveLoad(hl93(), multiple_presence=v),
+    "Section": lambda v: Section(v),
+    "Section side": lambda v: Section(1, v),
+    "envelope_sections at": lambda v: envelope_sections(TWO_SPANS, 2, at=[v]),
+    "envelope_sections divisions": lambda v: envelope_sections(TWO_SPANS, v),
+    "DistributedLoad intensity": lambda v: _permanent(DistributedLoad("w", "DC", v)),
+    "DistributedLoad start": lambda v: _permanent(DistributedLoad("w", "DC", 1, start=v)),
+    "DistributedLoad category": lambda v: DistributedLoad("w", v, 1),
+    "SpanLoad span": lambda v: _permanent(SpanLoad("w", "DC", 1, v)),
+    "PointLoad load": lambda v: _permanent(PointLoad("p", "DC", v, 5)),
+    "PointLoad at": lambda v: _permanent(PointLoad("p", "DC", 1, v)),
+    "Settlement at": lambda v: _permanent(Settlement("s", v, 0.01)),
+    "Settlement displacement": lambda v: _permanent(Settlement("s", 10, v)),
+    "Stage loads": lambda v: Stage("s", TWO_SPANS, v),
+    "permanent_effects stages": lambda v: permanent_effects(v),
+    "permanent_effects quantities": lambda v: permanent_effects(TWO_SPANS, [_DEAD], divisions=1, quantities=v),
+    "permanent_effects sections": lambda v: permanent_effects(TWO_SPANS, [_DEAD], sections=v),
+    "PermanentEffects.value at": lambda v: _PERMANENT.value("moment", v),
+    "PermanentEffects.value side": lambda v: _PERMANENT.value("shear", 10, side=v),
+    "concurrent_forces source": lambda v: concurrent_forces(v, TWO_SPANS),
+    "concurrent_forces beam": lambda v: concurrent_forces(_EXTREME, v),
+    "deflection_check share": lambda v: deflection_check(SPAN, KNIFE, share=v, divisions=1),
+    "deflection_check lanes": lambda v: deflection_check(SPAN, KNIFE, lanes=v, girders=3, divisions=1),
+    "deflection_check limit": lambda v: deflection_check(SPAN, KNIFE, share=1, limit=v, divisions=1),
+    "aashto_deflection_load": lambda v: aashto_deflection_load(v),
 }
 
 

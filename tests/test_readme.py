@@ -34,6 +34,15 @@ def test_readme_examples_run(tmp_path, monkeypatch):
     assert (m.maximum.value, m.maximum.x) == (6.5, 54)
     if "best" in namespace:
         assert round(namespace["best"].value, 1) == -2218.3
+    if "dead" in namespace:
+        # the pier moment of the deck slab and barriers (1.45 kip/ft on three spans of 90, 115 and 90 ft):
+        # by the three-moment equation, 2·M·(90 + 115) + M·115 = -w(90³ + 115³)/4 with equal pier moments
+        # M by symmetry, so M = -w(90³ + 115³)/(4·525)
+        w = 1.45
+        assert namespace["dead"].value("moment", 90, category="DC") == pytest.approx(
+            -w * (90**3 + 115**3) / (4 * 525), rel=1e-9)
+        assert round(namespace["dead"].value("moment", 90, category="DC"), 1) == -1553.5
+        assert namespace["check"].passes
     if "explorer" in namespace:
         import ilkit
 

@@ -49,6 +49,7 @@ GROUPS: tuple[tuple[str, str], ...] = (
     ("ilkit.views.plot", "Drawings"),
     ("ilkit.views.sketch", "Drawings"),
     ("ilkit.views.moving", "Drawings"),
+    ("ilkit.views.design_plots", "Drawings"),
     ("ilkit.views.derive", "Derivations"),
     ("ilkit.views.tables", "Tables and export"),
     ("ilkit.views.report", "Calculation sheets"),

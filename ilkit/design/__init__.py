@@ -15,7 +15,7 @@ from ilkit.design.combinations import (
     limit_states,
 )
 from ilkit.design.concurrent import ConcurrentForces, concurrent_forces, concurrent_value
-from ilkit.design.deflection import DeflectionCheck, DeflectionFactor, aashto_deflection_load, deflection_check
+from ilkit.design.deflection import DeflectionCheck, aashto_deflection_load, deflection_check
 from ilkit.design.distribution import (
     Distribution,
     aashto_distribution,
@@ -112,5 +112,4 @@ __all__ = [
     "aashto_deflection_load",
     "deflection_check",
     "DeflectionCheck",
-    "DeflectionFactor",
 ]

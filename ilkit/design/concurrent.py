@@ -31,6 +31,8 @@ import numpy as np
 from ilkit._check import listed
 from ilkit._display import RichDisplay
 from ilkit._exact import fmt, fmt_precise
+from ilkit.design._dynamic import dynamic_factor
+from ilkit.design.factors import Applied
 from ilkit.design.sections import load_ordinate
 from ilkit.errors import LoadInputError, SideRequiredError
 from ilkit.loads._search import COINCIDENT
@@ -47,7 +49,7 @@ if TYPE_CHECKING:  # pragma: no cover
 
 __all__ = ["ConcurrentForces", "concurrent_forces", "concurrent_value"]
 
-_COLUMNS = ["quantity", "x", "side", "extreme", "case", "value", "concurrent quantity", "concurrent x",
+_COLUMNS = ["quantity", "x", "side", "extreme", "case", "dynamic", "value", "concurrent quantity", "concurrent x",
             "concurrent side", "concurrent value"]
 
 
@@ -57,14 +59,17 @@ class ConcurrentForces(RichDisplay):
 
     ``frame``: a tidy table, one row per extreme and concurrent action, with
     columns ``quantity``, ``x``, ``side``, ``extreme`` (``"max"``/``"min"``),
-    ``case`` and ``value`` (the extreme, in the beam's units), then
+    ``case``, ``dynamic`` (the dynamic effect the case's values contain) and
+    ``value`` (the extreme, in the beam's units), then
     ``concurrent quantity`` (``"moment"``, ``"shear"`` or ``"reaction"``),
     ``concurrent x`` (the section, or the support for a reaction),
     ``concurrent side`` (``"left"``, ``"right"`` or ``""``) and ``concurrent
     value``: the action under the same placement of the same loads, each
     with its factor.  The extreme's own quantity is among the concurrent
     ones (it reproduces ``value``).  Units are those of the beam
-    (``units``); signs those of :mod:`ilkit.model`.  ``notes`` say where an
+    (``units``); signs those of :mod:`ilkit.model`.  ``factors``: the
+    factors inside the values (an :class:`~ilkit.design.Applied`; the dynamic
+    effect of the load model, already in its values).  ``notes`` say where an
     axle stood exactly at a point where another line jumps for a reason
     other than its own section (a shear release).
     """
@@ -74,6 +79,7 @@ class ConcurrentForces(RichDisplay):
     units: UnitSystem | None
     extremes: tuple[Extreme, ...] = field(repr=False)
     notes: tuple[str, ...] = ()
+    factors: Applied = field(default_factory=Applied)
 
     def __repr__(self) -> str:
         units = f", units={self.units.name!r}" if self.units else ""
@@ -93,7 +99,7 @@ class ConcurrentForces(RichDisplay):
         def named(kind: str) -> str:
             return f"{symbol[kind]} [{unit[kind]}]" if u else symbol[kind]
 
-        out = rows[["x", "side", "extreme", "case", "value", "concurrent side", "concurrent value"]].rename(
+        out = rows[["x", "side", "extreme", "case", "dynamic", "value", "concurrent side", "concurrent value"]].rename(
             columns={
                 "x": f"x [{u.length}]" if u else "x",
                 "value": named(quantity),
@@ -125,7 +131,7 @@ class ConcurrentForces(RichDisplay):
         frame = self.frame
         u = self.units
         rows = frame[frame["concurrent quantity"] == "reaction"]
-        keys = ["quantity", "x", "side", "extreme", "case", "value"]
+        keys = ["quantity", "x", "side", "extreme", "case", "dynamic", "value"]
         table = rows.pivot_table(index=keys, columns="concurrent x", values="concurrent value", aggfunc="sum",
                                  sort=False)
         table.columns = [f"R at x={fmt(x)}" + (f" [{u.force}]" if u else "") for x in table.columns]
@@ -214,14 +220,15 @@ def concurrent_forces(
     for e, side in found:
         q = e.quantity
         base = {"quantity": q.kind, "x": float(q.at), "side": side or "", "extreme": e.extreme, "case": e.case,
-                "value": e.value}
+                "dynamic": str(e.dynamic) if e.dynamic is not None else "", "value": e.value}
         for kind, at, face in _targets(beam, e, side):
             total, said = _effect(beam.line(kind, at, face), e.placements, face)
             notes += said
             rows.append({**base, "concurrent quantity": kind, "concurrent x": float(at), "concurrent side": face or "",
                          "concurrent value": total})
+    dynamic = dynamic_factor(e.dynamic for e, _ in found)
     return ConcurrentForces(pd.DataFrame(rows, columns=_COLUMNS), beam, beam.units, tuple(e for e, _ in found),
-                            tuple(dict.fromkeys(notes)))
+                            tuple(dict.fromkeys(notes)), Applied() if dynamic is None else Applied.of(dynamic))
 
 
 def _targets(beam: Beam, e: Extreme, side: Side | None) -> list[tuple[str, Fraction, Side | None]]:

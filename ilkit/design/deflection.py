@@ -28,11 +28,14 @@ from typing import TYPE_CHECKING
 from ilkit._check import flag, whole
 from ilkit._display import RichDisplay
 from ilkit._exact import fmt
+from ilkit.design._dynamic import dynamic_factor
+from ilkit.design._inputs import amount
+from ilkit.design.factors import Applied, Factor
 from ilkit.design.sections import Section, envelope_sections
-from ilkit.errors import LoadInputError, StiffnessRequiredError, UnitsError
+from ilkit.errors import DesignInputError, StiffnessRequiredError, UnitsError
 from ilkit.loads.combination import Combination, LoadModel, as_model
 from ilkit.loads.models import design_lane, design_truck, multiple_presence
-from ilkit.loads.placement import _Study
+from ilkit.loads.placement import extremes, place
 from ilkit.loads.primitives import AxleTrain, Load, number
 from ilkit.loads.results import Extreme
 from ilkit.model import Beam
@@ -40,7 +43,7 @@ from ilkit.model import Beam
 if TYPE_CHECKING:  # pragma: no cover
     import pandas as pd
 
-__all__ = ["aashto_deflection_load", "deflection_check", "DeflectionCheck", "DeflectionFactor"]
+__all__ = ["aashto_deflection_load", "deflection_check", "DeflectionCheck"]
 
 _AASHTO = "AASHTO LRFD Bridge Design Specifications"
 _GOLDEN = (math.sqrt(5.0) - 1.0) / 2.0
@@ -81,19 +84,6 @@ def aashto_deflection_load(dynamic_allowance: float = 0.33) -> LoadModel:
     )
 
 
-@dataclass(frozen=True)
-class DeflectionFactor:
-    """One factor on the deflections of a :class:`DeflectionCheck`: what it is (``kind``), its ``value`` (a
-    pure number), its ``symbol``, ``source`` (document and clause; empty when given by the user) and whether
-    the value was recalled from memory."""
-
-    kind: str
-    value: float
-    symbol: str
-    source: str = ""
-    from_memory: bool = False
-
-
 @dataclass(frozen=True, eq=False)
 class DeflectionCheck(RichDisplay):
     """Live-load deflections of one girder along a beam, and their check against ``span / limit``.
@@ -104,15 +94,16 @@ class DeflectionCheck(RichDisplay):
     span and overhang, its largest deflection of either sign (searched
     between the sections), where it occurs, the allowed deflection
     ``length / limit``, the ratio of the two and whether it passes.
-    ``factors``: the factors inside the numbers (the dynamic allowance is in
-    the load model; the girder's share multiplies the placed load's
-    deflection).  Deflections positive downward.
+    ``factors``: the factors inside the numbers (an :class:`~ilkit.design.Applied`:
+    the dynamic allowance, already in the load model's values, then the
+    lanes, multiple presence and distribution whose product is ``share``,
+    the girder's share of one lane's load).  Deflections positive downward.
     """
 
     beam: Beam = field(repr=False)
     load_model: LoadModel = field(repr=False)
     share: float
-    factors: tuple[DeflectionFactor, ...]
+    factors: Applied
     envelope: pd.DataFrame = field(repr=False)
     spans: pd.DataFrame = field(repr=False)
     largest: tuple[Extreme, ...] = field(repr=False)
@@ -141,8 +132,8 @@ def deflection_check(
     *,
     lanes: int | None = None,
     girders: int | None = None,
-    multiple_presence_factor: float | None = None,
-    share: float | None = None,
+    multiple_presence_factor: float | Factor | None = None,
+    share: float | Factor | None = None,
     dynamic_allowance: float = 0.33,
     limit: float | None = None,
     overhang_limit: float | None = None,
@@ -158,7 +149,10 @@ def deflection_check(
     default ``lanes × m / girders`` (AASHTO 2.5.2.6.2, from memory: all design
     lanes loaded, all girders deflecting equally), with ``m`` the multiple
     presence factor of ``lanes`` loaded lanes (Table 3.6.1.1.2-1, from memory)
-    unless ``multiple_presence_factor`` is given.  ``limit``: the span is
+    unless ``multiple_presence_factor`` is given.  ``share`` and
+    ``multiple_presence_factor`` may be :class:`~ilkit.design.Factor` objects
+    (with their source; a share that includes multiple presence says so in
+    its ``includes``).  ``limit``: the span is
     divided by it for the allowed deflection, 800 by default or 1000 with
     ``pedestrians=True``; ``overhang_limit`` likewise for overhangs (cantilever
     arms), 300 or 375 (AASHTO 2.5.2.6.2, from memory).  ``divisions`` and
@@ -171,7 +165,7 @@ def deflection_check(
     import pandas as pd
 
     if not isinstance(beam, Beam):
-        raise LoadInputError(f"deflection_check: give a Beam, got {type(beam).__name__} {beam!r}.", field="beam",
+        raise DesignInputError(f"deflection_check: give a Beam, got {type(beam).__name__} {beam!r}.", field="beam",
                              value=beam)
     if beam.EI is None:
         raise StiffnessRequiredError(
@@ -180,11 +174,11 @@ def deflection_check(
     if beam.units is None:
         raise UnitsError("deflection_check: the beam declares no units, so the load model cannot be applied; "
                          "declare them: Beam(..., units='kip-ft') or units='kN-m'.", field="units")
-    pedestrians = flag(pedestrians, what="pedestrians", field="pedestrians", error=LoadInputError)
+    pedestrians = flag(pedestrians, what="pedestrians", field="pedestrians", error=DesignInputError)
     model = aashto_deflection_load(dynamic_allowance) if load is None else as_model(load)
     model = model.converted(beam.units)
     factors = _factors(load is None, model, lanes, girders, multiple_presence_factor, share)
-    g = math.prod(f.value for f in factors if f.kind != "dynamic allowance")
+    g = factors.product
     span_limit = _limit(limit, 1000 if pedestrians else 800, "limit")
     arm_limit = _limit(overhang_limit, 375 if pedestrians else 300, "overhang_limit")
     sections = envelope_sections(beam, divisions, at)
@@ -193,8 +187,8 @@ def deflection_check(
     rows = []
     u = beam.units
     for s in sections:
-        study = _Study(beam.deflection(s.x, side=s.side), model, beam)
-        top, bottom = study.extreme(1), study.extreme(-1)
+        both = extremes(beam.deflection(s.x, side=s.side), model, beam=beam)
+        top, bottom = both.maximum, both.minimum
         found[s] = (top, bottom)
         rows.append({f"x [{u.length}]": float(s.x), "side": s.side or "", f"max [{u.length}]": g * top.value,
                      "max case": top.case, f"min [{u.length}]": g * bottom.value, "min case": bottom.case})
@@ -222,41 +216,41 @@ def deflection_check(
 def _limit(value: object, default: int, what: str) -> float:
     if value is None:
         return float(default)
-    return number(value, what)
+    return amount(value, what, strict=True)
 
 
-def _factors(
-    aashto: bool, model: LoadModel, lanes: object, girders: object, m: object, share: object
-) -> tuple[DeflectionFactor, ...]:
-    """The factors inside the deflections: the model's dynamic allowance (for the record) and the share."""
-    out: list[DeflectionFactor] = []
-    allowances = {c.dynamic_allowance for c in model.cases if c.dynamic_on}
-    if aashto and allowances:
-        out.append(DeflectionFactor("dynamic allowance", allowances.pop(), "IM",
-                                    f"{_AASHTO}, Table 3.6.2.1-1; 2.5.2.6.2", True))
+def _factors(aashto: bool, model: LoadModel, lanes: object, girders: object, m: object, share: object) -> Applied:
+    """The factors inside the deflections: the model's dynamic effect (listed: it is in the load values),
+    then the girder's share of one lane's load (multiplied)."""
+    dynamic = dynamic_factor((c.dynamic for c in model.cases),
+                             source=f"{_AASHTO}, Table 3.6.2.1-1; 2.5.2.6.2" if aashto else model.source,
+                             from_memory=aashto)
+    out = Applied() if dynamic is None else Applied.of(dynamic)
     if share is not None:
         if lanes is not None or girders is not None or m is not None:
-            raise LoadInputError(
+            raise DesignInputError(
                 "deflection_check: give either share= (the girder's share of one lane's load) or lanes= and "
                 "girders= (share = lanes × m / girders), not both.", field="share", value=share)
-        out.append(DeflectionFactor("distribution", number(share, "share"), "g"))
-        return tuple(out)
+        given = share if isinstance(share, Factor) else Factor("distribution", amount(share, "share", strict=True), "g")
+        return out.then(given)
     if lanes is None or girders is None:
-        raise LoadInputError(
+        raise DesignInputError(
             "deflection_check: give the number of design lanes and of girders (lanes=2, girders=5: all lanes loaded, "
             "all girders deflecting equally), or the girder's share of one lane's load directly (share=0.4).",
             field="lanes" if lanes is None else "girders")
-    n = whole(lanes, what="lanes: the number of design lanes", field="lanes", minimum=1, error=LoadInputError)
-    ng = whole(girders, what="girders: the number of girders", field="girders", minimum=1, error=LoadInputError)
-    out.append(DeflectionFactor("lanes", float(n), "N_L", "all design lanes loaded (AASHTO LRFD 2.5.2.6.2)", True))
-    if m is None:
-        out.append(DeflectionFactor("multiple presence", multiple_presence(n), "m",
-                                    f"{_AASHTO}, Table 3.6.1.1.2-1", True))
+    n = whole(lanes, what="lanes: the number of design lanes", field="lanes", minimum=1, maximum=100,
+              error=DesignInputError)
+    ng = whole(girders, what="girders: the number of girders", field="girders", minimum=1, maximum=1000,
+               error=DesignInputError)
+    out = out.then(Factor("lanes", n, "N_L", f"{_AASHTO}, 2.5.2.6.2", True, note="all design lanes loaded"))
+    if isinstance(m, Factor):
+        out = out.then(m)
+    elif m is None:
+        out = out.then(Factor("multiple presence", multiple_presence(n), "m", f"{_AASHTO}, Table 3.6.1.1.2-1", True))
     else:
-        out.append(DeflectionFactor("multiple presence", number(m, "multiple_presence_factor"), "m"))
-    out.append(DeflectionFactor("distribution", 1 / ng, "1/N_b",
-                                "all girders deflect equally (AASHTO LRFD 2.5.2.6.2)", True))
-    return tuple(out)
+        out = out.then(Factor("multiple presence", amount(m, "multiple_presence_factor", strict=True), "m"))
+    return out.then(Factor("distribution", 1 / ng, "1/N_b", f"{_AASHTO}, 2.5.2.6.2", True,
+                           note="all girders deflect equally"))
 
 
 def _stretches(beam: Beam, span_limit: float, arm_limit: float) -> list[tuple[str, Fraction, Fraction, float]]:
@@ -285,7 +279,7 @@ def _refine(
     lo, hi = xs[max(k - 1, 0)], xs[min(k + 1, len(xs) - 1)]
 
     def at(x: float) -> Extreme:
-        return _Study(beam.deflection(x), model, beam).extreme(sense)
+        return place(beam.deflection(x), model, "max" if sense > 0 else "min", beam=beam)
 
     tol = REFINE * float(b - a)
     c, d = hi - _GOLDEN * (hi - lo), lo + _GOLDEN * (hi - lo)

@@ -22,8 +22,8 @@ part and is refused.
 
 Settlement (stiffness method, with Müller-Breslau's reading of the result): the influence line of
 the reaction of a rigid bearing is the beam's deflected shape when that bearing settles by 1 with
-every other restraint held (:mod:`ilkit.stiffness`).  A settlement ``Δ`` therefore deflects the beam
-by ``Δ`` times that line; its bending moment is ``-EI v''`` and its shear ``-EI v'''`` of that shape
+every other restraint held (:class:`ilkit.stiffness.UnitShape`).  A settlement ``Δ`` therefore
+deflects the beam by ``Δ`` times that line; its bending moment is ``-EI v''`` and its shear ``-EI v'''`` of that shape
 ``v`` (downward positive), and each reaction is the jump of the shear at its support.  On a
 statically determinate beam the settlement moves the beam as a rigid body: every force effect is
 zero, and the result says so in its notes.
@@ -44,12 +44,13 @@ from dataclasses import dataclass, field
 from fractions import Fraction
 from typing import TYPE_CHECKING, Any, Literal
 
-from ilkit._check import choice, listed, whole
+from ilkit._check import choice, finite, listed, whole
 from ilkit._display import RichDisplay
 from ilkit._exact import fmt, fmt_precise, is_quantity, to_exact
+from ilkit.design.factors import Applied
 from ilkit.design.sections import Section, envelope_sections, load_ordinate
 from ilkit.errors import LoadInputError, SideRequiredError
-from ilkit.loads.primitives import read_name
+from ilkit.loads.primitives import OVERFLOW, read_name
 from ilkit.model import Beam
 from ilkit.positions import tolerance
 from ilkit.quantity import Side
@@ -77,18 +78,27 @@ QUANTITIES: tuple[str, ...] = ("moment", "shear", "reaction", "deflection")
 (force, positive when the part left of the section is pushed up), vertical reaction (force, upward
 positive) and deflection (length, downward positive)."""
 
-Quantity = Literal["moment", "shear", "reaction", "deflection"]
+EffectKind = Literal["moment", "shear", "reaction", "deflection"]
 
 
 # ------------------------------------------------------------------- reading
-def _category(value: object, what: str) -> str:
-    if isinstance(value, str) and value.strip():
-        return value
-    raise LoadInputError(
-        f"{what}: the category must be a non-empty text such as 'DC', 'DW' or 'G', got {value!r}.",
-        field="category",
-        value=value,
-    )
+def _read(load: object, /, **numbers: Dimension) -> str:
+    """Check and store a load's ``name``, ``category`` and the ``numbers`` given (field name -> dimension;
+    ``None`` stays ``None``); returns the name."""
+    name = read_name(load.name, type(load).__name__)  # type: ignore[attr-defined]
+    category = load.category  # type: ignore[attr-defined]
+    if not isinstance(category, str) or not category.strip():
+        raise LoadInputError(
+            f"{name}: the category must be a non-empty text such as 'DC', 'DW' or 'G', got {category!r}.",
+            field="category",
+            value=category,
+        )
+    object.__setattr__(load, "name", name)
+    for label, dims in numbers.items():
+        value = getattr(load, label)
+        if value is not None:
+            object.__setattr__(load, label, _given(value, dims, f"{name}: {label}"))
+    return name
 
 
 def _given(value: object, dims: Dimension, field: str) -> Any:
@@ -136,13 +146,7 @@ class DistributedLoad:
     end: Any = None
 
     def __post_init__(self) -> None:
-        name = read_name(self.name, "DistributedLoad")
-        object.__setattr__(self, "name", name)
-        object.__setattr__(self, "category", _category(self.category, name))
-        object.__setattr__(self, "intensity", _given(self.intensity, LINE_LOAD, f"{name}: intensity"))
-        for label in ("start", "end"):
-            if getattr(self, label) is not None:
-                object.__setattr__(self, label, _given(getattr(self, label), LENGTH, f"{name}: {label}"))
+        name = _read(self, intensity=LINE_LOAD, start=LENGTH, end=LENGTH)
         if isinstance(self.start, Fraction) and isinstance(self.end, Fraction) and self.start >= self.end:
             raise LoadInputError(
                 f"{name}: start (x={fmt_precise(self.start)}) must lie left of end (x={fmt_precise(self.end)}); "
@@ -183,10 +187,7 @@ class SpanLoad:
     span: int
 
     def __post_init__(self) -> None:
-        name = read_name(self.name, "SpanLoad")
-        object.__setattr__(self, "name", name)
-        object.__setattr__(self, "category", _category(self.category, name))
-        object.__setattr__(self, "intensity", _given(self.intensity, LINE_LOAD, f"{name}: intensity"))
+        name = _read(self, intensity=LINE_LOAD)
         span = whole(self.span, what=f"{name}: span (numbered from 1)", field="span", minimum=1, error=LoadInputError)
         object.__setattr__(self, "span", span)
 
@@ -219,11 +220,7 @@ class PointLoad:
     at: Any
 
     def __post_init__(self) -> None:
-        name = read_name(self.name, "PointLoad")
-        object.__setattr__(self, "name", name)
-        object.__setattr__(self, "category", _category(self.category, name))
-        object.__setattr__(self, "load", _given(self.load, FORCE, f"{name}: load"))
-        object.__setattr__(self, "at", _given(self.at, LENGTH, f"{name}: at"))
+        _read(self, load=FORCE, at=LENGTH)
 
     def __repr__(self) -> str:
         return f"PointLoad({self.name!r}, {self.category!r}, {_text(self.load)}, at={_text(self.at)})"
@@ -259,11 +256,7 @@ class Settlement:
     category: str = "settlement"
 
     def __post_init__(self) -> None:
-        name = read_name(self.name, "Settlement")
-        object.__setattr__(self, "name", name)
-        object.__setattr__(self, "category", _category(self.category, name))
-        object.__setattr__(self, "at", _given(self.at, LENGTH, f"{name}: at"))
-        object.__setattr__(self, "displacement", _given(self.displacement, LENGTH, f"{name}: displacement"))
+        _read(self, at=LENGTH, displacement=LENGTH)
 
     def __repr__(self) -> str:
         extra = f", category={self.category!r}" if self.category != "settlement" else ""
@@ -420,6 +413,9 @@ class PermanentEffects(RichDisplay):
     ``""``.  ``units`` is the beam's unit system (``None`` if it has none);
     ``notes`` say what the numbers do not show (a settlement of a
     determinate beam causes no forces, deflections left out without ``EI``).
+    ``factors`` is empty: the values are unfactored (an
+    :class:`~ilkit.design.Applied` with no factor; load factors are applied
+    by the limit states).
     """
 
     frame: pd.DataFrame = field(repr=False)
@@ -428,6 +424,7 @@ class PermanentEffects(RichDisplay):
     sections: tuple[Section, ...] = field(repr=False)
     quantities: tuple[str, ...]
     notes: tuple[str, ...] = ()
+    factors: Applied = field(default_factory=Applied)
 
     def __repr__(self) -> str:
         loads = sum(len(s.loads) for s in self.stages)
@@ -468,7 +465,7 @@ class PermanentEffects(RichDisplay):
 
     def value(
         self,
-        quantity: Quantity,
+        quantity: EffectKind,
         at: object,
         side: Side | None = None,
         *,
@@ -568,6 +565,8 @@ def permanent_effects(
                     else:
                         line = stage.beam.line(kind, x, side)
                         value = sum((_effect(line, part, x, side) for part in applied), 0.0)
+                    finite(value, what=f"{load.name}: the {kind} at x={fmt(x)}", why=OVERFLOW, field="loads",
+                           error=LoadInputError)
                     rows.append({"quantity": kind, "x": float(x), "side": side or "", "stage": stage.name,
                                  "load": load.name, "category": load.category, "value": value})
     for stage in stages:

@@ -129,7 +129,8 @@ def load_ordinate(line: InfluenceLine, x: float, side: Side | None, *, own_secti
     beam, the value comes from the other side and the unit jump: a load at
     the left end, left of a cut just inside the beam, takes the right-hand
     value minus 1; a load at the right end, right of a cut just inside it,
-    the left-hand value plus 1.  Unitless (the line's unit per unit load), with the line's sign (:mod:`ilkit.model`).
+    the left-hand value plus 1.  In the line's unit per unit downward load,
+    with the signs of :mod:`ilkit.model`.
     """
     if not own_section or side is None:
         if side == "left":

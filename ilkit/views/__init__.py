@@ -24,7 +24,10 @@ Public names:
   :func:`plot_envelope`: envelopes of moving loads.
 
 Moving-load results (placements, envelopes, load models) have their tables,
-displays and sheet sections in :mod:`ilkit.views.moving_records`.
+displays and sheet sections in :mod:`ilkit.views.moving_records`; design results
+(permanent effects, concurrent forces, the deflection check) in
+:mod:`ilkit.views.design_records`, drawn by :func:`plot_permanent_effects` and
+:func:`plot_deflection_check`.
 
 A new result type joins by registering with the dispatchers
 :func:`ilkit.views.display.mimebundle`, :func:`table`,
@@ -32,9 +35,10 @@ A new result type joins by registering with the dispatchers
 :func:`ilkit.views.derive.derive_origin`.
 """
 
-# tables, displays and sheet sections of the moving-load results register themselves
-from ilkit.views import moving_records  # noqa: F401
+# tables, displays and sheet sections of the moving-load and design results register themselves
+from ilkit.views import design_records, moving_records  # noqa: F401
 from ilkit.views.derive import Derivation, derivation
+from ilkit.views.design_plots import plot_deflection_check, plot_permanent_effects
 from ilkit.views.draw import draw_beam
 from ilkit.views.explorer import Explorer
 from ilkit.views.formula import formula
@@ -63,4 +67,6 @@ __all__ = [
     "Explorer",
     "plot_envelope",
     "plot_placement",
+    "plot_permanent_effects",
+    "plot_deflection_check",
 ]
