@@ -132,7 +132,7 @@ def test_the_live_load_records_its_factors_once():
         GirderLiveLoad(loads.hl93(), multiple_presence=1.2, distribution=given_distribution(
             0.5, includes_multiple_presence=True))
     lm1 = GirderLiveLoad(loads.lm1(), distribution=given_distribution(1.0))
-    assert lm1.dynamic.note == "included in the load values"
+    assert lm1.dynamic.note == "dynamic amplification included in the load values"
     rail = GirderLiveLoad(loads.lm71(dynamic_factor=1.12), lanes=1)
     assert rail.dynamic.describe() == "Φ 1.12 (LM71)"
 

@@ -26,6 +26,7 @@ from typing import TYPE_CHECKING, Any
 from ilkit._check import choice, whole
 from ilkit._display import RichDisplay
 from ilkit._exact import fmt
+from ilkit.design._dynamic import dynamic_factor
 from ilkit.design._inputs import amount, text
 from ilkit.design.distribution import Action, Distribution
 from ilkit.design.factors import Applied, Factor
@@ -53,22 +54,12 @@ def part_kind(load: object) -> str:
 
 
 def _dynamic(model: LoadModel) -> Factor:
-    """The dynamic effect of the model's cases as one factor (value: the multiplier on the parts it is on)."""
-    effects = [c.dynamic for c in model.cases]
-    kinds = {d.kind for d in effects}
-    parts = tuple(dict.fromkeys(p for d in effects for p in d.on))
-    words = model.dynamic
-    if kinds <= {"allowance"} and len({d.value for d in effects}) == 1:
-        return Factor("dynamic allowance", 1.0 + effects[0].value, "IM", source=model.source, parts=parts,
-                      note=words)
-    if kinds <= {"factor"} and len({d.value for d in effects}) == 1:
-        return Factor("dynamic allowance", effects[0].value, "Φ", source=model.source, parts=parts, note=words)
-    if kinds == {"included"}:
-        return Factor("dynamic allowance", 1.0, "dynamic", source=model.source, note="included in the load values")
-    if kinds == {"none"}:
+    """The dynamic effect of the model's cases as one factor (:func:`~ilkit.design._dynamic.dynamic_factor`);
+    a model without one records a neutral factor, so that every result says what it contains."""
+    found = dynamic_factor((c.dynamic for c in model.cases), source=model.source)
+    if found is None:
         return Factor("dynamic allowance", 1.0, "IM", source=model.source, note="none in the model")
-    top = max(d.multiplier(p) for d in effects for p in d.on) if parts else 1.0
-    return Factor("dynamic allowance", top, "dynamic", source=model.source, parts=parts, note=words)
+    return found
 
 
 @dataclass(frozen=True, init=False, repr=False)
