@@ -408,7 +408,9 @@ class LanePlacement(RichDisplay):
         words = f"{self.line.method}, {self.loaded} loaded lane{'s' if self.loaded > 1 else ''}"
         if m is not None:
             words += f", m = {m.value:.2f} included"
-        return Factor("distribution", self.share, "g", source=self.line.source, from_memory=self.line.from_memory,
+        source = (f"{self.line.source}; lanes and wheel lines placed as in {AASHTO_LRFD}, 3.6.1.1.1, 3.6.1.3.1"
+                  + (", Table 3.6.1.1.2-1" if m is not None else "")).lstrip("; ")
+        return Factor("distribution", self.share, "g", source=source, from_memory=True,
                       includes=("lanes", "multiple presence") if m is not None else ("lanes",), note=words)
 
     def __repr__(self) -> str:
@@ -517,8 +519,10 @@ def place_design_lanes(
         raise DesignInputError("place_design_lanes: no design vehicle fits on the roadway.", field="lanes")
     total, n, wheels_left, m = best
     lane_edges = _lane_edges(wheels_left, s, c, width, r0)
+    u = section.units.length
     return LanePlacement(line, n, total, tuple((a, a + s) for a in wheels_left), lane_edges, m, tuple(trials),
-                         lanes, f"wheel lines {fmt(round(s, 9))} apart, {fmt(round(c, 9))} from the lane edges")
+                         lanes, f"wheel lines {fmt(round(s, 9))} {u} apart, {fmt(round(c, 9))} {u} from the lane "
+                                f"edges")
 
 
 def _lane_edges(wheels: list[float], s: float, c: float, width: float, r0: float) -> tuple[tuple[float, float], ...]:
