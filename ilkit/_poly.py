@@ -10,7 +10,26 @@ from __future__ import annotations
 
 import numpy as np
 
-__all__ = ["normalised", "unit_roots", "roots_in_pieces"]
+__all__ = ["normalised", "unit_roots", "roots_in_pieces", "horner", "taylor_shift"]
+
+
+def horner(c: np.ndarray, t: np.ndarray) -> np.ndarray:
+    """``sum c[..., p] t^p`` by Horner's rule, highest power first (the arithmetic of ``InfluenceLine``),
+    ``c`` and ``t`` broadcast against each other (one polynomial per row of ``c``)."""
+    y = c[..., -1] + 0.0 * t
+    for p in range(c.shape[-1] - 2, -1, -1):
+        y = y * t + c[..., p]
+    return y
+
+
+def taylor_shift(c: np.ndarray, shift: np.ndarray) -> np.ndarray:
+    """Rows of coefficients of ``p(shift + u)`` in ``u`` for rows ``p`` (repeated synthetic division)."""
+    out = np.array(c, dtype=float)
+    n = out.shape[1]
+    for i in range(n - 1):
+        for k in range(n - 2, i - 1, -1):
+            out[:, k] += shift * out[:, k + 1]
+    return out
 
 
 def _polyval(coefficients: np.ndarray, u: np.ndarray) -> np.ndarray:
@@ -92,21 +111,27 @@ def unit_roots(coefficients: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
     axis_rows, axis_roots = rows[on_axis], lo[on_axis]
     change = np.sign(flo) * np.sign(fhi) < 0
     rows_c, lo, hi, flo, sub = rows[change], lo[change], hi[change], flo[change], sub[change]
-    # Newton steps that stay inside the bracket, bisection otherwise; the bracket shrinks every step
+    # Newton steps that stay inside the bracket, bisection otherwise; the bracket shrinks every step.  A row
+    # is done when the step, the bracket or the residual is at the level of rounding (a residual below a
+    # few roundings of the polynomial's terms cannot shrink further); only unfinished rows go on.
     slope = sub[:, 1:] * np.arange(1, width)[None, :]
+    noise = 8 * np.finfo(float).eps * np.abs(sub).sum(axis=1)
     u = 0.5 * (lo + hi)
-    done = np.zeros(u.size, dtype=bool)
+    active = np.arange(u.size)
     for _ in range(64):
-        if done.all():
+        if not active.size:
             break
-        fu, du = _polyval(sub, u), _polyval(slope, u)
-        same = np.sign(fu) == np.sign(flo)
-        lo, flo, hi = np.where(same, u, lo), np.where(same, fu, flo), np.where(same, hi, u)
+        ua, loa, hia, floa, suba = u[active], lo[active], hi[active], flo[active], sub[active]
+        fu, du = _polyval(suba, ua), _polyval(slope[active], ua)
+        same = np.sign(fu) == np.sign(floa)
+        loa, floa, hia = np.where(same, ua, loa), np.where(same, fu, floa), np.where(same, hia, ua)
         with np.errstate(divide="ignore", invalid="ignore"):
-            newton = u - fu / du
-        done |= (fu == 0) | (np.abs(newton - u) <= 1e-15) | (hi - lo <= 1e-15)
-        inside = (newton >= lo) & (newton <= hi)
-        u = np.where(done, u, np.where(inside, newton, 0.5 * (lo + hi)))
+            newton = ua - fu / du
+        done = (np.abs(fu) <= noise[active]) | (np.abs(newton - ua) <= 1e-15) | (hia - loa <= 1e-15)
+        inside = (newton >= loa) & (newton <= hia)
+        u[active] = np.where(done, ua, np.where(inside, newton, 0.5 * (loa + hia)))
+        lo[active], hi[active], flo[active] = loa, hia, floa
+        active = active[~done]
     return np.concatenate((rows_c, axis_rows)), np.concatenate((u, axis_roots))
 
 

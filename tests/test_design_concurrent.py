@@ -63,7 +63,7 @@ def _statics(beam, extreme, kind, at, face):
             for x, weight in ((p, (q - p) / 6), ((p + q) / 2, 2 * (q - p) / 3), (q, (q - p) / 6)):
                 add(x, w * float(weight))
     if kind == "reaction":
-        return reactions[("R", at)]
+        return reactions.get(("R", at), 0.0)
     # the cut: just left of ``at`` on the left face, just right on the right face, at ``at`` otherwise (where
     # only loads placed just left or right of it can stand)
     cut = (at, {"left": -0.5, "right": 0.5, None: 0.0}[face])
@@ -74,8 +74,8 @@ def _statics(beam, extreme, kind, at, face):
     shear = moment = 0.0
     for s in beam.supports:
         if (s.at, 0) < cut:
-            shear += reactions[("R", s.at)]
-            moment += reactions[("R", s.at)] * float(at - s.at)
+            shear += reactions.get(("R", s.at), 0.0)
+            moment += reactions.get(("R", s.at), 0.0) * float(at - s.at)
             moment -= reactions.get(("C", s.at), 0.0)  # counter-clockwise couple of a fixed support
     for x, offset, force in points:
         if (x, offset) < cut:

@@ -25,18 +25,28 @@ import ilkit
 from ilkit import BeamInputError, IlkitError, IllConditionedError, LoadInputError, Quantity, Spring, Support
 from ilkit.design import (
     Applied,
+    CrossSection,
     DistributedLoad,
     Factor,
+    GirderLiveLoad,
+    LimitState,
     PointLoad,
     Section,
     Settlement,
     SpanLoad,
     Stage,
     aashto_deflection_load,
+    aashto_distribution,
     concurrent_forces,
     deflection_check,
+    design_lanes,
     envelope_sections,
+    given_distribution,
+    limit_states,
+    notional_lanes,
     permanent_effects,
+    place_design_lanes,
+    transverse_line,
 )
 from ilkit.influence import InfluenceLine
 from ilkit.loads import (
@@ -561,6 +571,7 @@ JUNK = st.one_of(
 )
 
 _LINE = TWO_SPANS.moment(5)
+_DECK = CrossSection(4, 8.0, 3.0, 1.0)
 _ENVELOPE = envelope(SPAN, KNIFE, divisions=2)
 _DEAD = DistributedLoad("w", "DC", 1)
 _PERMANENT = permanent_effects(TWO_SPANS, [_DEAD], divisions=2)
@@ -626,6 +637,20 @@ ENTRY_POINTS = {
     "Factor includes": lambda v: Factor("distribution", 1.0, "g", includes=v),
     "Applied.then": lambda v: Applied().then(v),
     "Applied.contains": lambda v: Applied().contains(v),
+    "design_lanes": lambda v: design_lanes(v),
+    "notional_lanes": lambda v: notional_lanes(v),
+    "CrossSection spacing": lambda v: CrossSection(4, v, 3.0, 1.0),
+    "CrossSection girders": lambda v: CrossSection(v, 8.0, 3.0, 1.0),
+    "transverse_line girder": lambda v: transverse_line(_DECK, v),
+    "transverse_line ordinates": lambda v: transverse_line(_DECK, 1, ordinates=v),
+    "place_design_lanes loaded": lambda v: place_design_lanes(transverse_line(_DECK, 2), loaded=v),
+    "given_distribution": lambda v: given_distribution(v),
+    "aashto_distribution span": lambda v: aashto_distribution(_DECK, 2, span=v, slab_thickness=0.7, Kg=30.0),
+    "LimitState live": lambda v: LimitState("x", {"DC": (1.25, 0.9)}, v),
+    "LimitState permanent": lambda v: LimitState("x", {"DC": v}, 1.0),
+    "limit_states": lambda v: limit_states(v),
+    "GirderLiveLoad lanes": lambda v: GirderLiveLoad(hl93(), lanes=v),
+    "GirderLiveLoad multiple_presence": lambda v: GirderLiveLoad(hl93(), multiple_presence=v),
     "Section": lambda v: Section(v),
     "Section side": lambda v: Section(1, v),
     "envelope_sections at": lambda v: envelope_sections(TWO_SPANS, 2, at=[v]),

@@ -63,18 +63,19 @@ def trains(draw, least: int = 1, most: int = 3):
 @SETTINGS
 @given(line=lines(), train=trains())
 def test_the_programme_agrees_with_the_patterns(line, train):
-    study = _Study(line, train)
+    study = _Study.of((line,), (1, -1), train, None)  # row 0: the largest effect, row 1: the smallest
     drop = train.drop_adverse_axles
     scale = effect_scale(line, train)
-    for sense in (1, -1):
-        find = study.finder(drop, sense)
-        for _, chain in _layouts(train):
-            cut = _search.split(chain, line.length)
-            for index in range(len(cut.parts)):
-                part = cut.part(index)
-                by_patterns = _search.best_in_chain(part, find, sense, study.tol)
-                by_programme = best_by_programme(part, lambda g, s=sense: study.lines(g, drop, s), sense, study.tol)
-                assert by_programme.value == pytest.approx(by_patterns.value, rel=1e-9, abs=1e-9 * scale)
+    lines = study.lines_for(drop)
+    find = study.finder(drop)
+    for _, chain in _layouts(train):
+        cut = _search.split(chain, line.length)
+        for index in range(len(cut.parts)):
+            part = cut.part(index)
+            by_patterns = _search.best_in_chain(part, find, study.sense, study.tol)
+            for row, sense in enumerate((1, -1)):
+                by_programme = best_by_programme(part, lines.row(row), sense)
+                assert by_programme.value == pytest.approx(by_patterns.value[row], rel=1e-9, abs=1e-9 * scale)
 
 
 @settings(SETTINGS, max_examples=examples(25))
@@ -98,9 +99,9 @@ def test_twelve_varying_spacings_take_the_programme():
         [10.0, 20.0, 20.0] * 13, [1.5, 2.0, (3.0, 9.0)] * 12 + [1.5, 2.0], units="kN-m", drop_adverse_axles=True
     )
     line = beam.moment(33.3)
-    study = _Study(line, convoy)
+    study = _Study.of((line,), (1,), convoy, None)
     chain = _layouts(convoy)[0][1]
-    plan = _search.cost(chain, lambda g: study.lines(g, True, 1))
+    plan = _search.cost(chain, study.lines_for(True))
     assert not plan.patterns and plan.variable == 12 and plan.work < WORK_LIMIT / 10
     found = extremes(line, convoy)
     b_max, b_min = brute_force(line, convoy)

@@ -26,7 +26,8 @@ def dynamic_factor(effects: Iterable[DynamicEffect | None], *, source: str = "",
         return None
     added = [e for e in found if e.kind in ("allowance", "factor")]
     parts = tuple(dict.fromkeys(p for e in added for p in e.on))
-    note = "; ".join(dict.fromkeys(e.words for e in found)) if len(found) > 1 else ""
+    distinct = {(e.kind, e.value) for e in found}  # the same allowance on other parts needs no note
+    note = "; ".join(dict.fromkeys(e.words for e in found)) if len(distinct) > 1 else ""
     if not added:
         return Factor("dynamic allowance", 1.0, "dynamic", source, from_memory,
                       note="dynamic amplification included in the load values", parts=("all",))

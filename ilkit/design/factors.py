@@ -133,8 +133,9 @@ class Factor:
         return frozenset((self.kind, *self.includes))
 
     def describe(self) -> str:
-        """The factor in short words: ``"IM 33 % (design truck, design tandem)"``, ``"m 1.20"``, ``"g 0.620"``."""
-        if self.kind == "dynamic allowance" and self.value >= 1:
+        """The factor in short words: ``"IM 33 % (design truck, design tandem)"`` (an allowance IM as its
+        percentage), ``"Φ 1.12 (LM71)"``, ``"m 1.20"``, ``"g 0.62"``."""
+        if self.kind == "dynamic allowance" and self.symbol == "IM" and self.value >= 1:
             words = f"{self.symbol} {100 * (self.value - 1):.4g} %"
         else:
             words = f"{self.symbol} {_number(self.value)}"

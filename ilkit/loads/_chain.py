@@ -25,12 +25,11 @@ three gave the supremum places every group.
 
 from __future__ import annotations
 
-from collections.abc import Callable
 from dataclasses import dataclass
 
 import numpy as np
 
-from ilkit._poly import roots_in_pieces
+from ilkit._poly import horner, roots_in_pieces, taylor_shift
 from ilkit.loads import _search
 from ilkit.loads._search import EXACT, LEFT, RIGHT, Chain, ChainOptimum, Group, Lines, Standing
 
@@ -78,24 +77,11 @@ class Pieces:
 
     def at(self, i: np.ndarray, y: np.ndarray) -> np.ndarray:
         """Piece ``i`` at ``y`` (arrays of the same shape)."""
-        return _horner(self.c[i], y - self.origin[i])
+        return horner(self.c[i], y - self.origin[i])
 
 
-def _horner(c: np.ndarray, u: np.ndarray) -> np.ndarray:
-    out = np.zeros(u.shape)
-    for k in range(c.shape[-1] - 1, -1, -1):
-        out = out * u + c[..., k]
-    return out
 
 
-def _shifted(c: np.ndarray, shift: np.ndarray) -> np.ndarray:
-    """Rows of coefficients of ``p(shift + v)`` in ``v`` for rows ``p`` (repeated synthetic division)."""
-    out = c.copy()
-    n = out.shape[1]
-    for i in range(n - 1):
-        for k in range(n - 2, i - 1, -1):
-            out[:, k] += shift * out[:, k + 1]
-    return out
 
 
 def _widen(c: np.ndarray, width: int) -> np.ndarray:
@@ -123,32 +109,35 @@ def _profile(group: Group, lines: Lines, sense: int, reach: float) -> tuple[Piec
 
     ``reach`` is a distance that takes every load of the group off the beam.
     """
-    knot, anchor = _search.events(group, lines)
+    table = _search._Table.of((group,))
+    ev, _, _ = _search.events(table, lines)
+    knot, anchor = ev.knot, ev.anchor
     y = knot - anchor
-    degree = max(_search._degree(group, lines) + 1, 0)
+    degree = max(_search._degree((group,), lines) + 1, 0)
     nodes, inverse = _search._chebyshev(degree + 1)
     width = np.diff(y)
     half = 0.5 * width
     shift = half[:, None] * (1.0 + nodes[None, :])
     k2 = np.repeat(knot[:-1], nodes.size)
     a2 = np.repeat(anchor[:-1], nodes.size)
-    values = _search.effect(group, lines, k2, a2, shift.ravel(), np.zeros(k2.size, dtype=int))
+    values = _effect(group, lines, k2, a2, shift.ravel(), np.zeros(k2.size, dtype=int))
     inner = (values.reshape(shift.shape) @ inverse.T) * sense  # in u' = (shift - half) / half
     # to the local coordinate u = shift: p(u') with u' = u / half - 1
-    c = _shifted(inner, -np.ones(inner.shape[0]))
+    c = taylor_shift(inner, -np.ones(inner.shape[0]))
     c = c / half[:, None] ** np.arange(c.shape[1])[None, :]
-    ends = _search.effect(
-        group,
-        lines,
-        knot[[0, -1]],
-        anchor[[0, -1]],
-        np.array([-reach, reach]),
-        np.zeros(2, dtype=int),
-    )
-    table = np.zeros((y.size + 1, c.shape[1]))
-    table[1:-1] = c
-    table[0, 0], table[-1, 0] = sense * ends[0], sense * ends[1]
-    return Pieces(y, table), knot, anchor
+    ends = _effect(group, lines, knot[[0, -1]], anchor[[0, -1]], np.array([-reach, reach]), np.zeros(2, dtype=int))
+    pieces = np.zeros((y.size + 1, c.shape[1]))
+    pieces[1:-1] = c
+    pieces[0, 0], pieces[-1, 0] = sense * ends[0], sense * ends[1]
+    return Pieces(y, pieces), knot, anchor
+
+
+def _effect(group: Group, lines: Lines, knot, anchor, shift, side) -> np.ndarray:
+    """Effect of ``group`` on the one line of ``lines``, standing as the candidates say."""
+    zero = np.zeros(np.size(knot), dtype=int)
+    rows = _search.Rows(zero, zero, np.asarray(knot, float), np.asarray(anchor, float), np.asarray(shift, float),
+                        np.asarray(side, int))
+    return _search.effect(_search._Table.of((group,)), lines, rows)
 
 
 # ------------------------------------------------------------ window supremum
@@ -247,10 +236,10 @@ def _dilate(v: Pieces, low: float, high: float, tol: float, reach: float) -> tup
     starts = np.concatenate(([-np.inf], e))
     # the candidates on each stretch, as polynomials in u = y - start (constants on the infinite ends)
     base = np.where(np.isfinite(starts), starts, mids)
-    follow_lo = _shifted(v.c[lo_piece], base - low - origin[lo_piece])
+    follow_lo = taylor_shift(v.c[lo_piece], base - low - origin[lo_piece])
     options = [(FOLLOW_LO, lo_piece, follow_lo)]
     if finite:
-        follow_hi = _shifted(v.c[hi_piece], base - high - origin[hi_piece])
+        follow_hi = taylor_shift(v.c[hi_piece], base - high - origin[hi_piece])
         options.append((FOLLOW_HI, hi_piece, follow_hi))
     inside = np.zeros((mids.size, width))
     inside[:, 0] = np.where(np.isfinite(const), const, 0.0)
@@ -284,7 +273,7 @@ def _dilate(v: Pieces, low: float, high: float, tol: float, reach: float) -> tup
     end = np.where(last, stretch_end, end)
     probe = np.where(np.isfinite(end), 0.5 * (local + end), local + 1.0)
     probe = np.where(np.isfinite(starts[rows]), probe, 0.0)
-    values = [_horner(p[rows], probe) for p in polys]
+    values = [horner(p[rows], probe) for p in polys]
     values[-1] = np.where(has_inside[rows], values[-1], -np.inf)
     choice = np.argmax(np.vstack(values), axis=0)
     kinds = np.array([k for k, _, _ in options] + [INSIDE])
@@ -293,7 +282,7 @@ def _dilate(v: Pieces, low: float, high: float, tol: float, reach: float) -> tup
     index = indices[choice, np.arange(rows.size)]
     coeffs = np.stack([p[rows] for p in polys])[choice, np.arange(rows.size)]
     # the piece in the local coordinate of its own start
-    coeffs = np.where(np.isfinite(starts[rows])[:, None], _shifted(coeffs, local), coeffs)
+    coeffs = np.where(np.isfinite(starts[rows])[:, None], taylor_shift(coeffs, local), coeffs)
     x = np.where(np.isfinite(starts[rows]), starts[rows] + local, -np.inf)[1:]
     # neighbours with the same source are one piece
     same = (source[1:] == source[:-1]) & (index[1:] == index[:-1])
@@ -321,8 +310,8 @@ def _add(f: Pieces, g: Pieces, tol: float) -> Pieces:
     i_g = np.searchsorted(g.x, mid)
     origin = np.concatenate((x[:1], x)) if x.size else np.zeros(1)
     width = max(f.c.shape[1], g.c.shape[1])
-    cf = _shifted(_widen(f.c[i_f], width), origin - f.origin[i_f])
-    cg = _shifted(_widen(g.c[i_g], width), origin - g.origin[i_g])
+    cf = taylor_shift(_widen(f.c[i_f], width), origin - f.origin[i_f])
+    cg = taylor_shift(_widen(g.c[i_g], width), origin - g.origin[i_g])
     c = cf + cg
     c[0, 1:] = 0.0
     c[-1, 1:] = 0.0
@@ -361,16 +350,14 @@ def _stand(member: int, group: Group, events: tuple[np.ndarray, np.ndarray], y: 
     return Standing(group, ((member, 0.0),), float(knot[j]), float(anchor[j]), shift, side)
 
 
-def best_by_programme(chain: Chain, lines_of: Callable[[Group], Lines], sense: int, tol: float) -> ChainOptimum:
+def best_by_programme(chain: Chain, lines: Lines, sense: int) -> ChainOptimum:
     """Largest (``sense=1``) or smallest (``sense=-1``) effect of a chain whose groups can all be on the
-    beam together, by the dynamic programme of this module.
-
-    ``lines_of(group)`` gives the :class:`~ilkit.loads._search.Lines` of a group.
-    """
+    beam together, on the one line of ``lines``, by the dynamic programme of this module."""
     groups = chain.groups
-    length = max(lines_of(g).axle.length for g in groups)
+    tol = float(lines.plain.tol[0])
+    length = float(lines.plain.length[0])
     reach = 2.0 * (length + sum(g.reach[1] - g.reach[0] for g in groups if np.isfinite(g.reach).all()) + 1.0)
-    profiles = [_profile(g, lines_of(g), sense, reach) for g in groups]
+    profiles = [_profile(g, lines, sense, reach) for g in groups]
     v = profiles[0][0]
     stages = []  # (window supremum, its points, the sum) for each group after the first
     for b in range(1, len(groups)):
@@ -404,8 +391,5 @@ def best_by_programme(chain: Chain, lines_of: Callable[[Group], Lines], sense: i
     # the value where the groups stand, evaluated exactly (the pieces were fitted)
     total = 0.0
     for g, s in zip(groups, standings):
-        one = np.ones(1)
-        at = _search.effect(g, lines_of(g), s.knot * one, s.anchor * one, s.shift * one, np.array([s.side]))
-        total += float(at[0])
+        total += float(_effect(g, lines, [s.knot], [s.anchor], [s.shift], [s.side])[0])
     return ChainOptimum(total, standings, _search.chain_gaps(chain, standings, tol))
-

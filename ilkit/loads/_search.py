@@ -8,6 +8,12 @@ segment end crosses a knot of the line.  Between two events every term is one
 polynomial, so the extreme is either a one-sided limit at an event or a
 stationary point inside an interval.
 
+Many lines at once.  Candidates are rows tagged with their group and their
+line (a :class:`~ilkit.loads._lines.LineSet`): the candidates of several
+groups on all the lines of an envelope come from one pass
+(:func:`candidates_of_groups`), and the dynamic programme over varying gaps
+runs for all the lines together (:func:`best_in_chain`).
+
 Exact faces.  A candidate is never carried as a float position plus offsets
 that might round across a jump: it is an *anchor* (the offset of the group
 that stands at a knot), the knot, a further ``shift`` (0 at events, inside
@@ -17,15 +23,19 @@ within :data:`COINCIDENT` times the line length of a knot *is* that knot
 (float sums such as ``0.2 + 0.1`` or a unit conversion land within rounding
 of the point they stand for).  A load standing at a knot where the line
 jumps takes the ordinate of the face named by the candidate's side.  The
-same function (:func:`ordinates`) gives the ordinates to the search and to
-the placement table, so the two cannot disagree.
+same evaluation (:meth:`LineSet.ordinates <ilkit.loads._lines.LineSet.ordinates>`,
+through :func:`effect`) gives the value of the placement found and the
+placement table, so the two cannot disagree.
 
-Stationary points.  The derivative of the effect between events is a
-polynomial of known degree; it is fitted exactly at interior Chebyshev
-nodes (in a coordinate normalised to ``(-1, 1)``, so the result does not
-depend on the size of the numbers) and solved by
-:func:`ilkit._poly.unit_roots`.  For piecewise-linear lines and point loads
-the derivative is constant between events and only events remain: the
+Search values.  Between events the point loads' effect is the sum, over the
+events so far, of what changes at each (one load leaves a piece of a line and
+enters the next): a polynomial per interval, built once for all intervals
+(:func:`events`).  Its values at the events, from either side, and the roots
+of its derivative (closed form, after a cheap check that the derivative
+changes sign at all) rank the candidates; the placement chosen on each line is
+then evaluated afresh, load by load (:func:`exact_sum`), so the value reported
+is the exact effect of a real placement.  For piecewise-linear lines and point
+loads the derivative is constant between events and only events remain: the
 classic rule that an extreme has a load at a breakpoint.
 
 A *chain* is a series of groups separated by gaps that may vary within
@@ -53,16 +63,13 @@ import functools
 import itertools
 import math
 from collections.abc import Callable
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 from fractions import Fraction
-from typing import TYPE_CHECKING
 
 import numpy as np
 
-from ilkit._poly import unit_roots
-
-if TYPE_CHECKING:  # pragma: no cover
-    from ilkit.influence import InfluenceLine
+from ilkit._poly import horner, roots_in_pieces, taylor_shift
+from ilkit.loads._lines import COINCIDENT, EXACT, LEFT, RIGHT, LineSet
 
 __all__ = [
     "COINCIDENT",
@@ -73,21 +80,15 @@ __all__ = [
     "Standing",
     "ChainOptimum",
     "Pattern",
-    "candidates",
-    "ordinates",
+    "Lines",
+    "Rows",
+    "ChainSearch",
+    "candidates_of_groups",
     "patterns",
     "split",
     "best_in_chain",
+    "exact_sum",
 ]
-
-LEFT, EXACT, RIGHT = -1, 0, 1
-
-COINCIDENT = 1e-10
-"""Two positions closer than this fraction of the line length are one point (a load standing within
-rounding of a knot stands at the knot)."""
-
-JUMP = 1e-9
-"""A knot where the one-sided ordinates differ by more than this fraction of the largest ordinate is a jump."""
 
 
 @dataclass(frozen=True)
@@ -111,7 +112,7 @@ class Group:
     offsets: tuple[float, ...]
     loads: tuple[float, ...]
     segments: tuple[Segment, ...] = ()
-    exact: tuple[Fraction, ...] | None = None  # the offsets without rounding, where known
+    exact: tuple[Fraction, ...] | None = field(default=None, hash=False)  # the offsets without rounding
 
     @property
     def extent(self) -> float:
@@ -180,83 +181,42 @@ class Chain:
         return sum(1 for lo, hi in self.gaps if hi > lo)
 
 
-# ------------------------------------------------------------------ ordinates
-@dataclass(frozen=True)
-class _Knots:
-    x: np.ndarray  # knots of the line
-    left: np.ndarray  # one-sided ordinates at them (0 off the beam)
-    right: np.ndarray
-    jumps: np.ndarray  # True where the two differ
-
-
-def knot_table(line: InfluenceLine) -> _Knots:
-    """The knots of ``line`` with their one-sided ordinates (cached on the line)."""
-    cache = line.__dict__
-    table = cache.get("_knot_table")
-    if table is None:
-        rows = np.array(line.knot_values(), dtype=float).reshape(-1, 3)
-        x, left, right = rows[:, 0], rows[:, 1], rows[:, 2]
-        scale = float(np.abs(rows[:, 1:]).max(initial=0.0))
-        table = _Knots(x, left, right, np.abs(left - right) > JUMP * scale)
-        cache["_knot_table"] = table
-    return table
-
-
-def snap(line: InfluenceLine, x: np.ndarray, tol: float) -> tuple[np.ndarray, np.ndarray]:
-    """Positions within ``tol`` of a knot moved onto it, and the index of that knot (-1 elsewhere)."""
-    knots = knot_table(line).x
-    last = knots.size - 1
-    j = np.searchsorted(knots, x)
-    right = np.minimum(j, last)
-    left = np.maximum(j - 1, 0)
-    to_right = np.abs(knots[right] - x) <= tol
-    to_left = ~to_right & (np.abs(x - knots[left]) <= tol)
-    k = np.where(to_right, right, np.where(to_left, left, -1))
-    return np.where(k >= 0, knots[np.maximum(k, 0)], x), k
-
-
-def ordinates(line: InfluenceLine, x: np.ndarray, side: np.ndarray | int, tol: float) -> tuple[np.ndarray, ...]:
-    """Ordinates of loads at ``x`` taking the limit from ``side`` where they stand at a jump.
-
-    Returns the ordinates, the positions (moved onto the knot a load stands
-    at) and the face of each load: ``LEFT`` or ``RIGHT`` at a jump, ``EXACT``
-    elsewhere.  ``side`` ``EXACT`` at a jump means the value ``line(x)``
-    gives there (the right face, the left one at the right end).
-    """
-    table = knot_table(line)
-    xs, k = snap(line, x, tol)
-    base = np.asarray(line(xs), dtype=float)
-    at = np.maximum(k, 0)
-    face_here = (k >= 0) & table.jumps[at]
-    side = np.broadcast_to(side, xs.shape)
-    use_left = face_here & ((side == LEFT) | ((side == EXACT) & (k == table.x.size - 1)))
-    use_right = face_here & ~use_left
-    values = np.where(use_left, table.left[at], np.where(use_right, table.right[at], base))
-    faces = np.where(use_left, LEFT, np.where(use_right, RIGHT, EXACT))
-    return values, xs, faces
-
-
-def _both_sides(line: InfluenceLine, x: np.ndarray, tol: float) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
-    """Left and right ordinates of loads at ``x``, and where a load stands at a jump."""
-    table = knot_table(line)
-    xs, k = snap(line, x, tol)
-    base = np.asarray(line(xs), dtype=float)
-    at = np.maximum(k, 0)
-    face_here = (k >= 0) & table.jumps[at]
-    return np.where(face_here, table.left[at], base), np.where(face_here, table.right[at], base), face_here
-
-
 # ----------------------------------------------------------------- candidates
 @dataclass(frozen=True)
-class Candidates:
-    """Where a group may stand for an extreme, and its effect there.
+class Lines:
+    """The lines groups are searched on, one set of the same lines three ways: ``axle`` for point loads,
+    ``plain`` (the lines) for unbreakable uniform segments, ``signed`` (their parts of the wanted sign) for
+    breakable ones."""
 
-    Candidate ``c`` puts offset ``anchor[c]`` of the group at ``knot[c]`` and
-    moves it on by ``shift[c]``; ``side[c]`` is the one-sided limit taken
-    (``EXACT``: no load at a jump).  ``first`` and ``last`` are the positions
-    of the first and last point loads (offset 0 for a group without any).
+    axle: LineSet
+    plain: LineSet
+    signed: LineSet
+
+    def segment(self, seg: Segment) -> LineSet:
+        return self.signed if seg.breakable else self.plain
+
+    @property
+    def size(self) -> int:
+        return self.plain.size
+
+    def row(self, i: int) -> Lines:
+        """The same for line ``i`` alone."""
+        return Lines(self.axle.row(i), self.plain.row(i), self.signed.row(i))
+
+
+@dataclass(frozen=True)
+class Candidates:
+    """Where a group may stand for an extreme on each line, and its effect there.
+
+    Flat arrays, ordered by line (``starts[i]:starts[i+1]`` are line
+    ``i``'s).  Candidate ``c`` puts offset ``anchor[c]`` of the group at
+    ``knot[c]`` and moves it on by ``shift[c]``; ``side[c]`` is the one-sided
+    limit taken (``EXACT``: no load at a jump).  ``first`` and ``last`` are
+    the positions of the first and last point loads (offset 0 for a group
+    without any).
     """
 
+    line: np.ndarray
     knot: np.ndarray
     anchor: np.ndarray
     shift: np.ndarray
@@ -264,120 +224,168 @@ class Candidates:
     value: np.ndarray
     first: np.ndarray
     last: np.ndarray
+    starts: np.ndarray
+    group: Group = field(repr=False, compare=False)
+    lines: Lines = field(repr=False, compare=False)
 
-    @property
-    def jumps(self) -> bool:
-        return bool(self.side.any())
+    @functools.cached_property
+    def _layout(self) -> tuple[np.ndarray, np.ndarray]:
+        counts = np.diff(self.starts)
+        width = int(counts.max(initial=0))
+        idx = self.starts[:-1, None] + np.arange(width)[None, :]
+        mask = idx < self.starts[1:, None]
+        return np.minimum(idx, max(self.value.size - 1, 0)), mask
 
-    def __len__(self) -> int:
-        return int(self.value.size)
+    def padded(self, field: str, fill: float) -> np.ndarray:
+        """``field`` as a ``(lines, most candidates)`` table, ``fill`` where a line has fewer."""
+        idx, mask = self._layout
+        data = getattr(self, field)
+        if not data.size:
+            return np.full(mask.shape, fill)
+        return np.where(mask, data[idx], fill)
 
 
 @dataclass(frozen=True)
-class Lines:
-    """The lines a group is searched on: ``axle`` for its point loads, ``segments[k]`` for segment ``k``,
-    and ``tol``, the distance within which two positions are one point."""
+class _Table:
+    """Groups searched together: their point loads padded to one width (offsets ``inf`` where padded)."""
 
-    axle: InfluenceLine
-    segments: tuple[InfluenceLine, ...]
-    tol: float
+    groups: tuple[Group, ...]
+    offsets: np.ndarray
+    loads: np.ndarray
+    counts: np.ndarray
+
+    @classmethod
+    @functools.lru_cache(maxsize=1024)
+    def of(cls, groups: tuple[Group, ...]) -> _Table:
+        width = max(max((len(g.offsets) for g in groups), default=0), 1)
+        offsets = np.full((len(groups), width), np.inf)
+        loads = np.zeros((len(groups), width))
+        for k, g in enumerate(groups):
+            offsets[k, : len(g.offsets)] = g.offsets
+            loads[k, : len(g.loads)] = g.loads
+        return cls(groups, offsets, loads, np.array([len(g.offsets) for g in groups]))
+
+    def count(self, g: np.ndarray, x: np.ndarray, strict: bool) -> np.ndarray:
+        """Number of offsets of each row's group below ``x`` (``strict``) or at or below it."""
+        if len(self.groups) == 1:
+            a = self.offsets[0, : self.counts[0]]
+            return np.searchsorted(a, x, side="left" if strict else "right")
+        if self.offsets.shape[1] <= 64:
+            a = self.offsets[g]
+            return ((a < x[:, None]) if strict else (a <= x[:, None])).sum(axis=1)
+        out = np.zeros(x.shape, dtype=int)
+        for k in np.unique(g):
+            sel = g == k
+            out[sel] = np.searchsorted(self.offsets[k, : self.counts[k]], x[sel], side="left" if strict else "right")
+        return out
+
+
+@dataclass(frozen=True)
+class Rows:
+    """Candidates as rows: the group ``g`` and the line ``r`` of each, its anchor, knot, shift and side."""
+
+    g: np.ndarray
+    r: np.ndarray
+    knot: np.ndarray
+    anchor: np.ndarray
+    shift: np.ndarray
+    side: np.ndarray
+
+    def __getitem__(self, sel) -> Rows:
+        return Rows(self.g[sel], self.r[sel], self.knot[sel], self.anchor[sel], self.shift[sel], self.side[sel])
+
+    def with_side(self, side: np.ndarray) -> Rows:
+        return Rows(self.g, self.r, self.knot, self.anchor, self.shift, side)
 
 
 CHUNK = 1 << 20
 """Most ordinates evaluated in one array: longer searches run in batches, so memory stays bounded."""
 
 
-def _span(group: Group, lines: Lines, knot, anchor, shift, reach: float | np.ndarray = 0.0):
-    """For each candidate, the first and the stop index of the point loads that can be on the beam
-    (``reach``: a further travel to cover)."""
-    a, _ = group.arrays
-    base = anchor - knot - shift
-    first = np.searchsorted(a, base - reach - lines.tol, side="left")
-    stop = np.searchsorted(a, base + lines.axle.length + lines.tol, side="right")
+def _span(table: _Table, lines: Lines, rows: Rows, reach: float | np.ndarray = 0.0):
+    """For each row, the first and the stop index of the point loads that can be on the beam (``reach``: a
+    further travel to cover)."""
+    tol = lines.axle.tol[rows.r]
+    base = rows.anchor - rows.knot - rows.shift
+    first = table.count(rows.g, base - reach - tol, strict=True)
+    stop = table.count(rows.g, base + lines.axle.length[rows.r] + tol, strict=False)
     return first, stop
 
 
-def _batches(first: np.ndarray, stop: np.ndarray, per_row: int = 1):
-    """Slices of the candidates such that each batch evaluates at most :data:`CHUNK` ordinates."""
-    width = int((stop - first).max(initial=0))
-    step = max(1, CHUNK // max(width * per_row, 1))
-    for start in range(0, first.size, step):
-        yield slice(start, start + step), width
+def _batches(first: np.ndarray, stop: np.ndarray, g: np.ndarray, per_row: int = 1):
+    """Slices of the rows, each of one group (rows come ordered by group) and at most :data:`CHUNK`
+    ordinates, with the most point loads a row of the slice has on the beam."""
+    if not g.size:
+        return
+    edges = np.concatenate(([0], np.nonzero(g[1:] != g[:-1])[0] + 1, [g.size]))
+    count = stop - first
+    for lo, hi in zip(edges[:-1], edges[1:]):
+        width = int(count[lo:hi].max(initial=0))
+        step = max(1, CHUNK // max(width * per_row, 1))
+        for start in range(lo, hi, step):
+            yield slice(start, min(start + step, hi)), width
 
 
-def _gather(group: Group, first, stop, width: int) -> tuple[np.ndarray, np.ndarray]:
-    """Offsets and loads of the point loads from ``first`` to ``stop`` per row (padded with zero loads)."""
-    a, w = group.arrays
+def _gather(table: _Table, g: np.ndarray, first: np.ndarray, stop: np.ndarray, width: int):
+    """Offsets and loads of the point loads from ``first`` to ``stop`` per row (zero loads where padded)."""
     idx = first[:, None] + np.arange(width)[None, :]
     mask = idx < stop[:, None]
-    idx = np.minimum(idx, max(a.size - 1, 0))
-    return a[idx], np.where(mask, w[idx], 0.0)
+    idx = np.minimum(idx, table.offsets.shape[1] - 1)
+    a = table.offsets[g[:, None], idx]
+    return np.where(mask, a, 0.0), np.where(mask, table.loads[g[:, None], idx], 0.0)
 
 
-def _segment_effect(group: Group, lines: Lines, knot, anchor, shift) -> np.ndarray:
-    total = np.zeros(knot.shape)
-    for seg, h in zip(group.segments, lines.segments):
-        start = knot + (seg.start - anchor) + shift
-        end = knot + (seg.end - anchor) + shift
-        total = total + seg.intensity * (h.cumulative(end) - h.cumulative(start))
+def _segments(table: _Table, lines: Lines, rows: Rows):
+    """Each uniform segment of the rows' groups: which rows hold its group, those rows, it and its line."""
+    for k, group in enumerate(table.groups):
+        if group.segments:
+            sel = np.nonzero(rows.g == k)[0]
+            part = rows[sel]
+            for seg in group.segments:
+                yield sel, part, seg, lines.segment(seg)
+
+
+def _segment_effect(table: _Table, lines: Lines, rows: Rows) -> np.ndarray:
+    total = np.zeros(rows.g.size)
+    for sel, part, seg, h in _segments(table, lines, rows):
+        start = part.knot + (seg.start - part.anchor) + part.shift
+        end = part.knot + (seg.end - part.anchor) + part.shift
+        total[sel] += seg.intensity * (h.cumulative(part.r, end) - h.cumulative(part.r, start))
     return total
 
 
-def effect(group: Group, lines: Lines, knot, anchor, shift, side) -> np.ndarray:
-    """Effect of the group at candidates (arrays of the fields of :class:`Candidates`)."""
-    total = _segment_effect(group, lines, knot, anchor, shift)
-    if group.offsets:
-        side = np.asarray(side)
-        first, stop = _span(group, lines, knot, anchor, shift)
-        for rows, width in _batches(first, stop):
-            a, w = _gather(group, first[rows], stop[rows], width)
-            x = knot[rows, None] + (a - anchor[rows, None]) + shift[rows, None]
-            values, _, _ = ordinates(lines.axle, x, side[rows, None], lines.tol)
-            total[rows] += (values * w).sum(axis=1)
+def effect(table: _Table, lines: Lines, rows: Rows) -> np.ndarray:
+    """Effect of each row's group on its line, where the row puts it."""
+    total = _segment_effect(table, lines, rows)
+    if table.offsets.size and table.counts.any():
+        first, stop = _span(table, lines, rows)
+        for sl, width in _batches(first, stop, rows.g):
+            part = rows[sl]
+            a, w = _gather(table, part.g, first[sl], stop[sl], width)
+            x = part.knot[:, None] + (a - part.anchor[:, None]) + part.shift[:, None]
+            values, _, _ = lines.axle.ordinates(part.r, x, part.side[:, None])
+            total[sl] += (values * w).sum(axis=1)
     return total
 
 
-def _event_values(group: Group, lines: Lines, knot, anchor) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
-    """Effect of the point loads at events, from the left and from the right, and whether a load stands at
-    a jump."""
-    left, right = np.zeros(knot.size), np.zeros(knot.size)
-    faces = np.zeros(knot.size, dtype=bool)
-    zero = np.zeros(knot.size)
-    first, stop = _span(group, lines, knot, anchor, zero)
-    for rows, width in _batches(first, stop):
-        a, w = _gather(group, first[rows], stop[rows], width)
-        x = knot[rows, None] + (a - anchor[rows, None])
-        lo, hi, face = _both_sides(lines.axle, x, lines.tol)
-        left[rows] = (lo * w).sum(axis=1)
-        right[rows] = (hi * w).sum(axis=1)
-        faces[rows] = (face & (w != 0)).any(axis=1)
-    return left, right, faces
-
-
-def _rate(group: Group, lines: Lines, knot, anchor, shift) -> np.ndarray:
-    """Derivative of the effect with respect to the shift (inside intervals between events); ``shift`` is
-    2-d (one row per interval)."""
+def _segment_rate(table: _Table, lines: Lines, rows: Rows, shift: np.ndarray) -> np.ndarray:
+    """Derivative of the uniform segments' effect with respect to the shift, at the positions ``shift`` (one
+    row per row of ``rows``, whose own shift is 0)."""
     total = np.zeros(shift.shape)
-    if group.offsets:
-        first, stop = _span(group, lines, knot, anchor, np.zeros(knot.size), shift.max(axis=1))
-        for rows, width in _batches(first, stop, shift.shape[1]):
-            a, w = _gather(group, first[rows], stop[rows], width)
-            x = knot[rows, None, None] + (a - anchor[rows, None])[:, None, :] + shift[rows, :, None]
-            slopes = np.asarray(lines.axle.slope(x.ravel())).reshape(x.shape)
-            total[rows] += (slopes * w[:, None, :]).sum(axis=2)
-    for seg, h in zip(group.segments, lines.segments):
+    for sel, part, seg, h in _segments(table, lines, rows):
         for end, sign in ((seg.end, 1.0), (seg.start, -1.0)):
             if math.isfinite(end):  # an end at infinity is off the beam: ordinate 0
-                at = knot[:, None] + (end - anchor)[:, None] + shift
-                total = total + sign * seg.intensity * np.asarray(h(at.ravel())).reshape(at.shape)
+                at = part.knot[:, None] + (end - part.anchor)[:, None] + shift[sel]
+                total[sel] += sign * seg.intensity * h.evaluate(part.r, at)
     return total
 
 
-def _degree(group: Group, lines: Lines) -> int:
-    """Degree of the derivative of the effect between events."""
-    degree = lines.axle.degree - 1 if group.offsets else -1
-    for h in lines.segments:
-        degree = max(degree, h.degree)
+def _degree(groups: tuple[Group, ...], lines: Lines) -> int:
+    """Degree of the derivative of the effect of ``groups`` between events."""
+    degree = lines.axle.degree - 1 if any(g.offsets for g in groups) else -1
+    for group in groups:
+        for seg in group.segments:
+            degree = max(degree, lines.segment(seg).degree)
     return degree
 
 
@@ -392,73 +400,179 @@ def _chebyshev(n: int) -> tuple[np.ndarray, np.ndarray]:
     return _NODES[n]
 
 
-def events(group: Group, lines: Lines) -> tuple[np.ndarray, np.ndarray]:
-    """Knots and anchors of every event of a group (a point load or a segment end at a knot), in order of the
-    group's position, one per position (events within ``tol`` of each other are one)."""
-    knots, anchors = [], []
-    if group.offsets:
-        a, _ = group.arrays
-        k = knot_table(lines.axle).x
-        knots.append(np.repeat(k, a.size))
-        anchors.append(np.tile(a, k.size))
-    for seg, h in zip(group.segments, lines.segments):
-        for end in (seg.start, seg.end):
-            if math.isfinite(end):
-                k = knot_table(h).x
-                knots.append(k)
-                anchors.append(np.full(k.size, end))
-    knot, anchor = np.concatenate(knots), np.concatenate(anchors)
+def events(table: _Table, lines: Lines) -> tuple[Rows, np.ndarray, np.ndarray]:
+    """Every event (a point load or a segment end at a knot) of each group on each line, ordered by group,
+    line and the group's position; events within the tolerance of each other are one.
+
+    Also, for each event, the effect of the point loads just after it, as a
+    polynomial in the group's position (the sum, over the events so far, of
+    what changes at each: one load leaves a piece of the line and enters the
+    next), and whether a load stands at a jump there.
+    """
+    parts, changes, jumps = [], [], []
+    ls = lines.axle
+    width = ls.degree + 1
+    gk, ik = np.nonzero(np.arange(table.offsets.shape[1])[None, :] < table.counts[:, None])  # every point load
+    if gk.size:
+        r, j = ls.valid
+        gg, rr, jj = np.repeat(gk, r.size), np.tile(r, gk.size), np.tile(j, gk.size)
+        aa, ww = np.repeat(table.offsets[gk, ik], r.size), np.repeat(table.loads[gk, ik], r.size)
+        parts.append((gg, rr, ls.knots[rr, jj], aa))
+        changes.append(_crossing(ls, rr, jj, aa, ww))
+        jumps.append(ls.jumps[rr, jj] & (ww != 0))
+    for k, group in enumerate(table.groups):
+        for seg in group.segments:
+            h = lines.segment(seg)
+            r, j = h.valid
+            for end in (seg.start, seg.end):
+                if math.isfinite(end):
+                    parts.append((np.full(r.size, k), r, h.knots[r, j], np.full(r.size, end)))
+                    changes.append(np.zeros((r.size, width)))
+                    jumps.append(np.zeros(r.size, dtype=bool))
+    g, r, knot, anchor = (np.concatenate(c) for c in zip(*parts))
     y = knot - anchor
-    order = np.argsort(y, kind="stable")  # point loads first among equal positions
-    knot, anchor, y = knot[order], anchor[order], y[order]
-    keep = np.ones(y.size, dtype=bool)
-    keep[1:] = np.diff(y) > lines.tol
-    return knot[keep], anchor[keep]
+    order = np.lexsort((y, g * lines.size + r))  # point loads first among equal positions (stable)
+    g, r, knot, anchor, y = g[order], r[order], knot[order], anchor[order], y[order]
+    block = np.ones(y.size, dtype=bool)
+    block[1:] = (g[1:] != g[:-1]) | (r[1:] != r[:-1])
+    keep = block.copy()
+    keep[1:] |= np.diff(y) > lines.axle.tol[r[1:]]
+    zero = np.zeros(int(keep.sum()))
+    rows = Rows(g[keep], r[keep], knot[keep], anchor[keep], zero, zero.astype(int))
+    first = np.nonzero(keep)[0]
+    faces = np.logical_or.reduceat(np.concatenate(jumps)[order], first)
+    # the running sum of the changes, block by block (laid out one block per row, so that no block's sum
+    # depends on the others: a line gives the same alone and among many)
+    changes_sorted = np.concatenate(changes)[order]
+    total = np.empty_like(changes_sorted)
+    edges = np.concatenate(([0], np.nonzero(g[1:] != g[:-1])[0] + 1, [g.size]))
+    for lo, hi in zip(edges[:-1], edges[1:]):  # group by group, so that the layout wastes little
+        starts = np.nonzero(block[lo:hi])[0]
+        which = np.cumsum(block[lo:hi]) - 1
+        slot = np.arange(hi - lo) - starts[which]
+        laid = np.zeros((starts.size, int(slot.max(initial=0)) + 1, changes_sorted.shape[1]))
+        laid[which, slot] = changes_sorted[lo:hi]
+        total[lo:hi] = np.cumsum(laid, axis=1)[which, slot]
+    last = np.append(first[1:] - 1, y.size - 1)  # the last row of each run of one event
+    return rows, total[last], faces
 
 
-def candidates(group: Group, lines: Lines) -> Candidates:
-    """Every position of ``group`` where its effect on the lines can be extreme."""
-    knot, anchor = events(group, lines)
-    zero = np.zeros(knot.size)
-    seg = _segment_effect(group, lines, knot, anchor, zero)
-    left = right = seg
-    faces = np.zeros(knot.size, dtype=bool)
-    if group.offsets:
-        lo, hi, faces = _event_values(group, lines, knot, anchor)
-        left, right = seg + lo, seg + hi
+def _crossing(ls: LineSet, r: np.ndarray, j: np.ndarray, a: np.ndarray, w: np.ndarray) -> np.ndarray:
+    """What a load ``w`` at offset ``a`` crossing knot ``j`` of line ``r`` changes in the effect, as a
+    polynomial in the group's position ``y`` (piece ``j`` entered, piece ``j - 1`` left; none beyond the
+    ends)."""
+    enter = j < ls.counts[r] - 1
+    leave = j >= 1
+    jin = np.minimum(j, ls.coef.shape[1] - 1)
+    jout = np.maximum(j - 1, 0)
+    cin = taylor_shift(ls.coef[r, jin], a - ls.knots[r, jin])
+    cout = taylor_shift(ls.coef[r, jout], a - ls.knots[r, jout])
+    return w[:, None] * (np.where(enter[:, None], cin, 0.0) - np.where(leave[:, None], cout, 0.0))
+
+
+def candidates_of_groups(groups: tuple[Group, ...], lines: Lines) -> list[Candidates]:
+    """Every position of each group where its effect on each line can be extreme (one pass for all).
+
+    The values are those of the search (the point loads' part from the
+    polynomials of :func:`events`, to rounding); :func:`exact_sum` evaluates
+    the candidates chosen afresh, every load on its face.
+    """
+    table = _Table.of(groups)
+    degree = _degree(groups, lines)
+    ev, after, faces = events(table, lines)
+    y = ev.knot - ev.anchor
+    seg = _segment_effect(table, lines, ev)
+    first_of_block = np.ones(y.size, dtype=bool)
+    first_of_block[1:] = (ev.g[1:] != ev.g[:-1]) | (ev.r[1:] != ev.r[:-1])
+    before = np.where(first_of_block[:, None], 0.0, np.roll(after, 1, axis=0))
+    right = seg + horner(after, y)
+    left = seg + horner(before, y)
     # an event with a load at a jump is two candidates, one per face; any other is one
-    parts = [
-        (knot, anchor, zero, np.where(faces, RIGHT, EXACT), right),
-        (knot[faces], anchor[faces], zero[faces], np.full(int(faces.sum()), LEFT), left[faces]),
+    picked = [
+        (ev.with_side(np.where(faces, RIGHT, EXACT)), right),
+        (ev[faces].with_side(np.full(int(faces.sum()), LEFT)), left[faces]),
     ]
-    degree = _degree(group, lines)
-    if degree >= 1 and knot.size > 1:
-        parts.append(_stationary(group, lines, knot, anchor, degree))
-    k, an, sh, sd, val = (np.concatenate(f) for f in zip(*parts))
-    a = group.offsets
-    first = k + ((a[0] if a else 0.0) - an) + sh
-    last = k + ((a[-1] if a else 0.0) - an) + sh
-    return Candidates(k, an, sh, sd.astype(int), val, first, last)
+    if degree >= 1 and ev.g.size > 1:
+        picked.append(_stationary(table, lines, ev, after, degree))
+    fields = ("g", "r", "knot", "anchor", "shift", "side")
+    rows = Rows(*(np.concatenate([getattr(p, f) for p, _ in picked]) for f in fields))
+    value = np.concatenate([v for _, v in picked])
+    out = []
+    for k, group in enumerate(groups):
+        sel = np.nonzero(rows.g == k)[0]
+        sel = sel[np.argsort(rows.r[sel], kind="stable")]
+        part = rows[sel]
+        a = group.offsets
+        first = part.knot + ((a[0] if a else 0.0) - part.anchor) + part.shift
+        last = part.knot + ((a[-1] if a else 0.0) - part.anchor) + part.shift
+        starts = np.concatenate(([0], np.cumsum(np.bincount(part.r, minlength=lines.size))))
+        out.append(
+            Candidates(
+                part.r, part.knot, part.anchor, part.shift, part.side, value[sel], first, last, starts,
+                group, lines,
+            )
+        )
+    return out
 
 
-def _stationary(group: Group, lines: Lines, knot: np.ndarray, anchor: np.ndarray, degree: int):
-    """Candidates strictly between consecutive events where the effect is stationary."""
-    y = knot - anchor
+def _stationary(table: _Table, lines: Lines, ev: Rows, profile: np.ndarray, degree: int) -> tuple[Rows, np.ndarray]:
+    """Candidates strictly between consecutive events of a group on a line where the effect is stationary.
+
+    Between two events every point load stays on one piece of the line, so
+    the effect of the point loads there is the polynomial ``profile`` of the
+    event before (see :func:`events`); the roots of its derivative in the
+    interval are found in closed form, after a check, cheap for a quadratic,
+    that it changes sign there at all.  The part of uniform segments, rarer,
+    is fitted at Chebyshev nodes.  The values are the search's: the
+    polynomial's, and the segments' evaluated.
+    """
+    y = ev.knot - ev.anchor
+    same = (ev.g[1:] == ev.g[:-1]) & (ev.r[1:] == ev.r[:-1])
     width = np.diff(y)
-    tol = lines.tol
-    keep = width > 2 * tol
-    k, an, width = knot[:-1][keep], anchor[:-1][keep], width[keep]
-    u, inverse = _chebyshev(degree + 1)
-    half = 0.5 * width
-    rates = _rate(group, lines, k, an, half[:, None] * (1.0 + u[None, :]))
-    coefficients = rates @ inverse.T  # ascending powers of u, one row per interval
-    rows, roots = unit_roots(coefficients)
-    t = half[rows] * (1.0 + roots)
-    inside = (t > tol) & (t < width[rows] - tol)
-    rows, t = rows[inside], t[inside]
-    k, an = k[rows], an[rows]
-    side = np.zeros(t.size, dtype=int)
-    return k, an, t, side, effect(group, lines, k, an, t, side)
+    tol = lines.axle.tol[ev.r[:-1]]
+    keep = same & (width > 2 * tol)
+    index = np.nonzero(keep)[0]
+    base = ev[index]
+    width = width[index]
+    tol = tol[index]
+    rates = np.zeros((index.size, degree + 1))
+    if table.counts.any():
+        p = profile[index]
+        slope = p[:, 1:] * np.arange(1, p.shape[1])[None, :]
+        rates[:, : slope.shape[1]] += taylor_shift(slope, y[index])  # in the shift t from the event
+    if any(g.segments for g in table.groups):
+        u, inverse = _chebyshev(degree + 1)
+        half = 0.5 * width
+        sampled = _segment_rate(table, lines, base, half[:, None] * (1.0 + u[None, :])) @ inverse.T  # in u
+        c = taylor_shift(sampled, -np.ones(half.size))  # in v = t / half
+        rates += c / half[:, None] ** np.arange(c.shape[1])[None, :]
+    rows_in = np.nonzero(_may_change_sign(rates, width))[0]
+    found, t = roots_in_pieces(rates[rows_in], width[rows_in])
+    found = rows_in[found]
+    inside = (t > tol[found]) & (t < width[found] - tol[found])
+    found, t = found[inside], t[inside]
+    rows = Rows(base.g[found], base.r[found], base.knot[found], base.anchor[found], t, np.zeros(t.size, dtype=int))
+    value = _segment_effect(table, lines, rows)
+    if table.counts.any():
+        value = value + horner(profile[index][found], y[index][found] + t)
+    return rows, value
+
+
+def _may_change_sign(c: np.ndarray, width: np.ndarray) -> np.ndarray:
+    """Rows of polynomials (ascending) that may change sign on ``(0, width)``: exactly for degree 2 or less
+    (ends and vertex), every row of a higher degree."""
+    if c.shape[1] > 3 and np.any(c[:, 3:]):
+        return np.ones(c.shape[0], dtype=bool)
+    zero = np.zeros(c.shape[0])
+    c0 = c[:, 0]
+    c1 = c[:, 1] if c.shape[1] > 1 else zero
+    c2 = c[:, 2] if c.shape[1] > 2 else zero
+    end = c0 + width * (c1 + c2 * width)
+    with np.errstate(divide="ignore", invalid="ignore"):
+        vertex = np.where(c2 != 0, -c1 / (2 * c2), -1.0)
+    top = c0 + vertex * (c1 + c2 * vertex)
+    inside = (vertex > 0) & (vertex < width)
+    return (c0 * end <= 0) | (inside & (top * c0 <= 0))
 
 
 # --------------------------------------------------------------------- chains
@@ -539,75 +653,142 @@ def patterns(chain: Chain) -> tuple[Pattern, ...]:
     return tuple(out)
 
 
-def feasible(
-    prev: Candidates, cur: Candidates, lo: float, hi: float, tol: float
-) -> np.ndarray:
-    """Which pairs (previous block's candidate, this block's) keep the gap between them within ``[lo, hi]``.
+def _feasible(prev: dict, cur: dict, lo: float, hi: float, tol: np.ndarray) -> np.ndarray:
+    """Which pairs (previous block's candidate, this block's), per line, keep the gap between them within
+    ``[lo, hi]`` (tables ``(lines, previous, current)``).
 
     A gap within ``tol`` of a bound is at the bound; there a limit from the
     left of one block and from the right of the other would move the gap out
     of the range, so that pair is refused.
     """
-    gap = cur.first[None, :] - prev.last[:, None]
+    gap = cur["first"][:, None, :] - prev["last"][:, :, None]
+    tol = tol[:, None, None]
     ok = gap >= lo - tol
     if hi < np.inf:
         ok &= gap <= hi + tol
-    if prev.jumps and cur.jumps:
-        sp, sc = prev.side[:, None], cur.side[None, :]
-        ok &= ~((np.abs(gap - lo) <= tol) & (sp == RIGHT) & (sc == LEFT))
-        if hi < np.inf:
-            ok &= ~((np.abs(gap - hi) <= tol) & (sp == LEFT) & (sc == RIGHT))
+    sp, sc = prev["side"][:, :, None], cur["side"][:, None, :]
+    ok &= ~((np.abs(gap - lo) <= tol) & (sp == RIGHT) & (sc == LEFT))
+    if hi < np.inf:
+        ok &= ~((np.abs(gap - hi) <= tol) & (sp == LEFT) & (sc == RIGHT))
     return ok
 
 
-def best_in_chain(chain: Chain, find: Callable[[Group], Candidates], sense: int, tol: float) -> ChainOptimum:
-    """Largest (``sense=1``) or smallest (``sense=-1``) effect of a chain whose parts can all be on the beam
-    together (see :func:`split`).
+@dataclass(frozen=True)
+class ChainSearch:
+    """The best placement of a chain on each line: ``value[i]`` for line ``i``, found with pattern
+    ``pattern[i]`` and the candidates ``picks[pattern][b, i]`` of its blocks (see :meth:`optimum`)."""
 
-    ``find(group)`` returns the :class:`Candidates` of a group (the caller
-    caches them).  Every pattern of gaps held at a bound or left free is
-    searched.
+    chain: Chain
+    patterns: tuple[Pattern, ...]
+    candidates: tuple[tuple[Candidates, ...], ...]
+    value: np.ndarray
+    pattern: np.ndarray
+    picks: tuple[np.ndarray, ...]
+    tol: np.ndarray
+
+    def chosen(self, lines: np.ndarray) -> list[tuple[Candidates, np.ndarray, np.ndarray]]:
+        """For the lines ``lines``: each block's candidates, the index of the one found, and the line."""
+        out = []
+        for p in range(len(self.patterns)):
+            sel = lines[self.pattern[lines] == p]
+            if sel.size:
+                for b, cands in enumerate(self.candidates[p]):
+                    out.append((cands, cands.starts[sel] + self.picks[p][b, sel], sel))
+        return out
+
+    def optimum(self, i: int) -> ChainOptimum:
+        """The placement found on line ``i``."""
+        p = int(self.pattern[i])
+        pattern = self.patterns[p]
+        standings = []
+        for b, (block, cands) in enumerate(zip(pattern.blocks, self.candidates[p])):
+            c = int(cands.starts[i] + self.picks[p][b, i])
+            standings.append(
+                Standing(
+                    block,
+                    pattern.members[b],
+                    float(cands.knot[c]),
+                    float(cands.anchor[c]),
+                    float(cands.shift[c]),
+                    int(cands.side[c]),
+                )
+            )
+        found = tuple(standings)
+        return ChainOptimum(float(self.value[i]), found, chain_gaps(self.chain, found, float(self.tol[i])))
+
+
+def exact_sum(chosen: list[tuple[Candidates, np.ndarray, np.ndarray]], size: int) -> np.ndarray:
+    """The effect of the chosen candidates evaluated afresh (every load on its face), summed per line: one
+    evaluation for all of them."""
+    out = np.zeros(size)
+    if not chosen:
+        return out
+    table = _Table.of(tuple(c.group for c, _, _ in chosen))
+    g = np.concatenate([np.full(i.size, k) for k, (_, i, _) in enumerate(chosen)])
+    names = ("line", "knot", "anchor", "shift", "side")
+    rows = Rows(g, *(np.concatenate([getattr(c, f)[i] for c, i, _ in chosen]) for f in names))
+    values = effect(table, chosen[0][0].lines, rows)
+    np.add.at(out, np.concatenate([lines for _, _, lines in chosen]), values)
+    return out
+
+
+def best_in_chain(
+    chain: Chain, find: Callable[[Group], Candidates], sense: np.ndarray, tol: np.ndarray
+) -> ChainSearch:
+    """Largest (``sense[i]=1``) or smallest (``-1``) effect of a chain whose parts can all be on the beam
+    together (see :func:`split`), on every line ``i`` at once.
+
+    ``find(group)`` returns the :class:`Candidates` of a group on the lines
+    (the caller caches them); ``tol`` is each line's tolerance.  Every
+    pattern of gaps held at a bound or left free is searched.
     """
-    best: ChainOptimum | None = None
-    for pattern in patterns(chain):
-        result = _best_for_pattern(chain, pattern, find, sense, tol)
-        if result is not None and (best is None or sense * result.value > sense * best.value):
-            best = result
-    assert best is not None  # the pattern with every gap at its lower bound always has a candidate
-    return best
+    found = patterns(chain)
+    cands, values, picks = [], [], []
+    for pattern in found:
+        blocks = tuple(find(b) for b in pattern.blocks)
+        value, pick = _best_for_pattern(pattern, blocks, sense, tol)
+        cands.append(blocks)
+        values.append(value)
+        picks.append(pick)
+    table = np.vstack(values)  # (patterns, lines), -inf where no placement
+    best = np.argmax(sense[None, :] * table, axis=0)  # the first pattern among equals
+    value = table[best, np.arange(table.shape[1])]
+    return ChainSearch(chain, found, tuple(cands), value, best, tuple(picks), tol)
 
 
-def _best_for_pattern(chain: Chain, pattern: Pattern, find, sense: int, tol: float) -> ChainOptimum | None:
-    blocks = pattern.blocks
-    cands = [find(b) for b in blocks]
-    score = sense * cands[0].value
+def _best_for_pattern(
+    pattern: Pattern, blocks: tuple[Candidates, ...], sense: np.ndarray, tol: np.ndarray
+) -> tuple[np.ndarray, np.ndarray]:
+    """Best value of one pattern on every line (``-sense inf`` where none) and the candidate of each block
+    (an index among the line's candidates)."""
+    tables = [{f: c.padded(f, fill) for f, fill in (("first", 0.0), ("last", 0.0), ("side", 0))} for c in blocks]
+    scores = [np.where(c._layout[1], sense[:, None] * c.padded("value", 0.0), -np.inf) for c in blocks]
+    n = scores[0].shape[0]
+    score = scores[0]
     back: list[np.ndarray] = []
     for b in range(1, len(blocks)):
         lo, hi = pattern.free_gaps[b - 1]
-        ok = feasible(cands[b - 1], cands[b], lo, hi, tol)
-        total = np.where(ok, score[:, None], -np.inf)
-        arg = total.argmax(axis=0)
-        score = total[arg, np.arange(len(cands[b]))] + sense * cands[b].value
+        width = scores[b].shape[1]
+        arg = np.zeros((n, width), dtype=int)
+        new = np.full((n, width), -np.inf)
+        step = max(1, MATRIX_LIMIT // max(score.shape[1] * width, 1))
+        for start in range(0, n, step):  # lines in batches, so that the table of pairs stays bounded
+            sl = slice(start, start + step)
+            prev = {f: t[sl] for f, t in tables[b - 1].items()}
+            cur = {f: t[sl] for f, t in tables[b].items()}
+            ok = _feasible(prev, cur, lo, hi, tol[sl])
+            total = np.where(ok, score[sl][:, :, None], -np.inf)
+            arg[sl] = total.argmax(axis=1)
+            new[sl] = np.take_along_axis(total, arg[sl][:, None, :], axis=1)[:, 0, :] + scores[b][sl]
+        score = new
         back.append(arg)
-    last = int(score.argmax())
-    if score[last] == -np.inf:
-        return None
-    picks = [last]
-    for arg in reversed(back):
-        picks.append(int(arg[picks[-1]]))
-    picks.reverse()
-    standings = tuple(
-        Standing(
-            block,
-            pattern.members[b],
-            float(c.knot[p]),
-            float(c.anchor[p]),
-            float(c.shift[p]),
-            int(c.side[p]),
-        )
-        for b, (block, c, p) in enumerate(zip(blocks, cands, picks))
-    )
-    return ChainOptimum(float(sense * score[last]), standings, chain_gaps(chain, standings, tol))
+    last = score.argmax(axis=1)
+    best = score[np.arange(n), last]
+    pick = np.zeros((len(blocks), n), dtype=int)
+    pick[-1] = last
+    for b in range(len(blocks) - 1, 0, -1):
+        pick[b - 1] = back[b - 1][np.arange(n), pick[b]]
+    return sense * best, pick
 
 
 def chain_gaps(chain: Chain, standings: tuple[Standing, ...], tol: float) -> tuple[float, ...]:
@@ -770,16 +951,17 @@ def on_beam_at_once(group: Group, length: float) -> int:
     return int((np.searchsorted(a, a + length, side="right") - np.arange(a.size)).max())
 
 
-def cost(chain: Chain, lines_of: Callable[[Group], Lines]) -> Cost:
-    """The cost of searching ``chain`` (one part of a split chain), before any search is done."""
+def cost(chain: Chain, lines: Lines) -> Cost:
+    """The cost of searching ``chain`` (one part of a split chain) on one of the lines (the longest search
+    among them), before any search is done."""
     work, knots, widest = 0.0, 0, 0
     sizes = []
+    length = float(lines.plain.length.max())
     for g in chain.groups:
-        lines = lines_of(g)
-        k = knot_table(lines.axle).x.size if g.offsets else 0
-        k_seg = sum(2 * knot_table(h).x.size for h in lines.segments)
-        w = on_beam_at_once(g, lines.axle.length)
-        nodes = max(_degree(g, lines) + 2, 2)
+        k = int(lines.axle.counts.max()) if g.offsets else 0
+        k_seg = sum(2 * int(lines.segment(s).counts.max()) for s in g.segments)
+        w = on_beam_at_once(g, length)
+        nodes = max(_degree((g,), lines) + 2, 2)
         events = k * len(g.offsets) + k_seg
         work += events * max(w, 1) * (2 + nodes)
         knots, widest = max(knots, k), max(widest, w)

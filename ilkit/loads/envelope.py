@@ -11,7 +11,6 @@ left of the section is pushed up, reactions positive upward.
 
 from __future__ import annotations
 
-import math
 from dataclasses import dataclass, field
 from fractions import Fraction
 from typing import TYPE_CHECKING, Any, Literal
@@ -21,7 +20,7 @@ from ilkit._display import RichDisplay
 from ilkit._exact import fmt, fmt_precise
 from ilkit.errors import LoadInputError, SideRequiredError, UnitsError
 from ilkit.loads.combination import Combination, LoadModel, as_model
-from ilkit.loads.placement import _Study
+from ilkit.loads.placement import extremes_of, maxima_of
 from ilkit.loads.primitives import Load
 from ilkit.loads.results import Extreme, Extremes
 from ilkit.model import Beam
@@ -35,7 +34,10 @@ if TYPE_CHECKING:  # pragma: no cover
 
 __all__ = ["Envelope", "envelope"]
 
-_GOLDEN = (math.sqrt(5.0) - 1.0) / 2.0
+_ROUNDS = 40
+"""Most rounds of the search for the absolute maximum moment (a smooth maximum takes three or four)."""
+_NARROW = 64
+"""How much closer than the bracket the sections searched around a parabola's vertex are."""
 MAX_DIVISIONS = 1000
 """Most parts per span: each section is two placement searches, so more would run for hours."""
 
@@ -198,24 +200,23 @@ def envelope(
         points.add(beam.position(pos))  # a section within the merge tolerance of a support is the support
     faces = set(supports) | set(releases)
 
-    studies: dict[int, Extremes] = {}
-
-    def both(line: InfluenceLine) -> Extremes:
-        key = id(line)
-        if key not in studies:
-            study = _Study(line, model, beam)
-            studies[key] = Extremes(study.extreme(1), study.extreme(-1))
-        return studies[key]
-
-    found: dict[tuple[str, Fraction, Side | None], Extremes] = {}
-    rows: list[dict[str, Any]] = []
+    # every line of the envelope first, then one search of all of them together
+    lines: dict[tuple[str, Fraction, Side | None], InfluenceLine] = {}
     for p in sorted(points):
         sides: tuple[Side | None, ...] = ("left", "right") if p in faces and 0 < p < L else (None,)
         for side in sides:
-            m = both(beam.moment(p, side=side))
-            v = both(beam.shear(p, side=side))
-            found[("moment", p, side)] = m
-            found[("shear", p, side)] = v
+            lines[("moment", p, side)] = beam.moment(p, side=side)
+            lines[("shear", p, side)] = beam.shear(p, side=side)
+    for s in beam.supports:
+        lines[("reaction", s.at, None)] = beam.reaction(s.at)
+    found: dict[tuple[str, Fraction, Side | None], Extremes] = dict(
+        zip(lines, extremes_of(list(lines.values()), model, beam=beam))
+    )
+    rows: list[dict[str, Any]] = []
+    for p in sorted(points):
+        sides = ("left", "right") if p in faces and 0 < p < L else (None,)
+        for side in sides:
+            m, v = found[("moment", p, side)], found[("shear", p, side)]
             rows.append(
                 {
                     f"x [{u.length}]": float(p),
@@ -232,8 +233,7 @@ def envelope(
             )
     reaction_rows = []
     for s in beam.supports:
-        r = both(beam.reaction(s.at))
-        found[("reaction", s.at, None)] = r
+        r = found[("reaction", s.at, None)]
         reaction_rows.append(
             {
                 f"x [{u.length}]": float(s.at),
@@ -256,8 +256,8 @@ def _absolute_maximum(
     found: dict[tuple[str, Fraction, Side | None], Extremes],
     barriers: list[Fraction],
 ) -> tuple[Extreme, tuple[float, ...]]:
-    """Largest moment over all sections: the sampled local maxima refined by golden-section search on
-    each side of the sample; also every section that attains it.
+    """Largest moment over all sections: the sampled local maxima refined on each side of the sample
+    (:func:`_refine`); also every section that attains it.
 
     The samples are ordered on plain keys (position, then the left side before
     the right one): where the moment jumps (an interior fixed support, a
@@ -278,7 +278,8 @@ def _absolute_maximum(
         return _attained(candidates, beam)
     cuts = sorted(float(b) for b in barriers)
     tol = 1e-6 * float(beam.length)
-    for i, (value, (_, side, _)) in enumerate(zip(values, sampled)):
+    brackets: list[dict[float, Extreme]] = []
+    for i, (value, (_, side, sample)) in enumerate(zip(values, sampled)):
         neighbours = values[max(i - 1, 0) : i + 2]
         if value < max(neighbours) or value < 0.95 * top:
             continue
@@ -295,8 +296,17 @@ def _absolute_maximum(
         # girder, where the sample at the axis of symmetry lies between two equal maxima)
         for a, b in ((lo, xs[i]), (xs[i], hi)):
             if b - a > 2 * tol:
-                candidates.append(_golden(beam, model, a, b, tol))
+                end = b if a == xs[i] else a  # the other end: its sample on the bracket's face
+                here = {xs[i]: sample, end: _facing(sampled, end, "right" if end == a else "left")}
+                brackets.append(here)
+    candidates.extend(_refine(beam, model, brackets, tol))
     return _attained(candidates, beam)
+
+
+def _facing(sampled: list[tuple[Fraction, Side | None, Extreme]], x: float, face: Side) -> Extreme:
+    """The sample at ``x`` on ``face`` (the only one where the moment does not jump there)."""
+    at = [(s, e) for p, s, e in sampled if float(p) == x]
+    return next((e for s, e in at if s == face), at[0][1])
 
 
 SAME_VALUE = 1e-9
@@ -317,20 +327,40 @@ def _attained(candidates: list[Extreme], beam: Beam) -> tuple[Extreme, tuple[flo
     return best, tuple(positions)
 
 
-def _golden(beam: Beam, model: LoadModel, lo: float, hi: float, tol: float) -> Extreme:
-    def value_at(x: float) -> Extreme:
-        return _Study(beam.moment(x), model, beam).extreme(1)
-
-    a, b = lo, hi
-    c, d = b - _GOLDEN * (b - a), a + _GOLDEN * (b - a)
-    fc, fd = value_at(c), value_at(d)
-    while b - a > tol:
-        if fc.value >= fd.value:
-            b, d, fd = d, c, fc
-            c = b - _GOLDEN * (b - a)
-            fc = value_at(c)
-        else:
-            a, c, fc = c, d, fd
-            d = a + _GOLDEN * (b - a)
-            fd = value_at(d)
-    return fc if fc.value >= fd.value else fd
+def _refine(beam: Beam, model: LoadModel, brackets: list[dict[float, Extreme]], tol: float) -> list[Extreme]:
+    """The largest moment in each bracket (given by the sections known in it, ends included), by
+    successive parabolas: through the best section known and its neighbours, seven sections around the
+    parabola's vertex (at three distances) are searched, those of every bracket together, until the best
+    section's neighbours are within ``tol`` of it.  The bracket always holds the best section between two
+    lower ones (or an end), so a kink slows the search but cannot mislead it."""
+    known = [dict(b) for b in brackets]  # section -> its largest moment
+    todo: list[tuple[int, float]] = []
+    for _ in range(_ROUNDS):
+        if todo:
+            found = maxima_of([beam.moment(x) for _, x in todo], model, beam=beam)
+            for (k, x), e in zip(todo, found):
+                known[k][x] = e
+        todo = []
+        for k, samples in enumerate(known):
+            xs = sorted(samples)
+            values = [samples[x].value for x in xs]
+            i = max(range(len(xs)), key=lambda n: values[n])
+            left, right = xs[max(i - 1, 0)], xs[min(i + 1, len(xs) - 1)]
+            if right - left <= 2 * tol:
+                continue
+            if len(xs) < 3:  # the two ends alone: the middle first
+                vertex = 0.5 * (xs[0] + xs[-1])
+            else:
+                x0, x1, x2 = left, xs[i], right
+                f0, f1, f2 = (samples[x].value for x in (x0, x1, x2))
+                den = (x1 - x0) * (f1 - f2) - (x1 - x2) * (f1 - f0)
+                num = (x1 - x0) ** 2 * (f1 - f2) - (x1 - x2) ** 2 * (f1 - f0)
+                vertex = x1 - 0.5 * num / den if den != 0 else x1
+            step = max((right - left) / _NARROW, tol / 2)
+            closer = [max(step / 16**n, tol / 2) for n in (0, 1, 2)]  # three distances: fewer rounds
+            offsets = (0.0, *closer, *(-d for d in closer))
+            probes = {min(max(vertex + d, left + tol / 4), right - tol / 4) for d in offsets}
+            todo.extend((k, x) for x in sorted(probes) if x not in samples)
+        if not todo:
+            break
+    return [max(samples.values(), key=lambda e: e.value) for samples in known]

@@ -9,6 +9,12 @@ the stationary points of the effect in closed form between breakpoints, so
 the position is exact to rounding, well within 1e-6 of the span (see
 :mod:`ilkit.loads._search`).
 
+The search runs on many lines at once (:func:`extremes_of`, for envelopes):
+the lines are stacked as arrays, and every step (signed parts, candidate
+placements of each part of a train, the dynamic programme over varying
+spacings, the choice of the governing case) is done for all of them in one
+pass.  :func:`place` and :func:`extremes` are the same search on one line.
+
 Effects follow the sign conventions of :mod:`ilkit.model` (loads act
 downward); values are in the line's unit system.
 """
@@ -16,8 +22,7 @@ downward); values are in the line's unit system.
 from __future__ import annotations
 
 import functools
-from collections.abc import Callable
-from dataclasses import dataclass, field
+from collections.abc import Sequence
 from typing import Literal
 
 import numpy as np
@@ -28,20 +33,22 @@ from ilkit.errors import LoadInputError, PlacementTooLargeError, UnitsError
 from ilkit.influence import InfluenceLine
 from ilkit.loads import _search
 from ilkit.loads._chain import best_by_programme
+from ilkit.loads._lines import EXACT, LEFT, RIGHT, LineSet
 from ilkit.loads.combination import Combination, LoadModel, as_model
 from ilkit.loads.primitives import OVERFLOW, AxleTrain, KnifeEdge, Load, UniformBlocks, UniformLoad
 from ilkit.loads.results import AxlePosition, Direction, Extreme, Extremes, LoadPlacement, Patch
 from ilkit.model import Beam
 
-__all__ = ["place", "extremes"]
+__all__ = ["place", "extremes", "extremes_of", "maxima_of"]
 
 Sense = Literal["max", "min"]
-_SIDES = {_search.LEFT: "left", _search.RIGHT: "right", _search.EXACT: None}
+Travelling = AxleTrain | UniformBlocks | KnifeEdge
+_SIDES = {LEFT: "left", RIGHT: "right", EXACT: None}
 _TIE = 1e-12
 """Relative difference below which two cases or two placements are a tie (the first found is kept)."""
 
 WORK_LIMIT = 2e8
-"""Most ordinate evaluations one placement search may take (a few seconds); more raise
+"""Most ordinate evaluations one placement search may take on one line (a few seconds); more raise
 :class:`~ilkit.PlacementTooLargeError` before any work is done."""
 
 
@@ -62,7 +69,8 @@ def place(
     not at an end of the beam.
     """
     choice(extreme, ("max", "min"), what="extreme", field="extreme", error=LoadInputError)
-    return _Study(line, load, beam).extreme(1 if extreme == "max" else -1)
+    sense = 1 if extreme == "max" else -1
+    return _Study.of((_line(line),), (sense,), load, beam).extremes(lazy=False)[0]
 
 
 def extremes(line: InfluenceLine, load: Load | Combination | LoadModel, *, beam: Beam | None = None) -> Extremes:
@@ -71,188 +79,358 @@ def extremes(line: InfluenceLine, load: Load | Combination | LoadModel, *, beam:
     Effects are in the line's unit system (force, moment, length or rad, as the quantity) with
     the signs of :mod:`ilkit.model`.
     """
-    study = _Study(line, load, beam)
-    return Extremes(study.extreme(1), study.extreme(-1))
+    found = _Study.of((_line(line),), (1, -1), load, beam).extremes(lazy=False)
+    return Extremes(found[0], found[1])
+
+
+def extremes_of(
+    lines: Sequence[InfluenceLine], load: Load | Combination | LoadModel, *, beam: Beam | None = None
+) -> list[Extremes]:
+    """:func:`extremes` of many lines of one beam, searched together (for envelopes).
+
+    The lines must share their units.  Each extreme describes its placements
+    the first time they are asked for.
+    """
+    found = _Study.of(tuple(_line(line) for line in lines), (1, -1), load, beam).extremes(lazy=True)
+    n = len(lines)
+    return [Extremes(found[i], found[n + i]) for i in range(n)]
+
+
+def maxima_of(
+    lines: Sequence[InfluenceLine], load: Load | Combination | LoadModel, *, beam: Beam | None = None
+) -> list[Extreme]:
+    """The largest effect of ``load`` on each of many lines of one beam (see :func:`extremes_of`)."""
+    return _Study.of(tuple(_line(line) for line in lines), (1,), load, beam).extremes(lazy=True)
+
+
+def _line(line: object) -> InfluenceLine:
+    if not isinstance(line, InfluenceLine):
+        raise LoadInputError(
+            f"expected an InfluenceLine (e.g. beam.moment(12)), got {type(line).__name__}.", field="line"
+        )
+    return line
 
 
 # ---------------------------------------------------------------------- study
-@dataclass
+class _Found:
+    """The worst placement of one travelling load on every row: ``value[i]``, and the search it came from."""
+
+    def __init__(self, sense: np.ndarray, tol: np.ndarray) -> None:
+        self.sense = sense
+        self.tol = tol
+        self.value = np.full(tol.size, np.nan)
+        self.source = np.zeros(tol.size, dtype=int)
+        self.sources: list[tuple[Direction, _search.Split, int, object]] = []
+        self.inner: _Found | None = None
+        self.local = np.arange(tol.size)
+
+    def offer(self, value: np.ndarray, direction: Direction, cut: _search.Split, index: int, result: object) -> None:
+        """Keep ``value`` on the rows where it is better than the best so far (ties keep the first)."""
+        s = self.sense
+        better = np.isnan(self.value) | (s * value > s * self.value + _TIE * np.abs(self.value))
+        self.value = np.where(better, value, self.value)
+        self.source = np.where(better, len(self.sources), self.source)
+        self.sources.append((direction, cut, index, result))
+
+    @classmethod
+    def on(cls, found: _Found, rows: np.ndarray, sense: np.ndarray) -> _Found:
+        """``found`` (searched on the rows ``rows`` alone) for all the rows (NaN on the others)."""
+        out = cls(sense, np.zeros(sense.size))
+        out.value[rows] = found.value
+        out.local = np.full(sense.size, -1)
+        out.local[rows] = np.arange(rows.size)
+        out.inner = found
+        return out
+
+    @functools.cached_property
+    def exact(self) -> np.ndarray:
+        """The effect of the placement found on each row, evaluated afresh (the search compares values to
+        rounding): one evaluation for the placements found by patterns; the programme's are exact."""
+        if self.inner is not None:
+            out = np.full(self.value.size, np.nan)
+            out[self.local >= 0] = self.inner.exact
+            return out
+        out = self.value.copy()
+        chosen = []
+        for k, (_, _, _, result) in enumerate(self.sources):
+            if isinstance(result, _search.ChainSearch):
+                rows = np.nonzero(self.source == k)[0]
+                chosen.extend(result.chosen(rows))
+                out[rows] = 0.0
+        return out + _search.exact_sum(chosen, self.value.size)
+
+    def optimum(self, i: int) -> tuple[Direction, _search.Split, _search.ChainOptimum]:
+        """Direction, split chain and the whole chain placed, on row ``i``."""
+        if self.inner is not None:
+            return self.inner.optimum(int(self.local[i]))
+        direction, cut, index, result = self.sources[int(self.source[i])]
+        part = result.optimum(i) if isinstance(result, _search.ChainSearch) else result[i]  # type: ignore[index]
+        return direction, cut, _search.assemble(cut, index, part, float(self.tol[i]))
+
+
 class _Study:
-    """One line and one load model, with the searches done so far."""
+    """Lines of one beam and one load model, with the searches done so far.
 
-    line: InfluenceLine
-    load: Load | Combination | LoadModel
-    beam: Beam | None = None
-    model: LoadModel = field(init=False)
-    tol: float = field(init=False)
-    _parts: dict[int, InfluenceLine] = field(init=False, default_factory=dict)
-    _cands: dict[tuple[object, ...], _search.Candidates] = field(init=False, default_factory=dict)
-    _effects: dict[tuple[int, int], float] = field(init=False, default_factory=dict)
-    _chains: dict[tuple[int, int], tuple[Direction, _search.Split, _search.ChainOptimum]] = field(
-        init=False, default_factory=dict
-    )
+    A *row* is a line and a sense (``+1`` for its largest effect, ``-1`` for
+    its smallest): the largest and the smallest effect of many lines are
+    searched together, row by row.  ``plain`` holds the rows' lines,
+    ``signed`` their parts of the row's sign.
+    """
 
-    def __post_init__(self) -> None:
-        if not isinstance(self.line, InfluenceLine):
+    def __init__(
+        self,
+        lines: tuple[InfluenceLine, ...],
+        sense: np.ndarray,
+        model: LoadModel,
+        beam: Beam | None,
+        plain: LineSet,
+        signed: LineSet,
+    ) -> None:
+        self.lines = lines
+        self.sense = sense
+        self.beam = beam
+        self.model = model
+        self.plain = plain
+        self.signed = signed
+        self.tol = plain.tol
+        self._cands: dict[tuple[object, ...], _search.Candidates] = {}
+        self._found: dict[int, _Found] = {}
+        self._effects: dict[int, np.ndarray] = {}
+        self._parts: dict[bytes, _Study] = {}
+
+    @classmethod
+    def of(
+        cls,
+        lines: tuple[InfluenceLine, ...],
+        senses: tuple[int, ...],
+        load: Load | Combination | LoadModel,
+        beam: Beam | None,
+    ) -> _Study:
+        """The rows of every line with each of ``senses`` (all the lines with the first, then the second)."""
+        if beam is not None and not isinstance(beam, Beam):
             raise LoadInputError(
-                f"expected an InfluenceLine (e.g. beam.moment(12)), got {type(self.line).__name__}.", field="line"
-            )
-        if self.beam is not None and not isinstance(self.beam, Beam):
-            raise LoadInputError(
-                f"beam: give the Beam the line belongs to (or leave it out), got {type(self.beam).__name__} "
-                f"{self.beam!r}.",
+                f"beam: give the Beam the line belongs to (or leave it out), got {type(beam).__name__} {beam!r}.",
                 field="beam",
-                value=self.beam,
+                value=beam,
             )
-        model = as_model(self.load)
-        if self.line.units is None:
+        model = as_model(load)
+        units = lines[0].units
+        if units is None:
             raise UnitsError(
-                f"{self.line.quantity.label}: the beam declares no units, so {model.name} (in "
+                f"{lines[0].quantity.label}: the beam declares no units, so {model.name} (in "
                 f"{model.units.name}) cannot be applied. Declare them: Beam(..., units={model.units.name!r}) "
                 "or units='kN-m'.",
                 field="units",
             )
-        self.model = model.converted(self.line.units)
-        self.tol = _search.COINCIDENT * self.line.length
+        if any(line.units != units for line in lines):
+            raise LoadInputError("extremes_of: give lines of one beam (one unit system).", field="lines")
+        base = LineSet.of(lines)
+        n = len(lines)
+        index = np.tile(np.arange(n), len(senses))
+        sense = np.repeat(np.array(senses), n)
+        plain = base.subset(index)
+        signed = LineSet.rows_of((base.signed(1), base.signed(-1)), (sense < 0).astype(int), index)
+        return cls(tuple(lines[i] for i in index), sense, model.converted(units), beam, plain, signed)
 
     # -------------------------------------------------------------- lines
-    def signed(self, sense: int) -> InfluenceLine:
-        """The part of the line that adds to the extreme of ``sense``."""
-        if sense not in self._parts:
-            self._parts[sense] = self.line.part("positive" if sense > 0 else "negative")
-        return self._parts[sense]
+    def lines_for(self, drop: bool) -> _search.Lines:
+        """The lines point loads see (the signed parts when adverse axles are dropped), the lines themselves
+        and their signed parts."""
+        return _search.Lines(self.signed if drop else self.plain, self.plain, self.signed)
 
-    def lines(self, group: _search.Group, drop: bool, sense: int) -> _search.Lines:
-        """The lines a group is searched on: the signed part for axles when adverse axles are dropped and
-        for breakable uniform loads, the line itself otherwise."""
-        axle = self.signed(sense) if drop and group.offsets else self.line
-        segments = tuple(self.signed(sense) if s.breakable else self.line for s in group.segments)
-        return _search.Lines(axle, segments, self.tol)
+    def _key(self, group: _search.Group, drop: bool) -> tuple[object, ...]:
+        return (group, drop and bool(group.offsets), any(s.breakable for s in group.segments))
 
-    def finder(self, drop: bool, sense: int) -> Callable[[_search.Group], _search.Candidates]:
-        """Candidates of a group, searched on the lines it sees (cached)."""
+    def prefetch(self, groups: list[_search.Group], drop: bool) -> None:
+        """Search many groups in one pass over all the rows."""
+        wanted = {g: None for g in groups if self._key(g, drop) not in self._cands}
+        if wanted:
+            found = _search.candidates_of_groups(tuple(wanted), self.lines_for(drop))
+            for group, cands in zip(wanted, found):
+                self._cands[self._key(group, drop)] = cands
 
+    def finder(self, drop: bool):
         def find(group: _search.Group) -> _search.Candidates:
-            axle_sense = sense if drop and group.offsets else 0
-            key = (group, axle_sense, sense if any(s.breakable for s in group.segments) else 0)
+            key = self._key(group, drop)
             if key not in self._cands:
-                self._cands[key] = _search.candidates(group, self.lines(group, drop, sense))
+                self.prefetch([group], drop)
             return self._cands[key]
 
         return find
 
-    # ------------------------------------------------------------- extremes
-    def extreme(self, sense: int) -> Extreme:
+    # ------------------------------------------------------------ extremes
+    def extremes(self, *, lazy: bool) -> list[Extreme]:
+        """The extreme of every row (placements described now, or when first asked for)."""
         with np.errstate(over="ignore", invalid="ignore"):  # an overflow is reported below, as the effect
-            found = self._extreme(sense)
-        what = f"the {'largest' if sense > 0 else 'smallest'} effect of {self.model.name} on {self.line.quantity.label}"
-        finite(found.value, what=what, why=OVERFLOW, field="load", error=LoadInputError)
-        return found
+            case = self._governing()
+            total = self._exact_totals(case)
+        out = []
+        for i, line in enumerate(self.lines):
+            sense = int(self.sense[i])
+            if not np.isfinite(total[i]):
+                largest = "largest" if sense > 0 else "smallest"
+                what = f"the {largest} effect of {self.model.name} on {line.quantity.label}"
+                finite(float(total[i]), what=what, why=OVERFLOW, field="load", error=LoadInputError)
+            governing = self.model.cases[int(case[i])]
+            describe = functools.partial(self.describe_case, i, governing)
+            placements = describe if lazy else describe()
+            # the exact effect of the placement found (its table adds up to it, to rounding); the same on one
+            # line and among many
+            extreme = "max" if sense > 0 else "min"
+            out.append(Extreme(line.quantity, extreme, float(total[i]), governing.name, placements, line.units,
+                               governing.dynamic))
+        return out
 
-    def _extreme(self, sense: int) -> Extreme:
-        cases = [case for case in self.model.cases if self.applies(case, sense)]
-        best: tuple[float, Combination] | None = None
-        for case in cases:
-            total = sum(case.part_factor(part) * self.effect(part, sense) for part in case.parts)
-            if best is None or sense * total > sense * best[0] + _TIE * abs(best[0]):
-                best = (total, case)
-        assert best is not None  # a model always has a case that applies everywhere
-        _, case = best
-        placements = tuple(self.placement(part, sense, case.part_factor(part)) for part in case.parts)
-        # the value is the sum of the table: what each load, as described, adds
-        total = float(sum(p.factored for p in placements))
-        return Extreme(
-            self.line.quantity, "max" if sense > 0 else "min", total, case.name, placements, self.line.units,
-            case.dynamic,
-        )
+    def _governing(self) -> np.ndarray:
+        """Which case governs on each row.
 
-    def applies(self, case: Combination, sense: int) -> bool:
+        A load is searched only on the rows where a case holding it applies
+        (the two-truck rule, for one, on few of them).
+        """
+        n = self.plain.size
+        cases = self.model.cases
+        applies = [self.applies(case) for case in cases]
+        needed: dict[int, np.ndarray] = {}
+        for case, where in zip(cases, applies):
+            for part in case.parts:
+                needed[id(part)] = needed.get(id(part), np.zeros(n, dtype=bool)) | where
+        self.prefetch_loads([p for c in cases for p in c.parts if needed[id(p)].all()])
+        best = np.full(n, np.nan)
+        which = np.zeros(n, dtype=int)
+        s = self.sense
+        for k, (case, where) in enumerate(zip(cases, applies)):
+            if not where.any():
+                continue
+            total = sum(case.part_factor(part) * self.effect(part, needed[id(part)]) for part in case.parts)
+            better = where & (np.isnan(best) | (s * total > s * best + _TIE * np.abs(best)))
+            best = np.where(better, total, best)
+            which = np.where(better, k, which)
+        return which
+
+    def _exact_totals(self, case: np.ndarray) -> np.ndarray:
+        """The total of each row's governing case with each load where the search placed it, evaluated
+        afresh (the choices were made on the search's values, to rounding)."""
+        total = np.full(self.plain.size, np.nan)
+        for k, combination in enumerate(self.model.cases):
+            rows = case == k
+            if not rows.any():
+                continue
+            parts = []
+            for part in combination.parts:
+                effect = self.effect(part) if isinstance(part, UniformLoad) else self.search(part).exact
+                parts.append(combination.part_factor(part) * effect)
+            total = np.where(rows, sum(parts), total)
+        return total
+
+    def prefetch_loads(self, loads: list[Load]) -> None:
+        """Candidates of every group of the travelling ``loads`` searched by patterns, in one pass per kind."""
+        by_drop: dict[bool, list[_search.Group]] = {}
+        for part in loads:
+            if isinstance(part, UniformLoad):
+                continue
+            drop = isinstance(part, AxleTrain) and part.drop_adverse_axles
+            for _, chain in _layouts(part):
+                cut = _search.split(chain, float(self.plain.length.max()))
+                for index in range(len(cut.parts)):
+                    sub = cut.part(index)
+                    if sub.variable <= _search.PATTERN_GAPS and _search.cost(sub, self.lines_for(drop)).patterns:
+                        for pattern in _search.patterns(sub):
+                            by_drop.setdefault(drop, []).extend(pattern.blocks)
+        for drop, groups in by_drop.items():
+            self.prefetch(groups, drop)
+
+    def on(self, rows: np.ndarray) -> _Study:
+        """The same study on the rows ``rows`` only (cached)."""
+        key = rows.tobytes()
+        if key not in self._parts:
+            lines = tuple(self.lines[i] for i in rows)
+            self._parts[key] = _Study(
+                lines, self.sense[rows], self.model, self.beam, self.plain.subset(rows), self.signed.subset(rows)
+            )
+        return self._parts[key]
+
+    def applies(self, case: Combination) -> np.ndarray:
+        """On which rows ``case`` is considered."""
+        n = self.plain.size
         if case.applies_to == "all":
-            return True
-        q = self.line.quantity
-        if q.kind == "moment":
-            # negative moment between the points of contraflexure under a uniform load on all spans
-            return sense < 0 and self.line.area < 0
-        if q.kind == "reaction":
-            return sense > 0 and self.interior_support()
-        return False
+            return np.ones(n, dtype=bool)
+        out = np.zeros(n, dtype=bool)
+        for i, line in enumerate(self.lines):
+            kind = line.quantity.kind
+            if kind == "moment":
+                # negative moment between the points of contraflexure under a uniform load on all spans
+                out[i] = self.sense[i] < 0 and self.plain.area[i] < 0
+            elif kind == "reaction":
+                out[i] = self.sense[i] > 0 and self.interior_support(line)
+        return out
 
-    def interior_support(self) -> bool:
-        at = self.line.quantity.at
+    def interior_support(self, line: InfluenceLine) -> bool:
+        at = line.quantity.at
         if self.beam is not None:
             positions = [s.at for s in self.beam.supports]
             if at not in positions:
                 raise LoadInputError(
-                    f"{self.line.quantity.label}: the beam given has no support at x={fmt(at)} (supports at "
+                    f"{line.quantity.label}: the beam given has no support at x={fmt(at)} (supports at "
                     f"x={', '.join(fmt(p) for p in positions)}); pass the beam the line belongs to.",
                     field="beam",
                 )
             return positions[0] < at < positions[-1]
-        if at == 0 or float(at) == self.line.length:
+        if at == 0 or float(at) == line.length:
             return False
         raise LoadInputError(
-            f"{self.line.quantity.label}: {self.model.name} treats reactions at interior supports apart; "
+            f"{line.quantity.label}: {self.model.name} treats reactions at interior supports apart; "
             f"pass beam=beam so ilkit can tell whether the support at x={fmt(at)} is interior.",
             field="beam",
         )
 
     # ------------------------------------------------------------ one load
-    def effect(self, part: Load, sense: int) -> float:
-        """Unfactored extreme effect of one load (its placement is described only if its case governs)."""
-        key = (id(part), sense)
+    def effect(self, part: Load, where: np.ndarray | None = None) -> np.ndarray:
+        """Unfactored extreme effect of one load on the rows ``where`` (all if not given; NaN elsewhere)."""
+        key = id(part)
         if key not in self._effects:
-            if isinstance(part, UniformLoad):
-                area = self.line.positive_area if sense > 0 else self.line.negative_area
-                self._effects[key] = part.intensity * area
+            if isinstance(part, UniformLoad):  # on the parts of the row's sign: the signed line's area
+                self._effects[key] = part.intensity * self.signed.area
             else:
-                self._effects[key] = self.best_chain(part, sense)[2].value
+                self._effects[key] = self.search(part, where).value
         return self._effects[key]
 
-    def placement(self, part: Load, sense: int, factor: float) -> LoadPlacement:
-        if isinstance(part, UniformLoad):
-            patches = self.patches_on_sign(part.intensity, [(-np.inf, np.inf)], sense)
-            effect = float(sum(p.effect for p in patches))
-            return LoadPlacement(part.name, effect, factor, None, (), (), patches, line=self.line)
-        direction, cut, opt = self.best_chain(part, sense)
-        drop = isinstance(part, AxleTrain) and part.drop_adverse_axles
-        return self.describe(part, direction, cut, opt, sense, drop, factor)
-
-    def best_chain(
-        self, load: AxleTrain | UniformBlocks | KnifeEdge, sense: int
-    ) -> tuple[Direction, _search.Split, _search.ChainOptimum]:
-        """The worst placement of a travelling load, over both directions and every part of it that can be
-        on the beam alone."""
-        key = (id(load), sense)
-        if key not in self._chains:
-            find = self.finder(isinstance(load, AxleTrain) and load.drop_adverse_axles, sense)
-            best: tuple[Direction, _search.Split, _search.ChainOptimum] | None = None
+    def search(self, load: Travelling, where: np.ndarray | None = None) -> _Found:
+        """The worst placement of a travelling load on the rows ``where`` (all if not given), over both
+        directions and every part of it that can be on the beam alone."""
+        key = id(load)
+        if key not in self._found and where is not None and not where.all():
+            rows = np.nonzero(where)[0]
+            sub = self.on(rows)
+            sub.prefetch_loads([load])
+            self._found[key] = _Found.on(sub.search(load), rows, self.sense)
+        if key not in self._found:
             drop = isinstance(load, AxleTrain) and load.drop_adverse_axles
-
-            def lines_of(group: _search.Group) -> _search.Lines:
-                return self.lines(group, drop, sense)
-
+            lines = self.lines_for(drop)
+            found = _Found(self.sense, self.tol)
+            find = self.finder(drop)
             for direction, chain in _layouts(load):
-                cut = _search.split(chain, self.line.length)
+                cut = _search.split(chain, float(self.plain.length.max()))
                 for index in range(len(cut.parts)):
                     part = cut.part(index)
-                    plan = _search.cost(part, lines_of)
+                    plan = _search.cost(part, lines)
                     self.check(load, plan)
                     if plan.patterns:
-                        opt = _search.best_in_chain(part, find, sense, self.tol)
+                        result = _search.best_in_chain(part, find, self.sense, self.tol)
+                        found.offer(result.value, direction, cut, index, result)
                     else:
-                        opt = best_by_programme(part, lines_of, sense, self.tol)
-                    if best is None or sense * opt.value > sense * best[2].value + _TIE * abs(best[2].value):
-                        best = (direction, cut, _search.assemble(cut, index, opt, self.tol))
-            assert best is not None
-            self._chains[key] = best
-        return self._chains[key]
+                        optima = [
+                            best_by_programme(part, lines.row(i), int(self.sense[i])) for i in range(self.plain.size)
+                        ]
+                        found.offer(np.array([o.value for o in optima]), direction, cut, index, optima)
+            self._found[key] = found
+        return self._found[key]
 
-    def check(self, load: AxleTrain | UniformBlocks | KnifeEdge, plan: _search.Cost) -> None:
-        """Refuse a search that would take more than :data:`WORK_LIMIT` ordinate evaluations."""
+    def check(self, load: Travelling, plan: _search.Cost) -> None:
+        """Refuse a search that would take more than :data:`WORK_LIMIT` ordinate evaluations on a line."""
         if plan.work <= WORK_LIMIT:
             return
         raise PlacementTooLargeError(
-            f"{load.name} on {self.line.quantity.label}: the search for the worst placement would take about "
+            f"{load.name} on {self.lines[0].quantity.label}: the search for the worst placement would take about "
             f"{plan.work:.3g} ordinate evaluations ({plan.axles} axles, up to {plan.on_beam} on the beam at "
             f"once, {plan.variable} varying spacings, {plan.breakpoints} breakpoints of the line), more than "
             f"the limit of {WORK_LIMIT:.3g}. Give fewer axles (e.g. an equivalent uniform load for a long "
@@ -266,25 +444,43 @@ class _Study:
             on_beam=plan.on_beam,
         )
 
+    # ------------------------------------------------------------ description
+    def describe_case(self, i: int, case: Combination) -> tuple[LoadPlacement, ...]:
+        """Where each load of ``case`` stands on row ``i``."""
+        with np.errstate(over="ignore", invalid="ignore"):
+            return tuple(self.placement(i, part, case.part_factor(part)) for part in case.parts)
+
+    def placement(self, i: int, part: Load, factor: float) -> LoadPlacement:
+        line = self.lines[i]
+        if isinstance(part, UniformLoad):
+            patches = self.patches_on_sign(i, part.intensity, [(-np.inf, np.inf)])
+            effect = float(sum(p.effect for p in patches))
+            return LoadPlacement(part.name, effect, factor, None, (), (), patches, line=line)
+        direction, cut, opt = self.search(part).optimum(i)
+        drop = isinstance(part, AxleTrain) and part.drop_adverse_axles
+        return self.describe(i, part, direction, cut, opt, drop, factor)
+
     def describe(
         self,
-        load: AxleTrain | UniformBlocks | KnifeEdge,
+        i: int,
+        load: Travelling,
         direction: Direction,
         cut: _search.Split,
         opt: _search.ChainOptimum,
-        sense: int,
         drop: bool,
         factor: float,
     ) -> LoadPlacement:
         """The placement as a table: every axle at the position the search evaluated, with the ordinate of
         the face it stands on, every loaded stretch, and their sum."""
-        line, tol = self.line, self.tol
+        line = self.lines[i]
+        sense = int(self.sense[i])
         standings = opt.standings
         xs = np.concatenate([s.axles() for s in standings])
         sides = np.concatenate([np.full(len(s.block.offsets), s.side) for s in standings])
+        rows = np.full(xs.size, i)
         if drop:  # the positions the search evaluated on the signed part, moved onto its knots
-            xs, _ = _search.snap(self.signed(sense), xs, tol)
-        values, xs, faces = _search.ordinates(line, xs, sides, tol)
+            xs, _ = self.signed.snap(rows, xs)
+        values, xs, faces = self.plain.ordinates(rows, xs, sides)
         lead_last = direction == "left to right"  # the mirrored chain: the lead axle is the rightmost
         order = np.arange(xs.size)[::-1] if lead_last else np.arange(xs.size)
         loads = load.loads if isinstance(load, AxleTrain) else ((load.load,) if isinstance(load, KnifeEdge) else ())
@@ -292,16 +488,17 @@ class _Study:
         for number, (k, p) in enumerate(zip(order, loads), start=1):
             x, face, ordinate = float(xs[k]), int(faces[k]), float(values[k])
             on_beam = 0.0 <= x <= line.length and not (
-                (face == _search.LEFT and x <= 0.0) or (face == _search.RIGHT and x >= line.length)
+                (face == LEFT and x <= 0.0) or (face == RIGHT and x >= line.length)
             )
             counted = on_beam and (not drop or sense * ordinate > 0)
             axles.append(AxlePosition(number, p, x, _SIDES[face], ordinate, counted))
         patches: list[Patch] = []
-        segments = sorted(((s.at(g.start), s.at(g.end), g) for s in standings for g in s.block.segments),
-                          key=lambda item: item[0])
+        segments = sorted(
+            ((s.at(g.start), s.at(g.end), g) for s in standings for g in s.block.segments), key=lambda item: item[0]
+        )
         for start, end, seg in segments:
             if seg.breakable:
-                patches.extend(self.patches_on_sign(seg.intensity, [(start, end)], sense))
+                patches.extend(self.patches_on_sign(i, seg.intensity, [(start, end)]))
             else:
                 a, b = max(start, 0.0), min(end, line.length)
                 if b > a:
@@ -323,21 +520,27 @@ class _Study:
         shown = None if isinstance(load, KnifeEdge) else direction
         return LoadPlacement(load.name, effect, factor, shown, spacings, tuple(axles), tuple(patches), front, line)
 
-    def patches_on_sign(self, intensity: float, spans: list[tuple[float, float]], sense: int) -> tuple[Patch, ...]:
-        """Patches of a breakable load limited to ``spans``: the parts of the line of the wanted sign."""
+    def patches_on_sign(self, i: int, intensity: float, spans: list[tuple[float, float]]) -> tuple[Patch, ...]:
+        """Patches of a breakable load limited to ``spans``: the parts of the line of the row's sign."""
+        line = self.lines[i]
         out = []
-        for a, b in self.line.intervals("positive" if sense > 0 else "negative"):
+        for a, b in self.signed.intervals(i):
             for lo, hi in spans:
                 s, e = max(a, lo), min(b, hi)
                 if e > s:
-                    out.append(Patch(s, e, intensity, intensity * self.line.integral(s, e)))
+                    out.append(Patch(s, e, intensity, intensity * line.integral(s, e)))
         return tuple(out)
 
 
-@functools.lru_cache(maxsize=256)
-def _layouts(load: AxleTrain | UniformBlocks | KnifeEdge) -> tuple[tuple[Direction, _search.Chain], ...]:
-    """The load's chain in each travel direction (the lead axle on the right when travelling right)."""
-    natural = load.chain()
-    if isinstance(load, KnifeEdge):
-        return (("left to right", natural),)
-    return (("left to right", natural.mirrored()), ("right to left", natural))
+def _layouts(load: Travelling) -> tuple[tuple[Direction, _search.Chain], ...]:
+    """The load's chain in each travel direction (the lead axle on the right when travelling right), kept
+    with the load."""
+    found = load.__dict__.get("_layouts")
+    if found is None:
+        natural = load.chain()
+        if isinstance(load, KnifeEdge):
+            found = (("left to right", natural),)
+        else:
+            found = (("left to right", natural.mirrored()), ("right to left", natural))
+        load.__dict__["_layouts"] = found
+    return found

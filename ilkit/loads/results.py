@@ -6,6 +6,8 @@ its left end; effects carry the sign conventions of :mod:`ilkit.model`.
 
 from __future__ import annotations
 
+import functools
+from collections.abc import Callable
 from dataclasses import dataclass, field
 from typing import TYPE_CHECKING, Any, Literal
 
@@ -140,13 +142,14 @@ class LoadPlacement(RichDisplay):
         return f"LoadPlacement({'; '.join(parts)})"
 
 
-@dataclass(frozen=True)
+@dataclass(frozen=True, init=False, eq=False)
 class Extreme(RichDisplay):
     """The largest (``extreme="max"``) or smallest (``"min"``) effect of a load on one quantity.
 
     ``value`` is the factored total of the governing ``case``;
-    ``placements`` say where each load of the case stands; ``dynamic`` is the
-    dynamic effect the value contains (the case's
+    ``placements`` say where each load of the case stands (an extreme of an
+    envelope describes them the first time they are asked for); ``dynamic``
+    is the dynamic effect the value contains (the case's
     :attr:`ilkit.Combination.dynamic`: an allowance, a factor, included in the
     load values, or none; ``None`` when not recorded).
     """
@@ -155,11 +158,49 @@ class Extreme(RichDisplay):
     extreme: Literal["max", "min"]
     value: float
     case: str
-    placements: tuple[LoadPlacement, ...]
     units: UnitSystem
     dynamic: DynamicEffect | None = None
     """The dynamic effect ``value`` contains (the governing case's :attr:`ilkit.Combination.dynamic`), or
     ``None`` when not recorded."""
+
+    def __init__(
+        self,
+        quantity: Quantity,
+        extreme: Literal["max", "min"],
+        value: float,
+        case: str,
+        placements: tuple[LoadPlacement, ...] | Callable[[], tuple[LoadPlacement, ...]],
+        units: UnitSystem,
+        dynamic: DynamicEffect | None = None,
+    ) -> None:
+        object.__setattr__(self, "dynamic", dynamic)
+        object.__setattr__(self, "quantity", quantity)
+        object.__setattr__(self, "extreme", extreme)
+        object.__setattr__(self, "value", value)
+        object.__setattr__(self, "case", case)
+        object.__setattr__(self, "units", units)
+        if callable(placements):
+            object.__setattr__(self, "_describe", placements)
+        else:
+            self.__dict__["placements"] = tuple(placements)
+
+    @functools.cached_property
+    def placements(self) -> tuple[LoadPlacement, ...]:
+        """Where each load of the governing case stands, with its effect."""
+        described = tuple(self._describe())  # type: ignore[attr-defined]
+        object.__delattr__(self, "_describe")  # the search behind it is no longer kept
+        return described
+
+    def __eq__(self, other: object) -> bool:
+        if not isinstance(other, Extreme):
+            return NotImplemented
+        mine = (self.quantity, self.extreme, self.value, self.case, self.units)
+        return mine == (other.quantity, other.extreme, other.value, other.case, other.units) and (
+            self.placements == other.placements
+        )
+
+    def __hash__(self) -> int:
+        return hash((self.quantity, self.extreme, self.value, self.case))
 
     @property
     def unit(self) -> str:

@@ -27,7 +27,10 @@ Moving-load results (placements, envelopes, load models) have their tables,
 displays and sheet sections in :mod:`ilkit.views.moving_records`; design results
 (permanent effects, concurrent forces, the deflection check) in
 :mod:`ilkit.views.design_records`, drawn by :func:`plot_permanent_effects` and
-:func:`plot_deflection_check`.
+:func:`plot_deflection_check`; factored envelopes, distributions, limit states
+and lane placements in :mod:`ilkit.views.factored_records`, drawn by
+:func:`plot_factored_envelope` (with the unfactored components underneath)
+and :func:`plot_transverse`.
 
 A new result type joins by registering with the dispatchers
 :func:`ilkit.views.display.mimebundle`, :func:`table`,
@@ -36,11 +39,12 @@ A new result type joins by registering with the dispatchers
 """
 
 # tables, displays and sheet sections of the moving-load and design results register themselves
-from ilkit.views import design_records, moving_records  # noqa: F401
+from ilkit.views import design_records, factored_records, moving_records  # noqa: F401
 from ilkit.views.derive import Derivation, derivation
 from ilkit.views.design_plots import plot_deflection_check, plot_permanent_effects
 from ilkit.views.draw import draw_beam
 from ilkit.views.explorer import Explorer
+from ilkit.views.factored_plots import plot_factored_envelope, plot_transverse
 from ilkit.views.formula import formula
 from ilkit.views.moving import plot_envelope, plot_placement
 from ilkit.views.plot import plot_line
@@ -69,4 +73,6 @@ __all__ = [
     "plot_placement",
     "plot_permanent_effects",
     "plot_deflection_check",
+    "plot_factored_envelope",
+    "plot_transverse",
 ]
