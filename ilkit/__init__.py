@@ -24,8 +24,10 @@ from ilkit.errors import (
     PlacementTooLargeError,
     SideRequiredError,
     StiffnessRequiredError,
+    TrussInputError,
     UnitsError,
     UnstableBeamError,
+    UnstableTrussError,
     UnsupportedResultError,
     WriteError,
 )
@@ -78,6 +80,8 @@ __all__ = [
     "ExportError",
     "WriteError",
     "PlacementTooLargeError",
+    "TrussInputError",
+    "UnstableTrussError",
     # moving loads (published models: ilkit.loads)
     "AxleTrain",
     "TrainUniform",

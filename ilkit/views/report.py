@@ -235,7 +235,8 @@ def sheet_blocks(
         Figure(style.figure_svg(beam_figure(beam)), "The beam: supports, releases and spans", "beam"),
         Para(("Sign conventions: x is the position of the travelling unit load from the left end of the beam; "
               "the unit load acts downward. "
-              + " ".join(f"{KINDS[kind][1].capitalize()}: {words}." for kind, words in SIGN_CONVENTIONS.items()),)),
+              + " ".join(f"{KINDS[kind][1].capitalize()}: {words}." for kind, words in SIGN_CONVENTIONS.items()
+                         if kind in KINDS),)),
     ]
     chapter = 2
     if moving is not None:
