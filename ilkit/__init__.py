@@ -76,6 +76,7 @@ __all__ = [
     "UnsupportedResultError",
     "NoDerivationError",
     "views",
+    "trusses",
     "LoadInputError",
     "ExportError",
     "WriteError",
@@ -108,9 +109,9 @@ def __getattr__(name: str) -> Any:
         from ilkit._symbols import x
 
         return x
-    if name == "views":
-        # drawings, derivations, tables and calculation sheets: loaded on first use
+    if name in ("views", "trusses"):
+        # drawings, derivations, tables and calculation sheets; trusses: loaded on first use
         import importlib
 
-        return importlib.import_module("ilkit.views")
+        return importlib.import_module(f"ilkit.{name}")
     raise AttributeError(f"module 'ilkit' has no attribute {name!r}")

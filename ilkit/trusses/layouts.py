@@ -7,7 +7,8 @@ left, a roller on the right unless ``supports=`` says otherwise) and the other
 chord above or below it.  Joints are named ``L0 ... Ln`` along the lower
 chord, ``U0 ... Un`` along the upper one (index = panel point, counted from
 the left), ``M1 ...`` at mid-height of a K-truss's verticals; members by their
-joints (``"U1-U2"``); every member carries its role (``"top chord"``,
+joints from left to right, the upper first at the same ``x`` (``"U1-U2"``,
+``"L0-U1"``, ``"U1-L2"``, ``"U1-L1"``); every member carries its role (``"top chord"``,
 ``"bottom chord"``, ``"vertical"``, ``"diagonal"``, ``"end post"``).
 
 ``depth`` is the height between the chords: one number (parallel chords) or
@@ -156,7 +157,9 @@ class _Builder:
                 self.add(a, b, "bottom chord" if chord == "L" else "top chord")
 
     def add(self, a: str, b: str, role: str) -> None:
+        """The member a-b, named by its joints from left to right (upper first at the same x)."""
         if a in self.joints and b in self.joints:
+            a, b = sorted((a, b), key=lambda j: (self.joints[j][0], -self.joints[j][1]))
             name = f"{a}-{b}"
             self.members.append((a, b))
             self.roles[name] = role

@@ -100,9 +100,10 @@ class Stability:
     reaction components beyond what the joints' equilibrium fixes);
     ``motions`` the number of independent ways the truss can move as a
     mechanism (0 for a stable truss).  For a mechanism ``joints`` names the
-    joints that move, ``members`` the members that turn, ``parts`` the rigid
-    parts that move against each other, and ``message`` says it all in words
-    with the fix.
+    joints that move, ``parts`` the rigid parts that move against each other,
+    ``members`` the members that join those parts (or, without such parts,
+    the members that turn), and ``message`` says it all in words with the
+    fix.
     """
 
     joints_count: int
@@ -164,6 +165,8 @@ def _describe(layout: Layout, rank: int, modes: list[list[Fraction]]) -> Stabili
 
     turning = tuple(name for name, a, b in layout.members if turns(a, b))
     parts = _rigid_parts(layout, modes, moving)
+    links = tuple(name for name, a, b in layout.members
+                  if len(parts) > 1 and not any(a in part and b in part for part in parts))
     count = len(modes)
     ways = "one way" if count == 1 else f"{count} independent ways"
     rigid = _rigid_modes(layout)
@@ -175,11 +178,11 @@ def _describe(layout: Layout, rank: int, modes: list[list[Fraction]]) -> Stabili
             "support reactions neither all run parallel nor all pass through one point."
         )
         if count > len(rigid):
-            message += " Besides, " + _internal_words(layout, parts, turning, moving)
+            message += " Besides, " + _internal_words(layout, parts, links, moving)
     else:
-        message = f"the truss is a mechanism ({ways}): " + _internal_words(layout, parts, turning, moving)
+        message = f"the truss is a mechanism ({ways}): " + _internal_words(layout, parts, links, moving)
     return Stability(
-        nj, layout.unknowns, rank, count, tuple(names[j] for j in moving), turning,
+        nj, layout.unknowns, rank, count, tuple(names[j] for j in moving), links or turning,
         tuple(tuple(names[j] for j in part) for part in parts), message,
     )
 
@@ -196,7 +199,7 @@ def _rigid_words(layout: Layout, mode: tuple[Fraction, Fraction, Fraction]) -> s
     return f"turn about {where} (every support reaction passes through it)"
 
 
-def _internal_words(layout: Layout, parts: list[tuple[int, ...]], turning: tuple[str, ...], moving: list[int]) -> str:
+def _internal_words(layout: Layout, parts: list[tuple[int, ...]], links: tuple[str, ...], moving: list[int]) -> str:
     names = layout.joints
     if len(moving) <= 2 and len(parts) <= 1:
         joints = " and ".join(names[j] for j in moving)
@@ -207,10 +210,11 @@ def _internal_words(layout: Layout, parts: list[tuple[int, ...]], turning: tuple
                 f"{', in one line' if len(held) > 1 else ''}. Add a member to brace "
                 f"{'them' if len(moving) > 1 else 'it'} (or a support there).")
     listed = "; ".join("joints " + ", ".join(names[j] for j in part) for part in parts)
-    links = ", ".join(turning) if turning else "none"
-    return (f"its rigid parts ({listed}) can move against each other while every member keeps its length; "
-            f"the members that turn are {links}. Add a member that braces the parts against each other (for "
-            "example the diagonal of a panel that has none), or a support.")
+    joined = (f": they are joined only by member{'s' if len(links) > 1 else ''} {', '.join(links)}, which turn"
+              f"{'s' if len(links) == 1 else ''} like links") if links else ""
+    return (f"its rigid parts ({listed}) can move against each other while every member keeps its length"
+            f"{joined}. Add a member that braces the parts against each other (for example the diagonal of a "
+            "panel that has none), or a support.")
 
 
 def _rigid_parts(layout: Layout, modes: list[list[Fraction]], moving: list[int]) -> list[tuple[int, ...]]:
