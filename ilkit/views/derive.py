@@ -416,4 +416,4 @@ def _(origin: Mechanism, line: InfluenceLine) -> Derivation:
 
 
 # the writers for lines of the stiffness method and of the force method register themselves with derive_origin
-from ilkit.views import derive_elastic, derive_force  # noqa: E402, F401
+from ilkit.views import derive_elastic, derive_force, derive_panels  # noqa: E402, F401
