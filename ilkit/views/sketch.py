@@ -79,7 +79,19 @@ def sketch(line: InfluenceLine, ax: Axes | None = None, *, title: str | None = N
     :class:`~ilkit.stiffness.UnitShape`), drawn with the line's sign (positive
     up).  Raises :class:`ilkit.UnsupportedResultError` for a line that did not
     come from the analysis of a beam (use :func:`ilkit.views.plot_line`).
+
+    A line of a truss (``line.origin`` a :class:`~ilkit.trusses.TrussLine`)
+    is sketched as the truss moved by a unit shortening of its member (or its
+    support moved up by 1) above the deck's movement, which is the line
+    (:func:`ilkit.views.truss.truss_sketch`); a girder loaded through a floor
+    system shows the girder's shape and the deck's chords.
     """
+    from ilkit.trusses.lines import TrussLine
+
+    if isinstance(getattr(line, "origin", None), TrussLine):
+        from ilkit.views.truss import truss_sketch
+
+        return truss_sketch(line, ax, title=title)
     beam = _beam_of(line)
     q = line.quantity
     at = float(q.at)
