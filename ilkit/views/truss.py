@@ -300,12 +300,14 @@ def truss_facts(truss: Truss) -> list[tuple[str, str]]:
     at = f" {u.length}" if u else ""
     degree = truss.degree
     points = ", ".join(f"{j} ({fmt(x)})" for j, x in zip(truss.deck, truss.panel_points))
+    supports = ", ".join(f"{kind} at {j} (x = {fmt(truss.deck_x(j))}{at})" for j, kind in truss.supports.items())
+    method = "determinate: statics, exact" if degree == 0 else "indeterminate: stiffness method with EA"
     return [
         ("span (deck)", f"{fmt(truss.length)}{at}"),
         ("joints, members", f"{len(truss.joints)}, {len(truss.members)}"),
-        ("supports", ", ".join(f"{kind} at {j} (x = {fmt(truss.deck_x(j))}{at})" for j, kind in truss.supports.items())),
+        ("supports", supports),
         ("deck: panel points (x)", points),
-        ("degree of indeterminacy", f"{degree} ({'determinate: statics, exact' if degree == 0 else 'indeterminate: stiffness method with EA'})"),
+        ("degree of indeterminacy", f"{degree} ({method})"),
         ("units", f"{u.name} (lengths in {u.length}, forces in {u.force})" if u else "not declared"),
     ]
 
