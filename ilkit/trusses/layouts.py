@@ -39,7 +39,7 @@ from fractions import Fraction
 from typing import Any, Literal
 
 from ilkit._check import choice, listed, whole
-from ilkit._exact import fmt
+from ilkit._exact import fmt, is_quantity
 from ilkit.errors import TrussInputError
 from ilkit.trusses.model import DECKS, SUPPORT_KINDS, Truss, _number
 from ilkit.units import LENGTH, UnitSystem, unit_system
@@ -78,7 +78,7 @@ class _Builder:
     def _depths(self, depth: Any, system: UnitSystem | None, end_posts: Any, layout: str,
                 allowed: bool) -> list[Fraction]:
         n = self.n
-        if isinstance(depth, (str, bytes)) or not hasattr(depth, "__len__"):
+        if is_quantity(depth) or isinstance(depth, (str, bytes)) or not hasattr(depth, "__len__"):
             d = _number(depth, dims=LENGTH, system=system, field="depth")
             if d <= 0:
                 raise TrussInputError(f"{layout}: depth must be greater than 0, got {depth!r}.", field="depth",
