@@ -26,7 +26,7 @@ from ilkit.trusses.envelope import MemberEnvelope, member_envelope
 from ilkit.trusses.layouts import howe, k_truss, parker, pratt, warren
 from ilkit.trusses.lines import TrussLine
 from ilkit.trusses.model import Truss
-from ilkit.trusses.statics import Stability
+from ilkit.trusses.statics import TrussStability
 
 __all__ = [
     "Truss",
@@ -38,5 +38,5 @@ __all__ = [
     "member_envelope",
     "MemberEnvelope",
     "TrussLine",
-    "Stability",
+    "TrussStability",
 ]

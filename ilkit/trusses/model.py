@@ -36,7 +36,7 @@ from ilkit.units import FORCE, LENGTH, UnitSystem, magnitude_in, unit_system
 if TYPE_CHECKING:  # pragma: no cover
     from ilkit.influence import InfluenceLine
     from ilkit.trusses.lines import Solution
-    from ilkit.trusses.statics import Layout, Stability
+    from ilkit.trusses.statics import Layout, TrussStability
     from ilkit.views.truss_explorer import TrussExplorer
 
 __all__ = ["Truss", "SUPPORT_KINDS", "DECKS"]
@@ -259,8 +259,8 @@ class Truss(RichDisplay):
         return Layout(names, tuple(self._joints[n] for n in names), members, tuple(reactions))  # type: ignore[attr-defined]
 
     @cached_property
-    def stability(self) -> Stability:
-        """Stability and determinacy (:class:`ilkit.trusses.statics.Stability`)."""
+    def stability(self) -> TrussStability:
+        """Stability and determinacy (:class:`ilkit.trusses.TrussStability`)."""
         from ilkit.trusses.statics import analyse
 
         return analyse(self.layout)

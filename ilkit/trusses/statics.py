@@ -41,7 +41,8 @@ from fractions import Fraction
 from ilkit import _exact
 from ilkit._exact import Row, fmt
 
-__all__ = ["Layout", "Stability", "equilibrium", "analyse", "solve_unit_loads", "released_shape", "exact_sqrt"]
+__all__ = ["Layout", "TrussStability", "equilibrium", "analyse", "solve_unit_loads", "released_shape",
+           "exact_sqrt"]
 
 Point = tuple[Fraction, Fraction]
 
@@ -93,7 +94,7 @@ def _transpose(rows: list[Row], ncols: int) -> list[Row]:
 
 # ----------------------------------------------------------------------- stability
 @dataclass(frozen=True)
-class Stability:
+class TrussStability:
     """Stability and determinacy of a truss.
 
     ``degree`` is the degree of static indeterminacy (member forces and
@@ -126,14 +127,14 @@ class Stability:
         return self.motions == 0
 
 
-def analyse(layout: Layout) -> Stability:
+def analyse(layout: Layout) -> TrussStability:
     """Rank, degree and, for a mechanism, a description of how it moves."""
     rows = equilibrium(layout)
     ncols = layout.unknowns
     rank, _ = _exact.nullspace(rows, ncols) if ncols else (0, [])
     nj = len(layout.joints)
     if rank == 2 * nj:
-        return Stability(nj, ncols, rank)
+        return TrussStability(nj, ncols, rank)
     _, modes = _exact.nullspace(_transpose(rows, ncols), 2 * nj)
     return _describe(layout, rank, modes)
 
@@ -153,7 +154,7 @@ def _moves(mode: Sequence[Fraction], j: int) -> bool:
     return bool(mode[2 * j] or mode[2 * j + 1])
 
 
-def _describe(layout: Layout, rank: int, modes: list[list[Fraction]]) -> Stability:
+def _describe(layout: Layout, rank: int, modes: list[list[Fraction]]) -> TrussStability:
     names = layout.joints
     xy = layout.coordinates
     nj = len(names)
@@ -181,7 +182,7 @@ def _describe(layout: Layout, rank: int, modes: list[list[Fraction]]) -> Stabili
             message += " Besides, " + _internal_words(layout, parts, links, moving)
     else:
         message = f"the truss is a mechanism ({ways}): " + _internal_words(layout, parts, links, moving)
-    return Stability(
+    return TrussStability(
         nj, layout.unknowns, rank, count, tuple(names[j] for j in moving), links or turning,
         tuple(tuple(names[j] for j in part) for part in parts), message,
     )
