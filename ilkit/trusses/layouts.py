@@ -206,6 +206,17 @@ def _diagonals(b: _Builder, towards_middle_down: bool) -> None:
         b.add(f"U{up}", f"L{down}", "diagonal")
 
 
+def _with_verticals(layout: str, span: Any, panels: Any, depth: Any, deck: Any, end_posts: Any, supports: Any,
+                    EA: Any, units: Any, *, down: bool) -> Truss:
+    """Chords, end posts, a vertical at every panel point and one diagonal per panel (Pratt or Howe)."""
+    b = _Builder(span, panels, depth, deck, unit_system(units), end_posts, layout=layout)
+    b.add_chords()
+    b.end_posts()
+    b.verticals(range(1, b.n) if b.inclined else range(b.n + 1))
+    _diagonals(b, towards_middle_down=down)
+    return b.truss(supports, EA, units)
+
+
 def pratt(
     span: Any,
     panels: int,
@@ -225,13 +236,7 @@ def pratt(
     ``supports`` the kinds at the left and right ends; ``EA`` and ``units`` as
     for :class:`~ilkit.trusses.Truss`.  Member forces are positive in tension.
     """
-    system = unit_system(units)
-    b = _Builder(span, panels, depth, deck, system, end_posts, layout="pratt")
-    b.add_chords()
-    b.end_posts()
-    b.verticals(range(1, b.n) if b.inclined else range(b.n + 1))
-    _diagonals(b, towards_middle_down=True)
-    return b.truss(supports, EA, units)
+    return _with_verticals("pratt", span, panels, depth, deck, end_posts, supports, EA, units, down=True)
 
 
 def howe(
@@ -249,13 +254,7 @@ def howe(
 
     Arguments as for :func:`pratt`.  Member forces are positive in tension.
     """
-    system = unit_system(units)
-    b = _Builder(span, panels, depth, deck, system, end_posts, layout="howe")
-    b.add_chords()
-    b.end_posts()
-    b.verticals(range(1, b.n) if b.inclined else range(b.n + 1))
-    _diagonals(b, towards_middle_down=False)
-    return b.truss(supports, EA, units)
+    return _with_verticals("howe", span, panels, depth, deck, end_posts, supports, EA, units, down=False)
 
 
 def warren(
