@@ -1,6 +1,6 @@
 """Sphinx configuration of the ilkit documentation site (``make docs``, output in ``out/docs/``).
 
-The site is built offline: the theme's files, MathJax (from the ``jupyter-server-mathjax``
+The site is built offline: the theme's files, MathJax (from the ``django-static-mathjax``
 package) and every script are served from the build; nothing is loaded from a CDN.  The build
 runs with warnings as errors (``-W --keep-going -n``): broken references, public names without a
 docstring, notebooks that fail and failed reference checks stop it.
@@ -38,7 +38,7 @@ exclude_patterns = ["_build", "Thumbs.db", ".DS_Store", "**.ipynb_checkpoints", 
 templates_path = ["_templates"]
 myst_enable_extensions = ["dollarmath", "amsmath", "colon_fence", "deflist"]
 myst_heading_anchors = 3
-myst_update_mathjax = False  # MathJax 2 is configured below (mathjax2_config)
+myst_update_mathjax = False  # MathJax is configured below (mathjax3_config)
 suppress_warnings: list[str] = []
 
 # ---------------------------------------------------------------- notebooks (executed at build time)
@@ -88,21 +88,19 @@ html_theme_options = {
     "navigation_with_keys": True,
 }
 
-# MathJax 2 from the jupyter-server-mathjax package, copied into _static/mathjax by ilkit_docs
-mathjax_path = "mathjax/MathJax.js?config=TeX-AMS-MML_HTMLorMML-full"
-mathjax2_config = {
+# MathJax 3 (one file, SVG output: no fonts to fetch), copied into _static/mathjax by ilkit_docs from
+# the same package the demo's pages use (ilkit.demo.copy_mathjax)
+mathjax_path = "mathjax/tex-svg-full.js"
+mathjax3_config = {
     # only math that Sphinx and myst mark as math is typeset (myst marks the rest of the page
     # mathjax_ignore, so that a $ in the text stays a $)
-    "tex2jax": {
-        "inlineMath": [["\\(", "\\)"]],
-        "displayMath": [["\\[", "\\]"]],
-        "processEscapes": True,
-        "ignoreClass": "tex2jax_ignore|mathjax_ignore",
-        "processClass": "tex2jax_process|mathjax_process|math|output_area",
+    "tex": {"inlineMath": [["\\(", "\\)"]], "displayMath": [["\\[", "\\]"]], "processEscapes": True},
+    "options": {
+        "ignoreHtmlClass": "tex2jax_ignore|mathjax_ignore",
+        "processHtmlClass": "tex2jax_process|mathjax_process|math|output_area",
+        "enableMenu": False,
     },
-    "HTML-CSS": {"availableFonts": [], "webFont": "STIX-Web", "imageFont": None},
-    "showMathMenu": False,
-    "menuSettings": {"zoom": "None"},
+    "svg": {"fontCache": "global"},
 }
 
 # ---------------------------------------------------------------- ilkit_docs (docs/_ext/ilkit_docs.py)

@@ -55,7 +55,7 @@ def run(out: Path, notebooks: Path | None = None) -> Path:
     source = notebooks or _notebooks_folder()
     make_folder(out, "demo")  # the notebooks run in it
     figures = out / "figures"
-    mathjax_url = _copy_mathjax(out)
+    mathjax_url = copy_mathjax(out)
     entries = []
     for path in sorted(source.glob("*.ipynb")):
         print(f"running {path.name} ...", flush=True)
@@ -154,8 +154,9 @@ def kernel_manager() -> Any:
 MATHJAX = "_static/mathjax"
 
 
-def _copy_mathjax(out: Path) -> str:
-    """Copy MathJax (one file, SVG output: no fonts to fetch) beside the pages; its URL relative to them."""
+def copy_mathjax(out: Path) -> str:
+    """Copy MathJax 3 (one file, SVG output: no fonts to fetch) into ``out/_static/mathjax``; its URL relative
+    to ``out``.  Used by the demo's pages and the documentation site."""
     try:
         import mathjax  # the django-static-mathjax distribution: MathJax's files, no Django needed
     except ImportError as err:  # pragma: no cover - exercised without the extra only

@@ -7,7 +7,7 @@
 * Gallery: the example notebooks of ``notebooks/``, copied in and executed by myst-nb.
 * Verification manual: the ``verification-table`` directive reads the record that the reference
   tests write (``tests/_verification.py``); a failed check is a warning.
-* MathJax is copied from the ``jupyter-server-mathjax`` package into ``_static/mathjax``.
+* MathJax 3 is copied from the ``django-static-mathjax`` package into ``_static/mathjax``.
 * References to ilkit objects by another of their paths (``ilkit.model.Beam``,
   ``ilkit.units.SYSTEMS``) resolve to the page of the same object.
 """
@@ -17,7 +17,6 @@ from __future__ import annotations
 import inspect
 import json
 import re
-import shutil
 from pathlib import Path
 from typing import Any
 
@@ -75,14 +74,9 @@ def generate_sources(app: Sphinx, config: Any) -> None:
 def copy_mathjax(app: Sphinx) -> None:
     if app.builder.format != "html":
         return
-    try:
-        import jupyter_server_mathjax
-    except ImportError as err:  # pragma: no cover - the docs extra installs it
-        raise RuntimeError("the docs need jupyter-server-mathjax: pip install 'ilkit[docs]'") from err
-    source = Path(jupyter_server_mathjax.__file__).parent / "static"
-    target = Path(app.outdir) / "_static" / "mathjax"
-    if not (target / "MathJax.js").exists():
-        shutil.copytree(source, target, dirs_exist_ok=True)
+    from ilkit.demo import copy_mathjax as copy  # the demo's pages use the same MathJax
+
+    copy(Path(app.outdir))
 
 
 # ------------------------------------------------------------------ references by identity

@@ -58,16 +58,17 @@ def _open(page, path: Path) -> None:
 
 
 def _typeset(page) -> None:
-    """Wait until MathJax has typeset the page (MathJax 2: its queue has run)."""
-    page.wait_for_function("window.MathJax !== undefined && MathJax.isReady === true", timeout=30_000)
-    page.evaluate("() => new Promise(done => MathJax.Hub.Queue(() => done(true)))")
+    """Wait until MathJax (3) has typeset the page: its start-up promise has settled."""
+    page.wait_for_function("window.MathJax !== undefined && MathJax.startup !== undefined "
+                           "&& MathJax.startup.promise !== undefined", timeout=30_000)
+    page.evaluate("() => MathJax.startup.promise.then(() => true)")
 
 
 # the text a reader sees as prose and formulas: code blocks and printed outputs (which may show LaTeX
 # source on purpose, e.g. views.to_latex) and the TeX kept by MathJax or MathML for copying left out
 _PROSE = """() => {
     const article = document.querySelector("article").cloneNode(true);
-    article.querySelectorAll("pre, code, script, annotation, .MathJax_Preview").forEach(e => e.remove());
+    article.querySelectorAll("pre, code, script, annotation, mjx-assistive-mml").forEach(e => e.remove());
     return article.textContent;
 }"""
 
@@ -92,15 +93,17 @@ def test_mathematics_is_typeset_on_every_page_with_math(site, offline, artifacts
         _typeset(page)
         raw = RAW_TEX.findall(page.evaluate(_PROSE))
         assert not raw, f"{path.name}: raw TeX visible: {raw[:5]}"
-        sources = page.locator("script[type^='math/tex']").count()
-        rendered = page.locator(".MathJax, .MathJax_Display").count()
-        assert sources > 0 and rendered >= sources, f"{path.name}: {sources} formulas, {rendered} typeset"
-        assert page.locator(".MathJax_Error, merror").count() == 0, path.name
-        width = page.locator(".MathJax_Display, .MathJax").first.evaluate("e => e.getBoundingClientRect().width")
+        # every element Sphinx or myst marked as math holds a typeset formula (an SVG), none an error
+        marked = page.locator("article .math")
+        typeset = page.locator("article .math:has(mjx-container svg)")
+        assert marked.count() > 0 and typeset.count() == marked.count(), (
+            f"{path.name}: {marked.count()} formulas, {typeset.count()} typeset")
+        assert page.locator("mjx-merror, merror").count() == 0, path.name
+        width = page.locator("mjx-container").first.evaluate("e => e.getBoundingClientRect().width")
         assert width > 5, path.name
     _open(page, site / "theory" / "stiffness-and-force.html")
     _typeset(page)
-    page.locator(".MathJax_Display").nth(2).scroll_into_view_if_needed()
+    page.locator("mjx-container[display='true']").nth(2).scroll_into_view_if_needed()
     page.screenshot(path=str(artifacts / "docs-theory-math.png"))
     assert blocked == [] and errors == []
 
