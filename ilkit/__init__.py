@@ -24,8 +24,10 @@ from ilkit.errors import (
     PlacementTooLargeError,
     SideRequiredError,
     StiffnessRequiredError,
+    TrussInputError,
     UnitsError,
     UnstableBeamError,
+    UnstableTrussError,
     UnsupportedResultError,
     WriteError,
 )
@@ -74,10 +76,13 @@ __all__ = [
     "UnsupportedResultError",
     "NoDerivationError",
     "views",
+    "trusses",
     "LoadInputError",
     "ExportError",
     "WriteError",
     "PlacementTooLargeError",
+    "TrussInputError",
+    "UnstableTrussError",
     # moving loads (published models: ilkit.loads)
     "AxleTrain",
     "TrainUniform",
@@ -104,9 +109,9 @@ def __getattr__(name: str) -> Any:
         from ilkit._symbols import x
 
         return x
-    if name == "views":
-        # drawings, derivations, tables and calculation sheets: loaded on first use
+    if name in ("views", "trusses"):
+        # drawings, derivations, tables and calculation sheets; trusses: loaded on first use
         import importlib
 
-        return importlib.import_module("ilkit.views")
+        return importlib.import_module(f"ilkit.{name}")
     raise AttributeError(f"module 'ilkit' has no attribute {name!r}")

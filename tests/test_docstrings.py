@@ -1,6 +1,6 @@
 """Every public name has a docstring, with its units and sign conventions where they apply.
 
-The public names are the ``__all__`` of ``ilkit``, ``ilkit.loads`` and ``ilkit.views``; for a
+The public names are the ``__all__`` of ``ilkit``, ``ilkit.loads``, ``ilkit.trusses`` and ``ilkit.views``; for a
 class, also its public methods and properties.  A value (``SYSTEMS``, ``ALPHA_VALUES``, ``x``)
 is documented by the string after its assignment, as the API pages read it.  A callable that
 returns an engineering number (an influence line, an effect, an envelope, an ordinate, a float)
@@ -22,7 +22,7 @@ import pytest
 
 import ilkit
 
-PACKAGES = ("ilkit", "ilkit.loads", "ilkit.views")
+PACKAGES = ("ilkit", "ilkit.loads", "ilkit.trusses", "ilkit.views")
 
 # what a docstring says when it states a unit, and when it states a sign convention
 UNIT = re.compile(

@@ -22,7 +22,7 @@ from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
 import ilkit
-from ilkit import BeamInputError, IlkitError, IllConditionedError, LoadInputError, Quantity, Spring, Support
+from ilkit import BeamInputError, IlkitError, IllConditionedError, LoadInputError, Quantity, Spring, Support, trusses
 from ilkit.influence import InfluenceLine
 from ilkit.loads import (
     AxleTrain,
@@ -547,6 +547,9 @@ JUNK = st.one_of(
 
 _LINE = TWO_SPANS.moment(5)
 _ENVELOPE = envelope(SPAN, KNIFE, divisions=2)
+_TRUSS = trusses.pratt(40, 4, 3, units="kN-m")
+_TRUSS_ENVELOPE = trusses.member_envelope(_TRUSS, KNIFE)
+
 ENTRY_POINTS = {
     "Beam.length": lambda v: ilkit.Beam(v, {0: "fixed"}),
     "Beam.supports": lambda v: ilkit.Beam(10, v),
@@ -593,6 +596,28 @@ ENTRY_POINTS = {
     "hl93 factor": lambda v: hl93(factor=v),
     "multiple_presence": lambda v: multiple_presence(v),
     "cooper per": lambda v: cooper(per=v),
+    # trusses and floor systems
+    "Beam.panel_points": lambda v: ilkit.Beam(10, {0: "pin", 10: "roller"}, panel_points=v),
+    "Beam.panel_points item": lambda v: ilkit.Beam(10, {0: "pin", 10: "roller"}, panel_points=[0, v, 10]),
+    "Truss joints": lambda v: trusses.Truss(v, [("A", "B")], {"A": "pin"}),
+    "Truss joint": lambda v: trusses.Truss({"A": (0, 0), "B": v, "C": (2, 1)},
+                                           [("A", "B"), ("B", "C"), ("A", "C")], {"A": "pin", "C": "roller"}),
+    "Truss members": lambda v: trusses.Truss({"A": (0, 0), "B": (1, 0)}, v, {"A": "pin"}),
+    "Truss supports": lambda v: trusses.Truss({"A": (0, 0), "B": (2, 0), "C": (1, 1)},
+                                              [("A", "B"), ("B", "C"), ("A", "C")], v),
+    "Truss deck": lambda v: trusses.Truss({"A": (0, 0), "B": (2, 0), "C": (1, 1)},
+                                          [("A", "B"), ("B", "C"), ("A", "C")], {"A": "pin", "B": "roller"}, v),
+    "Truss EA": lambda v: trusses.Truss({"A": (0, 0), "B": (2, 0), "C": (1, 1)},
+                                        [("A", "B"), ("B", "C"), ("A", "C")], {"A": "pin", "B": "roller"}, EA=v),
+    "pratt span": lambda v: trusses.pratt(v, 4, 3),
+    "pratt panels": lambda v: trusses.pratt(40, v, 3),
+    "pratt depth": lambda v: trusses.pratt(40, 4, v),
+    "warren verticals": lambda v: trusses.warren(40, 4, 3, verticals=v),
+    "parker end_depth": lambda v: trusses.parker(40, 4, 3, v),
+    "truss.member_force": lambda v: _TRUSS.member_force(v),
+    "truss.reaction": lambda v: _TRUSS.reaction(v),
+    "member_envelope load": lambda v: trusses.member_envelope(_TRUSS, v),
+    "MemberEnvelope.extreme": lambda v: _TRUSS_ENVELOPE.extreme(v),
 }
 
 

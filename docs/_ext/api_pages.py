@@ -1,6 +1,6 @@
 """API reference pages: one page per public name, one summary page per package.
 
-The public names are the ``__all__`` of ``ilkit``, ``ilkit.loads`` and ``ilkit.views``.  A name
+The public names are the ``__all__`` of ``ilkit``, ``ilkit.loads``, ``ilkit.trusses`` and ``ilkit.views``.  A name
 listed by several packages (``ilkit.AxleTrain`` is ``ilkit.loads.AxleTrain``) is documented once,
 in the most specific package, and the others link to it.
 """
@@ -15,8 +15,8 @@ import sys
 from functools import cache
 from typing import Any
 
-PACKAGES = ("ilkit", "ilkit.loads", "ilkit.views")
-PAGE = {"ilkit": "ilkit", "ilkit.loads": "loads", "ilkit.views": "views"}
+PACKAGES = ("ilkit", "ilkit.loads", "ilkit.trusses", "ilkit.views")
+PAGE = {"ilkit": "ilkit", "ilkit.loads": "loads", "ilkit.trusses": "trusses", "ilkit.views": "views"}
 
 # groups of a package's summary, by the module that defines a name (first match wins)
 GROUPS: tuple[tuple[str, str], ...] = (
@@ -34,6 +34,12 @@ GROUPS: tuple[tuple[str, str], ...] = (
     ("ilkit.loads.standing", "Placement and envelopes"),
     ("ilkit.loads.envelope", "Placement and envelopes"),
     ("ilkit.loads.results", "Results of the placement"),
+    ("ilkit.trusses.model", "The truss"),
+    ("ilkit.trusses.layouts", "Layouts"),
+    ("ilkit.trusses.statics", "The truss"),
+    ("ilkit.trusses.lines", "Influence lines of a truss"),
+    ("ilkit.trusses.envelope", "Member envelopes"),
+    ("ilkit.views.truss", "Drawings"),
     ("ilkit.views.draw", "Drawings"),
     ("ilkit.views.plot", "Drawings"),
     ("ilkit.views.sketch", "Drawings"),
@@ -44,6 +50,7 @@ GROUPS: tuple[tuple[str, str], ...] = (
     ("ilkit.views.explorer", "The explorer"),
     ("ilkit.views", "Subpackages"),
     ("ilkit.loads", "Subpackages"),
+    ("ilkit.trusses", "Subpackages"),
     ("ilkit", "Other names"),
 )
 
