@@ -147,8 +147,6 @@ def test_placement_envelope_and_sketch_take_floor_lines_unchanged():
     assert "floor beam" in text
 
 
-@pytest.mark.xfail(strict=True, reason="ilkit.loads.envelope lists both faces only at supports and releases; at "
-                   "a floor beam the shear jumps too (asked of the lead: add beam.panel_points to its faces)")
 def test_envelope_of_a_girder_with_a_floor_system_lists_both_faces_at_floor_beams():
     beam = ilkit.Beam(40, {0: "pin", 40: "roller"}, units="kN-m", panel_points=[0, 10, 20, 30, 40])
     found = loads.envelope(beam, loads.lm2(), divisions=4)
