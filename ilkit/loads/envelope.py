@@ -3,8 +3,9 @@
 Sections are the ends, every support, every release, every floor beam of a
 floor system and equal divisions of each span and overhang.  At interior
 supports, releases and floor beams both sides are listed (``side``
-``"left"`` and ``"right"``).  The reaction envelope covers every support; the absolute maximum moment is searched along the whole beam
-and refined to 1e-6 of the beam length.  Sign conventions are those of
+``"left"`` and ``"right"``).  The reaction envelope covers every support;
+the absolute maximum moment is searched along the whole beam and refined
+to 1e-6 of the beam length.  Sign conventions are those of
 :mod:`ilkit.model`: sagging moment positive, shear positive when the part
 left of the section is pushed up, reactions positive upward.
 """
