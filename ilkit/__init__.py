@@ -27,8 +27,10 @@ from ilkit.errors import (
     PlacementTooLargeError,
     SideRequiredError,
     StiffnessRequiredError,
+    TrussInputError,
     UnitsError,
     UnstableBeamError,
+    UnstableTrussError,
     UnsupportedResultError,
     WriteError,
 )
@@ -78,6 +80,7 @@ __all__ = [
     "NoDerivationError",
     "views",
     "design",
+    "trusses",
     "LoadInputError",
     "ExportError",
     "WriteError",
@@ -85,6 +88,8 @@ __all__ = [
     "DesignInputError",
     "FactorAppliedTwiceError",
     "OutsideRangeError",
+    "TrussInputError",
+    "UnstableTrussError",
     # moving loads (published models: ilkit.loads)
     "AxleTrain",
     "TrainUniform",
@@ -111,8 +116,8 @@ def __getattr__(name: str) -> Any:
         from ilkit._symbols import x
 
         return x
-    if name in ("views", "design"):
-        # drawings, derivations, tables and calculation sheets; design effects: loaded on first use
+    if name in ("views", "design", "trusses"):
+        # drawings, derivations, tables and calculation sheets; design effects; trusses: loaded on first use
         import importlib
 
         return importlib.import_module(f"ilkit.{name}")

@@ -215,14 +215,16 @@ def _page_exporter(mathjax_url: str) -> Any:
 
 
 def _extra_outputs(out: Path) -> list[tuple[str, str, int]]:
-    """Further demo outputs written by the views layer: calculation sheets of two notebook girders."""
-    from ilkit.views.demo import write_demo_sheet, write_highway_sheet
+    """Further demo outputs written by the views layer: calculation sheets of two notebook girders and of the
+    notebook's through truss."""
+    from ilkit.views.demo import write_demo_sheet, write_highway_sheet, write_truss_sheet
 
     entries = []
     for write, title in (
         (write_demo_sheet, "Calculation sheet of the suspended-span girder"),
         (write_highway_sheet, "Calculation sheet of the continuous highway girder under HL-93 (placements, "
                               "envelope)"),
+        (write_truss_sheet, "Calculation sheet of the Pratt through truss under HL-93 (member forces)"),
     ):
         sheet = write(out)
         print(f"wrote {sheet.html.name} and {sheet.markdown.name} ...", flush=True)

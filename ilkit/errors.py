@@ -26,6 +26,8 @@ __all__ = [
     "DesignInputError",
     "FactorAppliedTwiceError",
     "OutsideRangeError",
+    "TrussInputError",
+    "UnstableTrussError",
 ]
 
 
@@ -261,3 +263,37 @@ class OutsideRangeError(DesignInputError):
         super().__init__(message, field=field, value=value)
         self.low = low
         self.high = high
+
+
+class TrussInputError(_InputError):
+    """A truss (joints, members, supports, deck, ``EA``) or a request on it was described with a value
+    that cannot be used.
+
+    Attributes
+    ----------
+    field:
+        The argument at fault (``"joints"``, ``"members"``, ``"supports"``, ``"deck"``, ``"EA"`` ...).
+    value:
+        The offending value as given.
+    """
+
+
+class UnstableTrussError(IlkitError):
+    """The truss is a mechanism: some joints can move while every member keeps its length.
+
+    Attributes
+    ----------
+    joints:
+        The joints that move in the mechanism (the first one found where there are several).
+    members:
+        The members that turn in it (their two ends move differently).
+    motions:
+        How many independent ways the truss can move.
+    """
+
+    def __init__(self, message: str, *, joints: tuple[str, ...] = (), members: tuple[str, ...] = (),
+                 motions: int = 1) -> None:
+        super().__init__(message)
+        self.joints = joints
+        self.members = members
+        self.motions = motions

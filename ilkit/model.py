@@ -29,7 +29,7 @@ from ilkit._check import choice, flag, listed
 from ilkit._display import RichDisplay
 from ilkit._exact import fmt_precise, is_quantity
 from ilkit.errors import BeamInputError, SideRequiredError, UnitsError
-from ilkit.positions import RELEASE, STIFFNESS, SUPPORT, Point, merge_points, nearest, snap, tolerance
+from ilkit.positions import PANEL, RELEASE, STIFFNESS, SUPPORT, Point, merge_points, nearest, snap, tolerance
 from ilkit.quantity import KINDS, Quantity, QuantityKind, Side
 from ilkit.supports import Spring, Support, SupportKind, read_supports
 from ilkit.units import FLEXURAL_STIFFNESS, LENGTH, QuantityLike, UnitSystem, conversion, magnitude_in, unit_system
@@ -75,6 +75,15 @@ class Beam(RichDisplay):
     units:
         Name of a consistent unit system (``"kN-m"``, ``"kip-ft"``, see
         :data:`ilkit.units.SYSTEMS`) or ``None``.
+    panel_points:
+        Positions of the floor beams when the load reaches the girder through
+        a floor system (stringers spanning simply between floor beams), at
+        least two, from 0 to ``L``; ``None`` (the default) when the load
+        stands on the girder itself.  Every line of the beam is then straight
+        between panel points and equal there to the girder's own ordinate, and
+        0 beyond the first and the last panel point (no deck); see
+        :mod:`ilkit.floor`.  The shear at an interior panel point jumps (by
+        the floor beam's load): name the face with ``side``.
 
     Positions (supports, hinges, shear releases, ends of ``EI`` ranges, and
     the sections given to the quantity methods) that lie within
@@ -103,6 +112,7 @@ class Beam(RichDisplay):
         shear_releases: Iterable[Number] = (),
         EI: Number | None = None,
         units: str | UnitSystem | None = None,
+        panel_points: Iterable[Number] | None = None,
     ) -> None:
         system = unit_system(units)
         L = magnitude_in(length, dims=LENGTH, system=system, field="length")
@@ -116,12 +126,16 @@ class Beam(RichDisplay):
         given_hinges = _read_positions(hinges, L, "hinges", system)
         given_shear = _read_positions(shear_releases, L, "shear_releases", system)
         given_ei = _read_ei(EI, L, system)
-        moved = merge_points(L, _given_points(given_supports, given_hinges, given_shear, given_ei))
+        given_panels = None if panel_points is None else _read_positions(panel_points, L, "panel_points", system)
+        points = _given_points(given_supports, given_hinges, given_shear, given_ei)
+        points += [Point(p, PANEL, "the panel point", "panel_points") for p in given_panels or ()]
+        moved = merge_points(L, points)
         support_list = [Support(moved.get(s.at, s.at), s.kind, s.spring) for s in given_supports]
         hinge_list = _check_releases(given_hinges, moved, L, "hinges", support_list)
         shear_list = _check_releases(given_shear, moved, L, "shear_releases", support_list)
         _check_release_overlap(hinge_list, shear_list, support_list)
         ei = _check_ei(given_ei, moved, L, EI)
+        panels = None if given_panels is None else _check_panels(given_panels, moved, shear_list)
 
         object.__setattr__(self, "_length", L)
         object.__setattr__(self, "_supports", tuple(support_list))
@@ -129,6 +143,7 @@ class Beam(RichDisplay):
         object.__setattr__(self, "_shear_releases", tuple(at for _, at in shear_list))
         object.__setattr__(self, "_EI", ei)
         object.__setattr__(self, "_units", system)
+        object.__setattr__(self, "_panel_points", panels)
         object.__setattr__(self, "_lines", {})
         object.__setattr__(self, "_models", {})  # stiffness models (float, exact), see ilkit.stiffness
         self.stability.raise_if_unstable()
@@ -154,6 +169,7 @@ class Beam(RichDisplay):
             "shear_releases": self._shear_releases,
             "EI": self._EI,
             "units": self._units,
+            "panel_points": self._panel_points,
         }
         unknown = set(changes) - set(args)
         if unknown:
@@ -207,6 +223,7 @@ class Beam(RichDisplay):
             shear_releases=[h * length for h in self.shear_releases],
             EI=[(a * length, b * length, ei * force * length**2) for a, b, ei in self.EI_ranges] or None,
             units=target,
+            panel_points=None if self.panel_points is None else [p * length for p in self.panel_points],
         )
 
     # ------------------------------------------------------------------ properties
@@ -245,6 +262,12 @@ class Beam(RichDisplay):
         if isinstance(ei, Fraction):
             return ((Fraction(0), self.length, ei),)
         return ei
+
+    @property
+    def panel_points(self) -> tuple[Fraction, ...] | None:
+        """Positions of the floor beams, left to right, when the load reaches the girder through a floor
+        system (``None`` when it stands on the girder itself); see :mod:`ilkit.floor`."""
+        return self._panel_points  # type: ignore[attr-defined, no-any-return]
 
     @property
     def units(self) -> UnitSystem | None:
@@ -301,6 +324,8 @@ class Beam(RichDisplay):
             parts.append(f"EI=[{ranges}]")
         if self.units is not None:
             parts.append(f"units={self.units.name!r}")
+        if self.panel_points is not None:
+            parts.append(f"panel_points=[{', '.join(fmt_precise(p) for p in self.panel_points)}]")
         return f"Beam({', '.join(parts)})"
 
     def __eq__(self, other: object) -> bool:
@@ -312,7 +337,7 @@ class Beam(RichDisplay):
         return hash(self._key())
 
     def _key(self) -> tuple[Any, ...]:
-        return (self.length, self.supports, self.hinges, self.shear_releases, self.EI, self.units)
+        return (self.length, self.supports, self.hinges, self.shear_releases, self.EI, self.units, self.panel_points)
 
     # ------------------------------------------------------------- influence lines
     # Every quantity method takes ``exact``: ``exact=True`` asks for the exact
@@ -357,7 +382,7 @@ class Beam(RichDisplay):
         inner face is taken.
         """
         pos = self._position(at, "shear")
-        side = self._side(pos, side, "shear", jumps=self._has_support(pos))
+        side = self._side(pos, side, "shear", jumps=self._has_support(pos) or self._is_panel_point(pos))
         return self._line("shear", pos, side, exact)
 
     def moment(self, at: Number, side: Side | None = None, *, exact: bool = False) -> InfluenceLine:
@@ -413,7 +438,7 @@ class Beam(RichDisplay):
                 field="at",
                 value=at,
             )
-        side = self._side(pos, side, "hinge_shear", jumps=self._has_support(pos))
+        side = self._side(pos, side, "hinge_shear", jumps=self._has_support(pos) or self._is_panel_point(pos))
         return self._line("hinge_shear", pos, side, exact)
 
     # ------------------------------------------------------- quantities by name
@@ -497,6 +522,10 @@ class Beam(RichDisplay):
             from ilkit.analysis import influence_line
 
             line = influence_line(self, Quantity(kind, pos, side), exact=exact)
+            if self.panel_points is not None:
+                from ilkit.floor import through_floor
+
+                line = through_floor(line, self.panel_points, beam=self)
             cache[key] = line
         return line
 
@@ -505,6 +534,7 @@ class Beam(RichDisplay):
         """Every point of the beam, left to right: ends, supports, releases and changes of ``EI``."""
         points = {Fraction(0), self.length, *(s.at for s in self.supports), *self.hinges, *self.shear_releases}
         points.update(x for a, b, _ in self.EI_ranges for x in (a, b))
+        points.update(self.panel_points or ())
         return tuple(sorted(points))
 
     def _position(self, at: Number, what: str) -> Fraction:
@@ -535,11 +565,16 @@ class Beam(RichDisplay):
     def _has_support(self, pos: Fraction) -> bool:
         return any(s.at == pos for s in self.supports)
 
+    def _is_panel_point(self, pos: Fraction) -> bool:
+        return self.panel_points is not None and pos in self.panel_points
+
     def _point_name(self, pos: Fraction) -> str:
         """What stands at ``pos`` in words (for messages)."""
         if self._has_support(pos):
             return "the support"
-        return "the hinge" if pos in self.hinges else "the shear release"
+        if pos in self.hinges:
+            return "the hinge"
+        return "the shear release" if pos in self.shear_releases else "the floor beam"
 
     def _side(self, pos: Fraction, side: Side | None, what: str, *, jumps: bool) -> Side | None:
         choice(side, ("left", "right"), what=f"{what}: side", field="side", optional=True)
@@ -586,17 +621,18 @@ def _at(given: Fraction, at: Fraction) -> str:
 
 
 def _read_positions(values: Iterable[Number], L: Fraction, field: str, system: UnitSystem | None) -> list[Fraction]:
-    """Release positions as given (exact); off the beam beyond the merge tolerance is refused."""
+    """Release (or panel point) positions as given (exact); off the beam beyond the merge tolerance is refused."""
     positions = listed(values, wanted=f"{field}: give a list of positions, e.g. [12.5]", field=field, ordered=False)
-    name = "hinge" if field == "hinges" else "shear release"
+    name = {"hinges": "hinge", "shear_releases": "shear release"}.get(field, "panel point")
     tol = tolerance(L)
     out: list[Fraction] = []
     for raw in positions:
         pos = magnitude_in(raw, dims=LENGTH, system=system, field=f"{field} position")
         if pos < -tol or pos > L + tol:
             raise BeamInputError(
-                f"{field}: the {name} at x={raw!r} is off the beam; releases must lie strictly "
-                f"between 0 and {fmt_precise(L)}.",
+                f"{field}: the {name} at x={raw!r} is off the beam; "
+                + (f"panel points lie from 0 to {fmt_precise(L)}." if field == "panel_points" else
+                   f"releases must lie strictly between 0 and {fmt_precise(L)}."),
                 field=field,
                 value=raw,
             )
@@ -616,6 +652,35 @@ def _given_points(
     if isinstance(ei, list):
         points += [Point(x, STIFFNESS, "the end of an EI range", "EI") for a, b, _, _ in ei for x in (a, b)]
     return points
+
+
+def _check_panels(given: list[Fraction], moved: dict[Fraction, Fraction], shear: list[Given]) -> tuple[Fraction, ...]:
+    """Merged panel points, left to right: at least two, none at a shear release, no two at one point."""
+    out: list[Fraction] = []
+    for raw in given:
+        pos = moved.get(raw, raw)
+        if pos in out:
+            raise BeamInputError(
+                f"panel_points: two panel points at {_at(raw, pos)}; keep one.", field="panel_points", value=raw
+            )
+        out.append(pos)
+    if len(out) < 2:
+        raise BeamInputError(
+            f"panel_points: give at least two floor beams (the stringers span between them), got {len(out)}; "
+            "e.g. panel_points=[0, 8, 16, 24, 32], or leave panel_points out for a load on the girder itself.",
+            field="panel_points",
+            value=given,
+        )
+    slides = {at for _, at in shear}
+    for pos in out:
+        if pos in slides:
+            raise BeamInputError(
+                f"panel_points: a floor beam at the shear release at x={fmt_precise(pos)} loads one side of it or "
+                "the other; move the panel point off the release.",
+                field="panel_points",
+                value=pos,
+            )
+    return tuple(sorted(out))
 
 
 def _check_releases(

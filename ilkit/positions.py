@@ -41,7 +41,7 @@ __all__ = ["MERGE_TOLERANCE", "Point", "merge_points", "nearest", "snap", "toler
 MERGE_TOLERANCE = Fraction(1, 10**9)
 """Positions of one beam closer than this fraction of its length are one point."""
 
-END, SUPPORT, RELEASE, STIFFNESS = 0, 1, 2, 3
+END, SUPPORT, RELEASE, STIFFNESS, PANEL = 0, 1, 2, 3, 4
 """Ranks of points: the lower rank keeps its position when points merge."""
 
 
@@ -49,7 +49,7 @@ END, SUPPORT, RELEASE, STIFFNESS = 0, 1, 2, 3
 class Point:
     """A position of a beam as read (exact), with what stands there.
 
-    ``rank`` is one of ``END``, ``SUPPORT``, ``RELEASE``, ``STIFFNESS``;
+    ``rank`` is one of ``END``, ``SUPPORT``, ``RELEASE``, ``STIFFNESS``, ``PANEL`` (a floor beam);
     ``what`` names the thing in words (``"the support"``); ``field`` the
     argument of :class:`ilkit.Beam` it came from.
     """

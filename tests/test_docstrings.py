@@ -1,7 +1,7 @@
 """Every public name has a docstring, with its units and sign conventions where they apply.
 
-The public names are the ``__all__`` of ``ilkit``, ``ilkit.loads``, ``ilkit.design`` and ``ilkit.views``; for a
-class, also its public methods and properties.  A value (``SYSTEMS``, ``ALPHA_VALUES``, ``x``)
+The public names are the ``__all__`` of ``ilkit``, ``ilkit.loads``, ``ilkit.design``, ``ilkit.trusses`` and
+``ilkit.views``; for a class, also its public methods and properties.  A value (``SYSTEMS``, ``ALPHA_VALUES``, ``x``)
 is documented by the string after its assignment, as the API pages read it.  A callable that
 returns an engineering number (an influence line, an effect, an envelope, an ordinate, a float)
 must name its unit and its sign convention, or refer to the sign-convention section
@@ -22,7 +22,7 @@ import pytest
 
 import ilkit
 
-PACKAGES = ("ilkit", "ilkit.loads", "ilkit.design", "ilkit.views")
+PACKAGES = ("ilkit", "ilkit.loads", "ilkit.design", "ilkit.trusses", "ilkit.views")
 
 # what a docstring says when it states a unit, and when it states a sign convention
 UNIT = re.compile(

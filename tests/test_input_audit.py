@@ -22,7 +22,7 @@ from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
 import ilkit
-from ilkit import BeamInputError, IlkitError, IllConditionedError, LoadInputError, Quantity, Spring, Support
+from ilkit import BeamInputError, IlkitError, IllConditionedError, LoadInputError, Quantity, Spring, Support, trusses
 from ilkit.design import (
     Applied,
     CrossSection,
@@ -573,6 +573,8 @@ JUNK = st.one_of(
 _LINE = TWO_SPANS.moment(5)
 _DECK = CrossSection(4, 8.0, 3.0, 1.0)
 _ENVELOPE = envelope(SPAN, KNIFE, divisions=2)
+_TRUSS = trusses.pratt(40, 4, 3, units="kN-m")
+_TRUSS_ENVELOPE = trusses.member_envelope(_TRUSS, KNIFE)
 _DEAD = DistributedLoad("w", "DC", 1)
 _PERMANENT = permanent_effects(TWO_SPANS, [_DEAD], divisions=2)
 _EXTREME = place(TWO_SPANS.moment(5), KNIFE)
@@ -675,6 +677,28 @@ ENTRY_POINTS = {
     "deflection_check lanes": lambda v: deflection_check(SPAN, KNIFE, lanes=v, girders=3, divisions=1),
     "deflection_check limit": lambda v: deflection_check(SPAN, KNIFE, share=1, limit=v, divisions=1),
     "aashto_deflection_load": lambda v: aashto_deflection_load(v),
+    # trusses and floor systems
+    "Beam.panel_points": lambda v: ilkit.Beam(10, {0: "pin", 10: "roller"}, panel_points=v),
+    "Beam.panel_points item": lambda v: ilkit.Beam(10, {0: "pin", 10: "roller"}, panel_points=[0, v, 10]),
+    "Truss joints": lambda v: trusses.Truss(v, [("A", "B")], {"A": "pin"}),
+    "Truss joint": lambda v: trusses.Truss({"A": (0, 0), "B": v, "C": (2, 1)},
+                                           [("A", "B"), ("B", "C"), ("A", "C")], {"A": "pin", "C": "roller"}),
+    "Truss members": lambda v: trusses.Truss({"A": (0, 0), "B": (1, 0)}, v, {"A": "pin"}),
+    "Truss supports": lambda v: trusses.Truss({"A": (0, 0), "B": (2, 0), "C": (1, 1)},
+                                              [("A", "B"), ("B", "C"), ("A", "C")], v),
+    "Truss deck": lambda v: trusses.Truss({"A": (0, 0), "B": (2, 0), "C": (1, 1)},
+                                          [("A", "B"), ("B", "C"), ("A", "C")], {"A": "pin", "B": "roller"}, v),
+    "Truss EA": lambda v: trusses.Truss({"A": (0, 0), "B": (2, 0), "C": (1, 1)},
+                                        [("A", "B"), ("B", "C"), ("A", "C")], {"A": "pin", "B": "roller"}, EA=v),
+    "pratt span": lambda v: trusses.pratt(v, 4, 3),
+    "pratt panels": lambda v: trusses.pratt(40, v, 3),
+    "pratt depth": lambda v: trusses.pratt(40, 4, v),
+    "warren verticals": lambda v: trusses.warren(40, 4, 3, verticals=v),
+    "parker end_depth": lambda v: trusses.parker(40, 4, 3, v),
+    "truss.member_force": lambda v: _TRUSS.member_force(v),
+    "truss.reaction": lambda v: _TRUSS.reaction(v),
+    "member_envelope load": lambda v: trusses.member_envelope(_TRUSS, v),
+    "MemberEnvelope.extreme": lambda v: _TRUSS_ENVELOPE.extreme(v),
 }
 
 

@@ -1,8 +1,8 @@
 """API reference pages: one page per public name, one summary page per package.
 
-The public names are the ``__all__`` of ``ilkit``, ``ilkit.loads``, ``ilkit.design`` and ``ilkit.views``.  A name
-listed by several packages (``ilkit.AxleTrain`` is ``ilkit.loads.AxleTrain``) is documented once,
-in the most specific package, and the others link to it.
+The public names are the ``__all__`` of ``ilkit``, ``ilkit.loads``, ``ilkit.design``, ``ilkit.trusses`` and
+``ilkit.views``.  A name listed by several packages (``ilkit.AxleTrain`` is ``ilkit.loads.AxleTrain``) is
+documented once, in the most specific package, and the others link to it.
 """
 
 from __future__ import annotations
@@ -15,8 +15,9 @@ import sys
 from functools import cache
 from typing import Any
 
-PACKAGES = ("ilkit", "ilkit.loads", "ilkit.design", "ilkit.views")
-PAGE = {"ilkit": "ilkit", "ilkit.loads": "loads", "ilkit.design": "design", "ilkit.views": "views"}
+PACKAGES = ("ilkit", "ilkit.loads", "ilkit.design", "ilkit.trusses", "ilkit.views")
+PAGE = {"ilkit": "ilkit", "ilkit.loads": "loads", "ilkit.design": "design", "ilkit.trusses": "trusses",
+        "ilkit.views": "views"}
 
 # groups of a package's summary, by the module that defines a name (first match wins)
 GROUPS: tuple[tuple[str, str], ...] = (
@@ -45,6 +46,12 @@ GROUPS: tuple[tuple[str, str], ...] = (
     ("ilkit.design.factored", "Limit states and factored envelopes"),
     ("ilkit.design.concurrent", "Concurrent forces and deflection"),
     ("ilkit.design.deflection", "Concurrent forces and deflection"),
+    ("ilkit.trusses.model", "The truss"),
+    ("ilkit.trusses.layouts", "Layouts"),
+    ("ilkit.trusses.statics", "The truss"),
+    ("ilkit.trusses.lines", "Influence lines of a truss"),
+    ("ilkit.trusses.envelope", "Member envelopes"),
+    ("ilkit.views.truss", "Drawings"),
     ("ilkit.views.draw", "Drawings"),
     ("ilkit.views.plot", "Drawings"),
     ("ilkit.views.sketch", "Drawings"),
@@ -57,6 +64,7 @@ GROUPS: tuple[tuple[str, str], ...] = (
     ("ilkit.views", "Subpackages"),
     ("ilkit.loads", "Subpackages"),
     ("ilkit.design", "Subpackages"),
+    ("ilkit.trusses", "Subpackages"),
     ("ilkit", "Other names"),
 )
 

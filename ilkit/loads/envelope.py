@@ -1,10 +1,11 @@
 """Envelopes: the largest and smallest moment and shear at sections along a beam under a load model.
 
-Sections are the ends, every support, every release and equal divisions of
-each span and overhang.  At interior supports and releases both sides are
-listed (``side`` ``"left"`` and ``"right"``).  The reaction envelope covers
-every support; the absolute maximum moment is searched along the whole beam
-and refined to 1e-6 of the beam length.  Sign conventions are those of
+Sections are the ends, every support, every release, every floor beam of a
+floor system and equal divisions of each span and overhang.  At interior
+supports, releases and floor beams both sides are listed (``side``
+``"left"`` and ``"right"``).  The reaction envelope covers every support;
+the absolute maximum moment is searched along the whole beam and refined
+to 1e-6 of the beam length.  Sign conventions are those of
 :mod:`ilkit.model`: sagging moment positive, shear positive when the part
 left of the section is pushed up, reactions positive upward.
 """
@@ -187,8 +188,9 @@ def envelope(
     L = beam.length
     supports = [s.at for s in beam.supports]
     releases = [p for p, _ in beam.releases]
+    floor_beams = list(beam.panel_points or ())  # where a floor system brings the load down, the shear jumps
     stations = sorted({Fraction(0), L, *supports})
-    points: set[Fraction] = set(releases)
+    points: set[Fraction] = set(releases) | set(floor_beams)
     for a, b in zip(stations[:-1], stations[1:]):
         points.update(a + (b - a) * Fraction(k, divisions) for k in range(divisions + 1))
     for raw in listed(at, wanted="at: give a list of section positions, e.g. [12.5]", field="at", ordered=False):
@@ -198,7 +200,7 @@ def envelope(
                 f"at: x={fmt_precise(pos)} is off the beam; give sections from 0 to {fmt(L)}.", field="at", value=raw
             )
         points.add(beam.position(pos))  # a section within the merge tolerance of a support is the support
-    faces = set(supports) | set(releases)
+    faces = set(supports) | set(releases) | set(floor_beams)
 
     # every line of the envelope first, then one search of all of them together
     lines: dict[tuple[str, Fraction, Side | None], InfluenceLine] = {}
@@ -244,7 +246,7 @@ def envelope(
                 "R min case": r.minimum.case,
             }
         )
-    best, positions = _absolute_maximum(beam, model, found, stations + releases)
+    best, positions = _absolute_maximum(beam, model, found, stations + releases + floor_beams)
     return Envelope(
         beam, model.name, pd.DataFrame(rows), pd.DataFrame(reaction_rows), best, found, model, positions
     )

@@ -19,6 +19,10 @@ Public names:
 * :func:`formula`: a line's formula for reading (decimals, no repeated pieces);
 * :func:`write_calculation_sheet` -> :class:`CalculationSheet`, with a
   :class:`TitleBlock`;
+* :func:`draw_truss`: a truss (joints, members, supports, deck);
+  :func:`plot_member_forces`: member forces, tension solid, compression
+  hollow (``views.table(envelope)`` is the member table of a
+  :class:`~ilkit.trusses.MemberEnvelope`);
 * :class:`Explorer` (``beam.explore()``): the interactive explorer;
   :func:`plot_placement`: where the loads of a governing placement stand;
   :func:`plot_envelope`: envelopes of moving loads.
@@ -51,6 +55,7 @@ from ilkit.views.plot import plot_line
 from ilkit.views.report import CalculationSheet, TitleBlock, write_calculation_sheet
 from ilkit.views.sketch import sketch
 from ilkit.views.tables import plain_names, summary, table, to_csv, to_excel, to_latex
+from ilkit.views.truss import draw_truss, plot_member_forces
 
 __all__ = [
     "draw_beam",
@@ -75,4 +80,6 @@ __all__ = [
     "plot_deflection_check",
     "plot_factored_envelope",
     "plot_transverse",
+    "draw_truss",
+    "plot_member_forces",
 ]

@@ -9,8 +9,12 @@
   spans of 90, 115 and 90 ft (kip, ft) under the AASHTO LRFD HL-93 live load
   of one lane.  :func:`write_highway_sheet` writes its sheet with the load
   model, the governing placements and the envelope.
+* The through truss of ``notebooks/truss_bridge.ipynb``: a 10-panel Pratt
+  truss of 240 ft carrying a two-lane road through stringers and floor
+  beams (kip, ft).  :func:`write_truss_sheet` writes its sheet with the
+  member forces under HL-93.
 
-The demo runner (``python -m ilkit.demo``) calls both; their title blocks
+The demo runner (``python -m ilkit.demo``) calls all three; their title blocks
 are filled in (the checker's box is left for a person).
 """
 
@@ -20,6 +24,7 @@ from pathlib import Path
 
 from ilkit.influence import InfluenceLine
 from ilkit.model import Beam
+from ilkit.trusses.model import Truss
 from ilkit.views.report import CalculationSheet, TitleBlock, write_calculation_sheet
 
 __all__ = [
@@ -29,6 +34,9 @@ __all__ = [
     "highway_girder",
     "highway_lines",
     "write_highway_sheet",
+    "through_truss",
+    "truss_lane_factor",
+    "write_truss_sheet",
 ]
 
 
@@ -105,4 +113,47 @@ def write_highway_sheet(directory: str | Path) -> CalculationSheet:
                            "on its value)",
               "live load": "AASHTO LRFD HL-93, one lane, dynamic allowance 33 % on truck and tandem, no "
                            "multiple presence or distribution factor"},
+    )
+
+
+def through_truss() -> Truss:
+    """The through truss of ``notebooks/truss_bridge.ipynb``: a 10-panel Pratt truss, 240 ft span, 24 ft panels,
+    32 ft deep (diagonals 40 ft), deck on the lower chord (kip, ft)."""
+    from ilkit.trusses import pratt
+
+    return pratt(240, 10, 32, units="kip-ft")
+
+
+def truss_lane_factor() -> float:
+    """Lanes carried by one truss of the notebook's two-lane bridge (lever rule across the floor beam: trusses
+    32 ft apart, two 12 ft lanes from 2 ft inside one truss; lane centres 8 and 20 ft from it), times the
+    multiple presence factor of two loaded lanes (AASHTO LRFD Table 3.6.1.1.2-1, from memory: 1.00)."""
+    from ilkit.loads import multiple_presence
+
+    return ((32 - 8) / 32 + (32 - 20) / 32) * multiple_presence(2)
+
+
+def write_truss_sheet(directory: str | Path) -> CalculationSheet:
+    """Write the through truss's sheet under HL-93 (two lanes, lever rule) into ``directory``
+    (``through_truss.html`` and ``.md``)."""
+    from ilkit.loads import hl93
+
+    truss = through_truss()
+    factor = truss_lane_factor()
+    return write_calculation_sheet(
+        truss,
+        Path(directory) / "through_truss",
+        lines=[truss.member_force(m) for m in ("U4-U5", "L4-L5", "U1-L2", "U1-L1")] + [truss.reaction("L0")],
+        load=hl93(factor=factor),
+        title="Pratt through truss under HL-93: member forces",
+        title_block=TitleBlock(
+            project="ilkit demo study (invented data)", structure="Two-lane through-truss bridge, 240 ft span",
+            girder="One truss: Pratt, 10 panels of 24 ft, 32 ft deep", prepared_by="ilkit demo", checked_by="",
+            date="2025-01-15", revision="A",
+        ),
+        info={"scenario": "demo data (invented numbers), as in notebooks/truss_bridge.ipynb",
+              "load path": "deck on stringers, stringers simply supported on floor beams at the panel points of "
+                           "the lower chord",
+              "live load": f"AASHTO LRFD HL-93 times {factor:g} lanes per truss (lever rule, two lanes, multiple "
+                           "presence 1.00), dynamic allowance 33 % on truck and tandem"},
     )

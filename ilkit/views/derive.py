@@ -55,12 +55,16 @@ SIGN_CONVENTIONS: dict[str, str] = {
     "hinge_shear": "positive when the forces on the part left of the hinge add up to an upward resultant",
     "deflection": "positive downward",
     "rotation": "positive clockwise",
+    "member_force": "positive in tension, negative in compression",
 }
 """The sign convention of each quantity kind, in words (see :mod:`ilkit.model`)."""
 
 
 def quantity_title(quantity: Quantity, length_unit: str = "") -> str:
-    """Words such as ``"bending moment M at x = 5 m (left side)"`` (``side`` as in the API)."""
+    """Words such as ``"bending moment M at x = 5 m (left side)"`` (``side`` as in the API); a truss
+    quantity names its member or joint (``"member force N in U2-U3"``, ``"vertical reaction R at L0"``)."""
+    if quantity.element is not None:
+        return f"{quantity.words} {quantity.label}"
     unit = f" {length_unit}" if length_unit else ""
     side = f" ({quantity.side} side)" if quantity.side else ""
     return f"{quantity.words} {quantity.symbol} at x = {fmt(quantity.at)}{unit}{side}"
@@ -412,4 +416,4 @@ def _(origin: Mechanism, line: InfluenceLine) -> Derivation:
 
 
 # the writers for lines of the stiffness method and of the force method register themselves with derive_origin
-from ilkit.views import derive_elastic, derive_force  # noqa: E402, F401
+from ilkit.views import derive_elastic, derive_force, derive_panels  # noqa: E402, F401

@@ -64,11 +64,13 @@ def beam_figure(beam: Beam) -> Any:
 def line_figure(line: InfluenceLine) -> Any:
     """A new (pyplot-free) figure with the line's Müller-Breslau sketch, or its plot for a line not made
     from a beam's analysis."""
+    from ilkit.trusses.lines import TrussLine
     from ilkit.views.plot import plot_line
     from ilkit.views.sketch import sketch
 
-    drawer = sketch if getattr(line.origin, "beam", None) is not None else plot_line
-    return _figure(lambda ax: drawer(line, ax), 2.6)
+    truss = isinstance(line.origin, TrussLine)
+    drawer = sketch if truss or getattr(line.origin, "beam", None) is not None else plot_line
+    return _figure(lambda ax: drawer(line, ax), 4.2 if truss else 2.6)
 
 
 def _figure(draw: Callable[[Axes], Any], height: float) -> Any:

@@ -14,7 +14,9 @@ what they drew; they keep no state.  Symbols:
 * fixed: a hatched wall (at an end) or a hatched clamp (inside the beam);
 * hinge: an open circle on the beam;
 * shear release: two parallel bars across a break of the beam;
-* spring: a zig-zag to the ground (vertical) or a coil (rotational).
+* spring: a zig-zag to the ground (vertical) or a coil (rotational);
+* floor system: the stringers as a thin line above the beam, resting on
+  short posts (the floor beams) at the panel points.
 """
 
 from __future__ import annotations
@@ -40,6 +42,7 @@ __all__ = [
     "draw_spring",
     "draw_dimensions",
     "draw_structure",
+    "draw_floor",
     "point_transform",
 ]
 
@@ -224,8 +227,25 @@ def draw_structure(ax: Axes, beam: Beam, *, muted: Sequence[Fraction] = ()) -> l
     return out
 
 
+def draw_floor(ax: Axes, panel_points: Sequence[float], y: float = 0.0, *, height: float = 9.0) -> list[Artist]:
+    """The floor system above the girder line at ``y``: stringers ``height`` points above it on posts (the floor
+    beams) at ``panel_points``.  Gids ``"stringers"`` and ``"floor-beam:<x>"``."""
+    from matplotlib import transforms
+
+    lifted = transforms.offset_copy(ax.transData, fig=ax.figure, y=height, units="points")
+    xs = [float(p) for p in panel_points]
+    (stringers,) = ax.plot([xs[0], xs[-1]], [y, y], transform=lifted, color=style.INK, linewidth=1.0,
+                           gid="stringers", zorder=3, solid_capstyle="butt")
+    out: list[Artist] = [stringers]
+    for x in xs:
+        out.append(_line(ax, [0, 0], [2.5, height], point_transform(ax, x, y), f"floor-beam:{fmt(x)}",
+                         linewidth=1.6))
+    return out
+
+
 def draw_beam(beam: Beam, ax: Axes | None = None, *, dimensions: bool = True, title: str | None = None) -> Axes:
-    """Draw the beam: its axis, supports, hinges, shear releases and a dimension chain.
+    """Draw the beam: its axis, supports, hinges, shear releases, the floor system (where the beam has panel
+    points) and a dimension chain.
 
     Returns the axes.  The horizontal scale is the beam's length unit; the
     vertical direction carries only the symbols.
@@ -243,8 +263,11 @@ def draw_beam(beam: Beam, ax: Axes | None = None, *, dimensions: bool = True, ti
             draw_hinge(ax, float(h))
         for h in beam.shear_releases:
             draw_shear_release(ax, float(h))
+        if beam.panel_points is not None:
+            draw_floor(ax, beam.panel_points)
         if dimensions:
-            points = sorted({Fraction(0), beam.length, *(s.at for s in beam.supports), *(p for p, _ in beam.releases)})
+            points = sorted({Fraction(0), beam.length, *(s.at for s in beam.supports), *(p for p, _ in beam.releases),
+                             *(beam.panel_points or ())})
             draw_dimensions(ax, points, unit=beam.units.length if beam.units else "")
         ax.set_xlim(-0.04 * L, 1.04 * L)
         ax.set_ylim(-1.4, 0.6)

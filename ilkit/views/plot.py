@@ -81,7 +81,7 @@ def key_ordinates(line: InfluenceLine, *, tol: float = 1e-12) -> list[tuple[floa
     beam = getattr(line.origin, "beam", None)
     structural = None if beam is None else {
         float(p) for p in (0, beam.length, line.quantity.at, *(s.at for s in beam.supports),
-                           *(r for r, _ in beam.releases))
+                           *(r for r, _ in beam.releases), *(beam.panel_points or ()))
     }
     for j, (x, left, right) in enumerate(rows):
         if structural is not None and x not in structural:

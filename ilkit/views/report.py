@@ -37,6 +37,8 @@ from ilkit.loads.results import Extremes
 from ilkit.model import Beam
 from ilkit.quantity import KINDS
 from ilkit.stiffness import UnitShape
+from ilkit.trusses.envelope import MemberEnvelope
+from ilkit.trusses.model import Truss
 from ilkit.views import _doc, style
 from ilkit.views._doc import Block, Callout, Figure, Heading, Para, Table
 from ilkit.views.caution import CAUTION
@@ -57,6 +59,14 @@ _METHODS = {
     "UnitShape": "Indeterminate beams, springs, deflections and rotations: the stiffness method with prismatic "
     "beam elements; the line is the deflected shape under the unit action conjugate to the quantity "
     "(Müller-Breslau, Maxwell), cubic and exact between the nodes for the nodal displacements found.",
+    "FloorLine": "Girders loaded through a floor system: the stringers span simply between the floor beams, so a "
+    "load reaches the girder at the two floor beams beside it in the ratio of the stringer's reactions; every line "
+    "is the girder's own line at the floor beams and straight between them.",
+    "TrussLine": "Trusses: a unit load on each floor beam (panel point) in turn; statically determinate trusses by "
+    "the equilibrium of every joint, solved in exact rational arithmetic (member force = force density times "
+    "length), indeterminate ones by the stiffness method with the members' EA. Between panel points the lines are "
+    "straight (stringers simply supported on the floor beams). The Müller-Breslau sketch shows the truss moved by "
+    "a unit shortening of the member: the deck's upward movement is the influence line (Betti).",
     "ForceMethod": "Derivations of the lines of statically indeterminate beams: the force (flexibility) method on a "
     "determinate primary structure (redundants, flexibility coefficients from the primary structure's "
     "deflection lines by Maxwell's theorem, compatibility); its ordinates are set beside the stiffness "
@@ -149,12 +159,23 @@ TITLE_FIELDS = ("project", "structure", "girder", "prepared by", "checked by", "
 """The fields of a :class:`TitleBlock`, as they are printed."""
 
 
-def default_lines(beam: Beam) -> list[InfluenceLine]:
+def default_lines(beam: Beam | Truss) -> list[InfluenceLine]:
     """The lines a sheet shows when none are given.
 
-    The vertical reaction of every support, the moment reaction of every
-    fixed support, and the bending moment at the middle of every span.
+    A beam: the vertical reaction of every support, the moment reaction of
+    every fixed support, and the bending moment at the middle of every span.
+    A truss: the reaction of every support and, for each role of member
+    (top chord, diagonal ...), the member with the largest ordinate.
     """
+    if isinstance(beam, Truss):
+        found = [beam.reaction(j) for j in beam.supports]
+        best: dict[str, InfluenceLine] = {}
+        for name, line in beam.member_forces().items():
+            role = beam.roles[name]
+            size = max(abs(line.maximum.value), abs(line.minimum.value))
+            if role not in best or size > max(abs(best[role].maximum.value), abs(best[role].minimum.value)):
+                best[role] = line
+        return found + list(best.values())
     lines = [beam.reaction(s.at) for s in beam.supports]
     lines += [beam.moment_reaction(s.at) for s in beam.supports if s.restrains_rotation]
     lines += [beam.moment((a + b) / 2) for a, b in beam.spans]
@@ -177,7 +198,7 @@ def _(line: InfluenceLine, number: str) -> list[Block]:
     steps = [replace(b, level=b.level + 2) if isinstance(b, Heading) else b for b in derived.blocks[1:]]
     return [
         Heading(f"{number} {derived.title}", 3),
-        Figure(style.figure_svg(fig), f"{number}: the beam displaced by the unit action (Müller-Breslau sketch)",
+        Figure(style.figure_svg(fig), f"{number}: the structure displaced by the unit action (Müller-Breslau sketch)",
                f"line-{number.replace('.', '-')}"),
         Table(("key values", ""), tuple(line_facts(line))),
         Para(("Ordinates at the breakpoints (both sides where the line jumps):",)),
@@ -188,7 +209,7 @@ def _(line: InfluenceLine, number: str) -> list[Block]:
 
 
 def sheet_blocks(
-    beam: Beam,
+    beam: Beam | Truss,
     lines: Sequence[InfluenceLine] | None = None,
     results: Iterable[object] = (),
     *,
@@ -203,7 +224,7 @@ def sheet_blocks(
     from ilkit._check import listed
     from ilkit.views._args import expect
 
-    expect(beam, Beam, what="write_calculation_sheet: beam", hint="give an ilkit.Beam")
+    expect(beam, (Beam, Truss), what="write_calculation_sheet: beam", hint="give an ilkit.Beam or a truss")
     if lines is None:
         chosen = default_lines(beam)
     else:
@@ -228,15 +249,7 @@ def sheet_blocks(
     blocks: list[Block] = [Heading(title, 1), *block.blocks(title)]
     if info:
         blocks.append(Table(("", ""), tuple((str(k), str(v)) for k, v in info.items())))
-    blocks += [
-        Callout(CAUTION, "caution"),
-        Heading("1. Inputs", 2),
-        Table(("item", "value"), tuple(beam_facts(beam))),
-        Figure(style.figure_svg(beam_figure(beam)), "The beam: supports, releases and spans", "beam"),
-        Para(("Sign conventions: x is the position of the travelling unit load from the left end of the beam; "
-              "the unit load acts downward. "
-              + " ".join(f"{KINDS[kind][1].capitalize()}: {words}." for kind, words in SIGN_CONVENTIONS.items()),)),
-    ]
+    blocks += [Callout(CAUTION, "caution"), Heading("1. Inputs", 2), *_inputs(beam)]
     chapter = 2
     if moving is not None:
         blocks += [Heading(f"{chapter}. Load model", 2), *moving.model_section]
@@ -285,20 +298,53 @@ def sheet_blocks(
     return blocks
 
 
-def _beam_of(result: object) -> Beam | None:
-    """The beam a result was computed on, where it says (lines, placements, extremes, envelopes)."""
+def _inputs(structure: Beam | Truss) -> list[Block]:
+    """The inputs section: the structure's facts, its drawing and the sign conventions."""
+    if isinstance(structure, Beam):
+        return [
+            Table(("item", "value"), tuple(beam_facts(structure))),
+            Figure(style.figure_svg(beam_figure(structure)), "The beam: supports, releases and spans", "beam"),
+            Para(("Sign conventions: x is the position of the travelling unit load from the left end of the beam; "
+                  "the unit load acts downward. "
+                  + " ".join(f"{KINDS[kind][1].capitalize()}: {words}." for kind, words in SIGN_CONVENTIONS.items()
+                             if kind in KINDS),)),
+        ]
+    from ilkit.views.truss import truss_facts, truss_figure
+
+    return [
+        Table(("item", "value"), tuple(truss_facts(structure))),
+        Figure(style.figure_svg(truss_figure(structure)), "The truss: joints, members, supports and the deck",
+               "truss"),
+        Table(("member", "from", "to", "role", "length"), tuple(
+            (name, a, b, structure.roles[name], short(structure.member_length(name), 5))
+            for name, (a, b) in structure.members.items()), "llllr"),
+        Para(("Sign conventions: x is the position of the travelling unit load on the deck, from the left "
+              "support along the loaded chord; the unit load acts downward and reaches the truss at the panel "
+              f"points. Member force: {SIGN_CONVENTIONS['member_force']}. Vertical reaction: "
+              f"{SIGN_CONVENTIONS['reaction']}.",)),
+    ]
+
+
+def _beam_of(result: object) -> Beam | Truss | None:
+    """The beam or truss a result was computed on, where it says (lines, placements, extremes, envelopes)."""
+    from ilkit.trusses.lines import TrussLine
+
     if isinstance(result, Envelope):
         return result.beam
+    if isinstance(result, MemberEnvelope):
+        return result.truss
     if isinstance(result, Extremes):
         result = result.maximum
     line = result if isinstance(result, InfluenceLine) else getattr(result, "line", None)
     if isinstance(line, InfluenceLine):
+        if isinstance(line.origin, TrussLine):
+            return line.origin.truss
         found = getattr(line.origin, "beam", None)
         return found if isinstance(found, Beam) else None
     return None
 
 
-def _same_beam(beam: Beam, items: Sequence[object], field: str) -> None:
+def _same_beam(beam: Beam | Truss, items: Sequence[object], field: str) -> None:
     """Refuse a result of another beam: a sheet about one beam must not show another's numbers."""
     for i, item in enumerate(items):
         other = _beam_of(item)
@@ -349,19 +395,27 @@ class _MovingLoad:
     model: LoadModel
     model_section: list[Block]
     placements: list[Extremes]
-    envelope: Envelope
+    envelope: Envelope | MemberEnvelope
 
 
-def _moving_load(beam: Beam, lines: Sequence[InfluenceLine], load: object, divisions: int) -> _MovingLoad | None:
+def _moving_load(
+    beam: Beam | Truss, lines: Sequence[InfluenceLine], load: object, divisions: int
+) -> _MovingLoad | None:
     if load is None:
         return None
     from ilkit.loads import envelope, extremes
     from ilkit.loads.combination import as_model
+    from ilkit.trusses.envelope import _supports_beam, member_envelope
     from ilkit.views.moving_records import model_blocks
 
     model = as_model(load)  # type: ignore[arg-type]
-    placements = [extremes(line, model, beam=beam) for line in lines if line.quantity.kind not in _NOT_FORCES]
-    found = envelope(beam, model, divisions=divisions)
+    if isinstance(beam, Beam):
+        placements = [extremes(line, model, beam=beam) for line in lines if line.quantity.kind not in _NOT_FORCES]
+        found: Envelope | MemberEnvelope = envelope(beam, model, divisions=divisions)
+    else:
+        supports = _supports_beam(beam)
+        placements = [extremes(line, model, beam=supports) for line in lines]
+        found = member_envelope(beam, model)
     return _MovingLoad(model, model_blocks(model, beam.units), placements, found)
 
 
@@ -434,7 +488,7 @@ def _stem(path: str | Path) -> Path:
 
 
 def write_calculation_sheet(
-    beam: Beam,
+    beam: Beam | Truss,
     path: str | Path,
     *,
     lines: Sequence[InfluenceLine] | None = None,
@@ -450,7 +504,11 @@ def write_calculation_sheet(
     Parameters
     ----------
     beam:
-        The beam studied.
+        The beam studied, or a truss (:class:`ilkit.trusses.Truss`): its
+        inputs are then the truss drawing and its members, its lines member
+        forces and reactions, and its envelope the member envelope
+        (:func:`ilkit.trusses.member_envelope`: the largest tension and
+        compression of every member).
     path:
         Where to write: ``"out/girder"``, ``"out/girder.html"`` or
         ``"out/girder.md"`` all write ``out/girder.html``, ``out/girder.md``

@@ -12,6 +12,12 @@ Artist gids (for tests and SVG styling): ``"axis"``, ``"shape"``,
 ``"positive"``, ``"negative"``, ``"support:<kind>:<x>"``, ``"hinge:<x>"``,
 ``"shear-release:<x>"``, ``"release"`` (the release for the quantity),
 ``"imposed"`` (the unit displacement) and ``"ordinate:<x>:<side>"``.
+
+A line of a girder loaded through a floor system (``line.origin`` a
+:class:`~ilkit.floor.FloorLine`) shows the girder's own displaced shape as a
+thin dashed line (``"girder-shape"``) and, as the influence line, the deck:
+the stringers as chords between the floor beams, marked at the panel points
+(``"panel-point:<x>"``).
 """
 
 from __future__ import annotations
@@ -19,6 +25,7 @@ from __future__ import annotations
 from typing import TYPE_CHECKING
 
 from ilkit.errors import UnsupportedResultError
+from ilkit.floor import FloorLine
 from ilkit.kinematics import Mechanism
 from ilkit.stiffness import UnitShape
 from ilkit.views import style
@@ -53,7 +60,7 @@ def _beam_of(line: InfluenceLine) -> Beam:
 
     expect(line, InfluenceLine, what="sketch", hint="give an influence line, e.g. beam.moment(12)")
     origin = line.origin
-    beam = origin.beam if isinstance(origin, (Mechanism, UnitShape)) else None
+    beam = origin.beam if isinstance(origin, (Mechanism, UnitShape, FloorLine)) else None
     if beam is None:
         raise UnsupportedResultError(
             f"{line.quantity.label}: a Müller-Breslau sketch needs a line from the analysis of a beam "
@@ -72,27 +79,49 @@ def sketch(line: InfluenceLine, ax: Axes | None = None, *, title: str | None = N
     :class:`~ilkit.stiffness.UnitShape`), drawn with the line's sign (positive
     up).  Raises :class:`ilkit.UnsupportedResultError` for a line that did not
     come from the analysis of a beam (use :func:`ilkit.views.plot_line`).
+
+    A line of a truss (``line.origin`` a :class:`~ilkit.trusses.TrussLine`)
+    is sketched as the truss moved by a unit shortening of its member (or its
+    support moved up by 1) above the deck's movement, which is the line
+    (:func:`ilkit.views.truss.truss_sketch`); a girder loaded through a floor
+    system shows the girder's shape and the deck's chords.
     """
+    from ilkit.trusses.lines import TrussLine
+
+    if isinstance(getattr(line, "origin", None), TrussLine):
+        from ilkit.views.truss import truss_sketch
+
+        return truss_sketch(line, ax, title=title)
     beam = _beam_of(line)
     q = line.quantity
     at = float(q.at)
+    floor = line.origin if isinstance(line.origin, FloorLine) else None
+    shape = floor.girder if floor is not None else line  # the girder's own displaced shape
     with style.context():
         ax = style.axes(ax, 2.6)
         L = float(beam.length)
         ax.plot([0, L], [0, 0], color=style.MUTED, linewidth=0.8, linestyle=(0, (5, 3)), gid="axis", zorder=2)
         draw_line(ax, line, labels=False)
+        if floor is not None:
+            xs, ys_girder = shape.sample()
+            ax.plot(xs, ys_girder, color=style.INK, linewidth=0.8, linestyle=(0, (3, 2)), gid="girder-shape",
+                    zorder=3)
+            for p, y in zip(floor.panel_points, floor.ordinates):
+                ax.plot([float(p)], [float(y)], marker="o", markersize=3.2, color=style.INK, linestyle="none",
+                        gid=f"panel-point:{float(p):g}", zorder=4)
         support = q.kind in ("reaction", "moment_reaction")
         spring = support and any(s.at == q.at and s.spring is not None for s in beam.supports)
         released = [q.at] if support and not spring else []
         draw_structure(ax, beam, muted=released)
         for h in beam.hinges:
             if not (h == q.at and q.kind == "hinge_shear"):
-                draw_hinge(ax, float(h), float(line(float(h))))
+                draw_hinge(ax, float(h), float(shape(float(h))))
         for h in beam.shear_releases:
-            draw_shear_release(ax, float(h), (float(line.left(float(h))) + float(line.right(float(h)))) / 2)
-        if not (isinstance(line.origin, Mechanism) and not line.origin.release):  # nothing to release
-            _draw_release(ax, line, at, spring)
+            draw_shear_release(ax, float(h), (float(shape.left(float(h))) + float(shape.right(float(h)))) / 2)
+        if not (isinstance(shape.origin, Mechanism) and not shape.origin.release):  # nothing to release
+            _draw_release(ax, shape, at, spring)
         ys = [v for _, a, b in line.knot_values() for v in (a, b)] + [0.0, line.maximum.value, line.minimum.value]
+        ys += [shape.maximum.value, shape.minimum.value]
         lo, hi = min(ys), max(ys)
         span = (hi - lo) or 1.0
         ax.set_ylim(lo - 0.32 * span, hi + 0.25 * span)
@@ -104,8 +133,9 @@ def sketch(line: InfluenceLine, ax: Axes | None = None, *, title: str | None = N
         label_ordinates(ax, line)
         ax.set_xlabel(f"x [{beam.units.length}]" if beam.units else "x")
         unit = f" [{line.unit}]" if line.unit else ""
+        through = ", load through the floor system" if floor is not None else ""
         ax.set_title(title if title is not None else
-                     f"Müller-Breslau: {quantity_title(q, beam.units.length if beam.units else '')}{unit}")
+                     f"Müller-Breslau: {quantity_title(q, beam.units.length if beam.units else '')}{unit}{through}")
         return ax
 
 
