@@ -256,3 +256,43 @@ def test_bad_input():
         concurrent_forces(e, "beam")
     with pytest.raises(ilkit.LoadInputError, match="another beam than the one given"):
         concurrent_forces(envelope(beam, OURS, divisions=1), other)
+
+
+def test_girder_loaded_through_a_floor_system():
+    """On a girder loaded through floor beams every 12 m: each extreme's own quantity is reproduced, the
+    reactions balance the loads on the deck, and at a floor beam the shear's faces differ by what the floor
+    beam brings down (statics of the part between the faces)."""
+    beam = ilkit.Beam(72, {0: "pin", 36: "roller", 72: "roller"}, EI=2e6, units="kN-m",
+                      panel_points=list(range(0, 73, 12)))
+    found = concurrent_forces(envelope(beam, OURS, divisions=3))
+    f = found.frame
+    own = f[(f["quantity"] == f["concurrent quantity"]) & (f["x"] == f["concurrent x"])
+            & ((f["side"] == f["concurrent side"]) | (f["concurrent side"] == ""))]
+    assert np.allclose(own["value"], own["concurrent value"], rtol=1e-12, atol=1e-9)
+    for e in found.extremes:
+        total = sum(f for _, _, f in _forces(e)[0]) + sum(w * float(b - a) for a, b, w in _forces(e)[1])
+        reactions = concurrent_forces(e, beam).frame
+        assert reactions.loc[reactions["concurrent quantity"] == "reaction", "concurrent value"].sum() == \
+            pytest.approx(total, rel=1e-9, abs=1e-9)
+
+    def brought_down(e, p):
+        """What the floor beam at p carries: each load times its stringer's reaction there (simple spans of 12)."""
+        def share(x):
+            return max(0.0, 1 - abs(float(x) - p) / 12)
+        points, patches = _forces(e)
+        out = sum(f * share(x) for x, _, f in points)
+        for a, b, w in patches:  # the share is linear between p - 12, p and p + 12: Simpson is exact
+            cuts = sorted({float(a), float(b), *(c for c in (p - 12, p, p + 12) if float(a) < c < float(b))})
+            out += sum(w * (hi - lo) / 6 * (share(lo) + 4 * share((lo + hi) / 2) + share(hi))
+                       for lo, hi in zip(cuts[:-1], cuts[1:]))
+        return out
+
+    checked = 0
+    for p in (12, 24, 48, 60):
+        for which in ("max", "min"):
+            e = envelope(beam, OURS, divisions=3, at=[p]).extreme("moment", p, which)
+            faces = concurrent_forces(e, beam).frame
+            v = faces[faces["concurrent quantity"] == "shear"].set_index("concurrent side")["concurrent value"]
+            assert v["left"] - v["right"] == pytest.approx(brought_down(e, p), rel=1e-9, abs=1e-9)
+            checked += 1
+    assert checked == 8

@@ -335,6 +335,28 @@ def test_point_load_at_a_shear_release_is_refused():
         permanent_effects(beam, [PointLoad("p", "DC", 5, 8)])
 
 
+def test_girder_loaded_through_a_floor_system():
+    """Statics of a simple span of 60 with floor beams every 10 (derived here): a load on a floor beam reaches
+    the girder there, a load between floor beams reaches it at the two beside it (simple stringers)."""
+    beam = ilkit.Beam(60, {0: "pin", 60: "roller"}, EI=1e5, units="kN-m", panel_points=[0, 10, 20, 30, 40, 50, 60])
+    loads = [PointLoad("a", "DC", 100, 0), PointLoad("b", "DC", 100, 20), PointLoad("c", "DC", 100, 60),
+             PointLoad("d", "DC", 100, 25)]
+    e = permanent_effects(beam, loads)
+    r0 = 100 + 100 * 40 / 60 + 50 * 40 / 60 + 50 * 30 / 60  # d splits 50/50 onto the floor beams at 20 and 30
+    assert e.value("reaction", 0) == pytest.approx(r0)
+    assert e.value("shear", 0) == pytest.approx(r0 - 100)  # the load on the end floor beam is left of the cut
+    assert e.value("shear", 20, "left") == pytest.approx(r0 - 100)
+    assert e.value("shear", 20, "right") == pytest.approx(r0 - 100 - 100 - 50)
+    assert e.value("shear", 60) == pytest.approx(-(400 - r0) + 100)
+    assert e.value("moment", 30) == pytest.approx(r0 * 30 - 100 * 30 - 100 * 10 - 50 * 10 - 50 * 0)
+    # a settlement moves the girder itself: its own deflected shape, not the chord between floor beams
+    continuous = beam.replace(supports={0: "pin", 30: "roller", 60: "roller"})
+    floored = permanent_effects(continuous, [Settlement("s", 30, 0.01)])
+    plain = permanent_effects(continuous.replace(panel_points=None), [Settlement("s", 30, 0.01)])
+    for quantity, x in [("moment", 30), ("deflection", 24), ("reaction", 30), ("shear", 12)]:
+        assert floored.value(quantity, x) == pytest.approx(plain.value(quantity, x))
+
+
 # ================================================================================== bad input
 BEAM = ilkit.Beam(20, {0: "pin", 10: "pin", 20: "roller"}, EI=2e4, units="kN-m")
 

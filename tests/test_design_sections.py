@@ -34,6 +34,9 @@ BEAMS = {
     "three continuous spans with an overhang": ilkit.Beam(
         72.5, {0: "pin", 20.5: "roller", 45: "roller", 66: "roller"}, EI=3.1e6, units="kN-m"
     ),
+    "girder loaded through a floor system": ilkit.Beam(
+        64, {0: "pin", 32: "roller", 64: "roller"}, EI=9e5, units="kN-m", panel_points=list(range(0, 65, 8))
+    ),
     "fixed ends, hinge, shear release, spring": ilkit.Beam(
         40, {0: "fixed", 15: ilkit.Spring(vertical=8000), 40: "fixed"}, hinges=[9], shear_releases=[27],
         EI=2e5, units="kN-m",

@@ -50,6 +50,7 @@ from ilkit._exact import fmt, fmt_precise, is_quantity, to_exact
 from ilkit.design.factors import Applied
 from ilkit.design.sections import Section, envelope_sections, load_ordinate
 from ilkit.errors import LoadInputError, SideRequiredError
+from ilkit.floor import FloorLine
 from ilkit.loads.primitives import OVERFLOW, read_name
 from ilkit.model import Beam
 from ilkit.positions import tolerance
@@ -658,6 +659,8 @@ def _effect(line: InfluenceLine, part: _Part, x: Fraction, side: Side | None) ->
 def _settlement(beam: Beam, kind: str, x: Fraction, side: Side | None, at: Fraction, delta: Fraction) -> float:
     """Effect on ``kind`` at ``(x, side)`` of the bearing at ``at`` settling by ``delta`` (see the module notes)."""
     shape = beam.reaction(at)  # the deflected shape of a unit settlement of that bearing
+    if isinstance(shape.origin, FloorLine):  # the girder's own shape, not the line of loads on its floor system
+        shape = shape.origin.girder
     if kind == "deflection":
         return float(delta) * load_ordinate(shape, float(x), side)
     if beam.is_determinate:

@@ -20,6 +20,7 @@ from typing import TYPE_CHECKING
 from ilkit._check import choice, listed, whole
 from ilkit._exact import fmt, fmt_precise, to_exact
 from ilkit.errors import LoadInputError
+from ilkit.floor import FloorLine
 from ilkit.model import Beam
 from ilkit.quantity import Side
 from ilkit.units import LENGTH, magnitude_in
@@ -72,13 +73,14 @@ def envelope_sections(
 ) -> tuple[Section, ...]:
     """The sections of ``beam`` where envelopes are tabulated, left to right.
 
-    The ends, every support, every hinge and shear release, ``divisions``
-    equal parts of each span and overhang (10: tenth points), and the further
-    positions ``at`` (in the beam's length unit, or pint quantities); a
-    position within the merge tolerance of a support or release is that
-    point (:meth:`ilkit.Beam.position`).  At interior supports and releases
-    both faces are listed (``side="left"`` and ``"right"``), elsewhere one
-    section with ``side=None``.  These are exactly the sections of
+    The ends, every support, every hinge and shear release, every floor beam
+    of a floor system (``Beam(panel_points=...)``), ``divisions`` equal parts
+    of each span and overhang (10: tenth points), and the further positions
+    ``at`` (in the beam's length unit, or pint quantities); a position within
+    the merge tolerance of a support or release is that point
+    (:meth:`ilkit.Beam.position`).  At interior supports, releases and floor
+    beams both faces are listed (``side="left"`` and ``"right"``), elsewhere
+    one section with ``side=None``.  These are exactly the sections of
     :func:`ilkit.loads.envelope` with the same arguments.
     """
     if not isinstance(beam, Beam):
@@ -96,8 +98,9 @@ def envelope_sections(
     L = beam.length
     supports = [s.at for s in beam.supports]
     releases = [p for p, _ in beam.releases]
+    floor_beams = list(beam.panel_points or ())  # where a floor system brings the load down, the shear jumps
     stations = sorted({Fraction(0), L, *supports})
-    points: set[Fraction] = set(releases)
+    points: set[Fraction] = set(releases) | set(floor_beams)
     for a, b in zip(stations[:-1], stations[1:]):
         points.update(a + (b - a) * Fraction(k, divisions) for k in range(divisions + 1))
     for raw in listed(at, wanted="at: give a list of section positions, e.g. [12.5]", field="at", ordered=False):
@@ -107,7 +110,7 @@ def envelope_sections(
                 f"at: x={fmt_precise(pos)} is off the beam; give sections from 0 to {fmt(L)}.", field="at", value=raw
             )
         points.add(beam.position(pos))
-    faces = set(supports) | set(releases)
+    faces = set(supports) | set(releases) | set(floor_beams)
     out: list[Section] = []
     for p in sorted(points):
         sides: tuple[Side | None, ...] = ("left", "right") if p in faces and 0 < p < L else (None,)
@@ -129,9 +132,13 @@ def load_ordinate(line: InfluenceLine, x: float, side: Side | None, *, own_secti
     beam, the value comes from the other side and the unit jump: a load at
     the left end, left of a cut just inside the beam, takes the right-hand
     value minus 1; a load at the right end, right of a cut just inside it,
-    the left-hand value plus 1.  In the line's unit per unit downward load,
-    with the signs of :mod:`ilkit.model`.
+    the left-hand value plus 1.  A line of a girder loaded through a floor
+    system (:mod:`ilkit.floor`) does not jump at its own section: the floor
+    beam there already loads the other face, so its value is taken.  In the
+    line's unit per unit downward load, with the signs of :mod:`ilkit.model`.
     """
+    if own_section and isinstance(line.origin, FloorLine):
+        return float(line(x))
     if not own_section or side is None:
         if side == "left":
             return float(line.left(x))
