@@ -215,9 +215,10 @@ def _page_exporter(mathjax_url: str) -> Any:
 
 
 def _extra_outputs(out: Path) -> list[tuple[str, str, int]]:
-    """Further demo outputs written by the views layer: calculation sheets of two notebook girders and of the
-    notebook's through truss."""
+    """Further demo outputs written by the views layer: calculation sheets of two notebook girders, of the
+    notebook's through truss and of the design notebook's composite girder."""
     from ilkit.views.demo import write_demo_sheet, write_highway_sheet, write_truss_sheet
+    from ilkit.views.demo_girder import write_composite_girder_sheet
 
     entries = []
     for write, title in (
@@ -225,6 +226,8 @@ def _extra_outputs(out: Path) -> list[tuple[str, str, int]]:
         (write_highway_sheet, "Calculation sheet of the continuous highway girder under HL-93 (placements, "
                               "envelope)"),
         (write_truss_sheet, "Calculation sheet of the Pratt through truss under HL-93 (member forces)"),
+        (write_composite_girder_sheet, "Calculation sheet of the three-span composite steel girder (distribution, "
+                                       "factored envelopes of an interior and an exterior girder)"),
     ):
         sheet = write(out)
         print(f"wrote {sheet.html.name} and {sheet.markdown.name} ...", flush=True)

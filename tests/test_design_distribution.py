@@ -186,3 +186,20 @@ def test_longitudinal_stiffness(reference):
     reference("Kg of a Tx54 girder", expected=1_132_028, computed=longitudinal_stiffness(1.0, 260_403, 788.4, 33.25),
               source=TXDOT, clause="copy 1, Kg = n(I + A eg²)", abs=1.0)
     assert math.isclose(longitudinal_stiffness(2, 1, 1, 1), 4.0)
+
+
+def test_the_ranges_checked_are_listed_with_their_tables():
+    """Every parameter of the formulas is listed with its range (the ranges of aashto_distribution's docstring,
+    AASHTO LRFD Tables 4.6.2.2.2b-1 and 4.6.2.2.2d-1, from memory), values at a bound pass."""
+    section = CrossSection(5, 16.0, 5.5 + 1.25, 1.25)  # S at its upper bound, de = 5.5 ft at its upper bound
+    g = aashto_distribution(section, 1, span=240, slab_thickness=4.5 / 12, Kg=7_000_000 * IN4)
+    frame = g.ranges()
+    assert list(frame.columns) == ["parameter", "value", "from", "to", "unit", "table"]
+    got = {row.parameter: (row.value, row.to) for row in frame.itertuples()}
+    assert got["S"] == pytest.approx((16.0, 16.0)) and got["de"] == pytest.approx((5.5, 5.5))
+    assert got["L"] == pytest.approx((240.0, 240.0)) and got["ts"] == pytest.approx((4.5, 12.0))
+    assert got["Kg"][0] == pytest.approx(7_000_000) and got["Nb"] == (5, "")
+    assert set(frame["table"]) >= {"Table 4.6.2.2.2d-1", "Tables 4.6.2.2.2d-1, 4.6.2.2.3b-1"}
+    interior = aashto_distribution(section, 3, span=240, slab_thickness=4.5 / 12, Kg=7_000_000 * IN4)
+    assert "de" not in set(interior.ranges()["parameter"])  # the curb distance belongs to the exterior girder
+    assert given_distribution(0.7).ranges().empty and lever_rule(section, 1).ranges().empty

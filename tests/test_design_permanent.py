@@ -574,3 +574,12 @@ def test_settlement_is_self_equilibrated_and_reciprocal(data, beam):
     other = permanent_effects(beam, [Settlement("k", k, 1)], quantities=("reaction",))
     scale = max(abs(one.frame["value"]).max(), floor / float(h))
     assert one.value("reaction", k) == pytest.approx(other.value("reaction", s), abs=1e-9 * scale)
+
+
+def test_a_name_says_what_the_loads_are_of():
+    beam = ilkit.Beam(40, {0: "pin", 40: "roller"}, units="kip-ft")
+    e = permanent_effects(beam, [DistributedLoad("slab", "DC", 1.0)], quantities=["moment"], name="girder 2")
+    assert e.name == "girder 2"
+    assert permanent_effects(beam, [DistributedLoad("slab", "DC", 1.0)], quantities=["moment"]).name == ""
+    with pytest.raises(ilkit.DesignInputError, match="name"):
+        permanent_effects(beam, [DistributedLoad("slab", "DC", 1.0)], name=3)

@@ -45,6 +45,7 @@ from ilkit.units import UnitSystem
 if TYPE_CHECKING:  # pragma: no cover
     import pandas as pd
 
+    from ilkit.design.live import GirderLiveLoad
     from ilkit.influence import InfluenceLine
 
 __all__ = ["ConcurrentForces", "concurrent_forces", "concurrent_value"]
@@ -71,7 +72,9 @@ class ConcurrentForces(RichDisplay):
     factors inside the values (an :class:`~ilkit.design.Applied`; the dynamic
     effect of the load model, already in its values).  ``notes`` say where an
     axle stood exactly at a point where another line jumps for a reason
-    other than its own section (a shear release).
+    other than its own section (a shear release).  ``girder``: the name of
+    the girder's live load when the values are one girder's
+    (:meth:`for_girder`), empty for one lane's.
     """
 
     frame: pd.DataFrame = field(repr=False)
@@ -80,10 +83,12 @@ class ConcurrentForces(RichDisplay):
     extremes: tuple[Extreme, ...] = field(repr=False)
     notes: tuple[str, ...] = ()
     factors: Applied = field(default_factory=Applied)
+    girder: str = ""
 
     def __repr__(self) -> str:
         units = f", units={self.units.name!r}" if self.units else ""
-        return f"ConcurrentForces({len(self.extremes)} extremes, {len(self.frame)} rows{units})"
+        girder = f", girder {self.girder!r}" if self.girder else ""
+        return f"ConcurrentForces({len(self.extremes)} extremes, {len(self.frame)} rows{units}{girder})"
 
     def to_frame(self) -> pd.DataFrame:
         """The tidy table (a copy); columns, units and signs in the class notes."""
@@ -108,6 +113,36 @@ class ConcurrentForces(RichDisplay):
             }
         )
         return out.reset_index(drop=True)
+
+    def for_girder(self, live: GirderLiveLoad) -> ConcurrentForces:
+        """The same forces on one girder: every value times the girder's share of its own action (moments
+        × gM, shears and reactions × gV of ``live``, a :class:`~ilkit.design.GirderLiveLoad` whose model the
+        extremes are of).
+
+        One lane's extremes, and so their concurrent forces, are scaled exactly: a factor on the whole load
+        does not move its placement.  ``factors`` keeps the dynamic effect; the shares are stated in
+        ``notes``.  Units of the beam, signs of :mod:`ilkit.model`.
+        """
+        from ilkit.design.live import GirderLiveLoad
+
+        if not isinstance(live, GirderLiveLoad):
+            raise LoadInputError(f"for_girder: give a GirderLiveLoad, got {type(live).__name__} {live!r}.",
+                                 field="live", value=live)
+        if self.girder:
+            raise LoadInputError(f"for_girder: these forces are already those of {self.girder!r}; scale one "
+                                 "lane's forces, once.", field="live", value=live.name)
+        frame = self.frame.copy()
+        scale = {a: live.scale(a) for a in ("moment", "shear", "reaction")}  # type: ignore[arg-type]
+        frame["value"] = frame["value"] * frame["quantity"].map(scale)
+        frame["concurrent value"] = frame["concurrent value"] * frame["concurrent quantity"].map(scale)
+
+        def share(action: str) -> str:
+            return " × ".join(f.describe() for f in live.factors(action) if not f.parts)  # type: ignore[arg-type]
+
+        note = (f"Values of one girder ({live.name}): one lane's times the share of each action, moments × "
+                f"{share('moment')}, shears and reactions × {share('shear')}")
+        return ConcurrentForces(frame, self.beam, self.units, self.extremes, (*self.notes, note), self.factors,
+                                live.name)
 
     def moment_with_shear(self) -> pd.DataFrame:
         """Each moment extreme with the concurrent shear at its section.

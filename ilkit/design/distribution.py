@@ -78,7 +78,9 @@ class Distribution(RichDisplay):
     found: one row ``(action, case, value, governs, note)`` per candidate
     (one lane, two or more lanes, the lever rule, the rigid check ...).
     ``one_lane`` holds the one-lane factors with m = 1.20 in them, for
-    :meth:`fatigue`.
+    :meth:`fatigue`.  ``checks`` lists the ranges of applicability checked
+    (the AASHTO formulas): one row ``(name, value, low, high, unit, table)``
+    per parameter, ``low`` or ``high`` ``None`` where the range is open.
     """
 
     girder: str
@@ -88,6 +90,7 @@ class Distribution(RichDisplay):
     deflection: Factor | None = None
     steps: tuple[tuple[str, str, float, bool, str], ...] = ()
     one_lane: tuple[Factor, Factor] | None = field(default=None, repr=False)
+    checks: tuple[tuple[str, float, float | None, float | None, str, str], ...] = field(default=(), repr=False)
 
     def factor(self, action: Action) -> Factor:
         """The factor for ``action``: ``"moment"``, ``"shear"`` (also for ``"reaction"``) or ``"deflection"``
@@ -131,6 +134,15 @@ class Distribution(RichDisplay):
         import pandas as pd
 
         return pd.DataFrame(self.steps, columns=["action", "case", "value", "governs", "note"])
+
+    def ranges(self) -> pd.DataFrame:
+        """The ranges of applicability checked (AASHTO formulas): one row per parameter with its ``value``, the
+        range ``from`` .. ``to`` (empty where open), its ``unit`` and the ``table`` that sets it; empty for
+        a distribution found without the formulas."""
+        import pandas as pd
+
+        rows = [(n, v, "" if lo is None else lo, "" if hi is None else hi, u, t) for n, v, lo, hi, u, t in self.checks]
+        return pd.DataFrame(rows, columns=["parameter", "value", "from", "to", "unit", "table"])
 
 
 def _label(girder: object) -> str:
@@ -247,7 +259,9 @@ _RANGE_FIX = ("use the lever rule (ilkit.design.lever_rule) or a refined analysi
               "grillage: ilkit.design.transverse_line(section, girder, ordinates=[...]))")
 
 
-def _check_range(name: str, value: float, low: float | None, high: float | None, unit: str, table: str) -> None:
+def _check_range(name: str, value: float, low: float | None, high: float | None, unit: str, table: str
+                 ) -> tuple[str, float, float | None, float | None, str, str]:
+    """The row of a parameter within its range; outside it, :class:`~ilkit.OutsideRangeError`."""
     if (low is not None and value < low) or (high is not None and value > high):
         span = (f"from {fmt(low)} to {fmt(high)}" if low is not None and high is not None
                 else f"at least {fmt(low)}" if low is not None else f"at most {fmt(high)}")
@@ -256,6 +270,7 @@ def _check_range(name: str, value: float, low: float | None, high: float | None,
             f"applicability of the approximate formulas ({name} {span}{' ' + unit if unit else ''}, {table}); "
             f"{_RANGE_FIX}.",
             field=name, value=value, low=low, high=high)
+    return name, value, low, high, unit, table
 
 
 def aashto_distribution(
@@ -323,14 +338,17 @@ def aashto_distribution(
     S = sum(near) / len(near) * to_ft
     nb = section.girders
     table_m = "Table 4.6.2.2.2b-1" if not exterior else "Table 4.6.2.2.2d-1"
-    _check_range("S", S, 3.5, 16.0, "ft", table_m)
-    _check_range("ts", ts, 4.5, 12.0, "in", table_m)
-    _check_range("L", L, 20.0, 240.0, "ft", table_m)
-    _check_range("Kg", kg, 10_000.0, 7_000_000.0, "in⁴", table_m)
-    _check_range("Nb", nb, 3, None, "", table_m)
-    _check_range("skew", theta, 0.0, 60.0, "degrees", "4.6.2.2.2e and 4.6.2.2.3c")
+    checks = [
+        _check_range("S", S, 3.5, 16.0, "ft", table_m),
+        _check_range("ts", ts, 4.5, 12.0, "in", table_m),
+        _check_range("L", L, 20.0, 240.0, "ft", table_m),
+        _check_range("Kg", kg, 10_000.0, 7_000_000.0, "in⁴", table_m),
+        _check_range("Nb", nb, 3, None, "", table_m),
+        _check_range("skew", theta, 0.0, 60.0, "degrees", "4.6.2.2.2e and 4.6.2.2.3c"),
+    ]
     if exterior:
-        _check_range("de", section.curb_distance * to_ft, -1.0, 5.5, "ft", "Tables 4.6.2.2.2d-1, 4.6.2.2.3b-1")
+        checks.append(_check_range("de", section.curb_distance * to_ft, -1.0, 5.5, "ft",
+                                   "Tables 4.6.2.2.2d-1, 4.6.2.2.3b-1"))
     stiff = kg / (12.0 * L * ts**3)
     lanes = design_lanes(section.roadway_width, units=u.name).count
     several = lanes >= 2
@@ -401,4 +419,4 @@ def aashto_distribution(
         f1v = Factor("distribution", ones[1][2], "gV", source=src_v, from_memory=True, includes=_MP)
         one_lane = (f1m, f1v)
     return Distribution(f"girder {k} ({where})", f"AASHTO approximate formulas, cross-section {kind}",
-                        moment, shear, _deflection(section), steps, one_lane)
+                        moment, shear, _deflection(section), steps, one_lane, tuple(checks))

@@ -416,7 +416,8 @@ class PermanentEffects(RichDisplay):
     determinate beam causes no forces, deflections left out without ``EI``).
     ``factors`` is empty: the values are unfactored (an
     :class:`~ilkit.design.Applied` with no factor; load factors are applied
-    by the limit states).
+    by the limit states).  ``name``: what the loads are of (empty when not
+    given).
     """
 
     frame: pd.DataFrame = field(repr=False)
@@ -426,6 +427,7 @@ class PermanentEffects(RichDisplay):
     quantities: tuple[str, ...]
     notes: tuple[str, ...] = ()
     factors: Applied = field(default_factory=Applied)
+    name: str = ""
 
     def __repr__(self) -> str:
         loads = sum(len(s.loads) for s in self.stages)
@@ -524,6 +526,7 @@ def permanent_effects(
     divisions: int = 10,
     at: Sequence[object] = (),
     quantities: Sequence[str] | None = None,
+    name: str = "",
 ) -> PermanentEffects:
     """Moments, shears, reactions and deflections of permanent loads at the sections of a beam.
 
@@ -541,9 +544,12 @@ def permanent_effects(
     Values are in the beam's units (force·length, force, length) with the
     signs of :mod:`ilkit.model`: sagging moment positive, shear positive when
     the part left of the section is pushed up, reactions upward, deflections
-    downward.  See :class:`PermanentEffects` for the table.
+    downward.  See :class:`PermanentEffects` for the table.  ``name``: what the
+    loads are of (``"interior girder"``), for headings and tables.
     """
     import pandas as pd
+
+    from ilkit.design._inputs import text
 
     stages = _stages(stages_or_beam, loads)
     beam = stages[0].beam
@@ -579,7 +585,8 @@ def permanent_effects(
                     + (", only the rigid-body deflection." if "deflection" in kinds else ".")
                 )
     frame = pd.DataFrame(rows, columns=["quantity", "x", "side", "stage", "load", "category", "value"])
-    return PermanentEffects(frame, beam.units, stages, tuple(sections), kinds, tuple(notes))
+    return PermanentEffects(frame, beam.units, stages, tuple(sections), kinds, tuple(notes),
+                            name=text(name, "permanent_effects: name", empty=True))
 
 
 def _read_sections(sections: object, beam: Beam) -> tuple[Section, ...]:

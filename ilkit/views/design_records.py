@@ -82,7 +82,7 @@ def permanent_blocks(effects: PermanentEffects, number: str = "") -> list[Block]
             rows.append(((stage.name,) if staged else ()) + (load.name, load.category, load_words(load, u)))
     header = (("stage",) if staged else ()) + ("load", "category", "definition")
     blocks: list[Block] = [
-        Heading(f"{number} Permanent loads".strip(), 3),
+        Heading(f"{number} Permanent loads{': ' + effects.name if effects.name else ''}".strip(), 3),
         Para(("Loads act downward when positive. Effects come from the influence lines: a uniform load times the "
               "exact integral of the line over its stretch, a point load times the ordinate under it"
               + ("; each stage's loads act on that stage's beam and the effects of the stages add" if staged else "")
@@ -128,7 +128,7 @@ def _(effects: PermanentEffects, include: Any = None, exclude: Any = None) -> di
 def concurrent_blocks(found: ConcurrentForces, number: str = "") -> list[Block]:
     """Concurrent forces as document blocks: moment with shear, shear with moment, reactions, notes."""
     blocks: list[Block] = [
-        Heading(f"{number} Concurrent forces".strip(), 3),
+        Heading(f"{number} Concurrent forces{': ' + found.girder if found.girder else ''}".strip(), 3),
         Para(("For every extreme, the actions under the same placement of the same loads, each load with its "
               "factor (dynamic allowance times case factor). Where an axle stands exactly at the section the shear "
               "jumps by its load and both faces are given.",)),

@@ -108,8 +108,9 @@ def factored_blocks(envelope: FactoredEnvelope, number: str = "") -> list[Block]
     drawings and tables of each quantity, the governing limit state and live-load case, notes."""
     u = envelope.units
     names = ", ".join(s.name for s in envelope.limit_states)
+    lives = "; ".join(dict.fromkeys(envelope.live[s.name].live.name for s in envelope.limit_states))
     blocks: list[Block] = [
-        Heading(f"{number} Factored envelopes".strip(), 3),
+        Heading(f"{number} Factored envelopes: {lives}".strip(), 3),
         Para((f"Limit states: {names}. At every section the largest value is Σ γ P over the permanent load "
               "categories, with γmax where the category's effect adds to it and γmin where it relieves it, plus "
               "γLL times the girder's largest live-load effect where that adds; the smallest value likewise. The "
@@ -142,12 +143,15 @@ def distribution_blocks(distribution: Distribution, number: str = "") -> list[Bl
     factors = [distribution.moment, distribution.shear]
     if distribution.deflection is not None:
         factors.append(distribution.deflection)
-    return [
+    blocks: list[Block] = [
         Heading(f"{number} Distribution to {distribution.girder}".strip(), 3),
         Para((f"Method: {distribution.method}. Each factor is the girder's share of one lane's load, in lanes:",)),
         doc_table(distribution.to_frame(), digits=4),
-        Table(FACTOR_HEADER, tuple(factor_rows(distribution.girder, factors))),
     ]
+    if distribution.checks:
+        blocks += [Para(("Every parameter within the range of applicability of the formulas:",)),
+                   doc_table(distribution.ranges(), digits=6)]
+    return [*blocks, Table(FACTOR_HEADER, tuple(factor_rows(distribution.girder, factors)))]
 
 
 def limit_state_blocks(state: LimitState, number: str = "") -> list[Block]:
