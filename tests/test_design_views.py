@@ -109,3 +109,47 @@ def test_deflection_drawing_shows_the_limits(check):
     assert ax.yaxis_inverted()
     with pytest.raises(ilkit.UnsupportedResultError, match="deflection_check"):
         plot_deflection_check("check")
+
+
+@pytest.fixture(scope="module")
+def factored():
+    from ilkit.design import GirderLiveLoad, factored_envelope, given_distribution
+
+    beam = BEAM.in_units("kip-ft")
+    dead = permanent_effects(beam, [DistributedLoad("slab", "DC", 1.1), DistributedLoad("surfacing", "DW", 0.2)],
+                             divisions=4, quantities=("moment", "shear", "reaction"))
+    live = GirderLiveLoad(hl93(), distribution=given_distribution(0.7, 0.8, includes_multiple_presence=True),
+                          name="HL-93, girder 2")
+    return factored_envelope(beam, permanent=dead, live=live, limit_states=["Strength I", "Service II"], divisions=4)
+
+
+def test_factored_drawing_shows_each_limit_state_over_its_components(factored):
+    """The factored values drawn are the envelope's, and the figure shows in a notebook (a pyplot figure:
+    regression, it was drawn on a figure pyplot did not know, so nothing showed)."""
+    import matplotlib.pyplot as plt
+
+    from ilkit.views import plot_factored_envelope
+
+    before = set(plt.get_fignums())
+    top, bottom = plot_factored_envelope(factored, "moment")
+    assert set(plt.get_fignums()) - before
+    lines = {a.get_gid(): a for a in top.lines}
+    rows = factored.frame[(factored.frame["quantity"] == "moment") & (factored.frame["limit_state"] == "Strength I")]
+    assert np.allclose(np.sort(lines["max:Strength I"].get_ydata()), np.sort(rows["max"].to_numpy()))
+    assert {"max:Service II", "min:Service II", "min:Strength I"} <= set(lines)
+    below = {a.get_gid() for a in (*bottom.lines, *bottom.collections)}
+    assert {"permanent:DC", "permanent:DW", "live:HL-93, girder 2"} <= below
+    plt.close("all")
+    with pytest.raises(ilkit.DesignInputError, match="two axes"):
+        plot_factored_envelope(factored, "moment", axes=[top])
+
+
+def test_factored_sheet_section_names_the_live_load_and_every_factor(factored):
+    from ilkit.views.report import report_section
+
+    blocks = report_section(factored, "4.1")
+    assert blocks[0].text == "4.1 Factored envelopes: HL-93, girder 2"
+    html = factored._repr_mimebundle_()["text/html"]
+    for text in ("γLL", "γDC,max / γDC,min", "1.25 / 0.9", "gM", "recalled from memory: check it",
+                 "Tables 3.4.1-1 and 3.4.1-2", "qualified engineer"):
+        assert text in html, text

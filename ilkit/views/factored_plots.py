@@ -79,9 +79,10 @@ def plot_factored_envelope(
     frame = envelope.frame[envelope.frame["quantity"] == quantity]
     marker = quantity == "reaction"
     with style.context():
-        if axes is None:
-            fig = style.new_figure(5.2)
-            top, bottom = fig.subplots(2, 1, sharex=True)
+        if axes is None:  # a pyplot figure, so that it shows in a notebook (regression: it did not)
+            import matplotlib.pyplot as plt
+
+            _, (top, bottom) = plt.subplots(2, 1, sharex=True, figsize=(style.WIDTH, 5.2), layout="constrained")
         else:
             pair = list(axes) if isinstance(axes, (list, tuple)) or hasattr(axes, "ravel") else [axes]
             if hasattr(axes, "ravel"):
