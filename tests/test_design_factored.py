@@ -175,3 +175,23 @@ def test_live_envelope_is_one_lane_times_the_share():
     end = env.frame[(env.frame["quantity"] == "reaction") & (env.frame["x"] == 0.0)].iloc[0]
     assert end["max"] == pytest.approx(0.8 * lane.extreme("reaction", 0).value, rel=1e-12)
     assert env.extremes("moment", 50).maximum.value == lane.extreme("moment", 50).value
+
+
+def test_the_factor_on_one_part_standing_alone():
+    """part_factor: the part's case factor and dynamic effect, the share of the action, γLL and ψ of its kind
+    (values: AASHTO LRFD Tables 3.4.1-1, 3.6.2.1-1 and 3.6.1.3.1, EN 1990 Table A2.1 ψ1, all from memory)."""
+    from ilkit.design import LIMIT_STATES
+
+    live = GirderLiveLoad(loads.hl93(), distribution=given_distribution(0.6, 0.8, includes_multiple_presence=True))
+    assert live.part_factor("design truck", "moment") == (pytest.approx(1.33 * 0.6), "IM 33 % × gM 0.60")
+    value, words = live.part_factor("two design trucks", "reaction", LIMIT_STATES["Strength I"])
+    assert value == pytest.approx(1.33 * 0.9 * 0.8 * 1.75) and words == "IM 33 % × case factor 0.9 × gV 0.80 × γLL 1.75"
+    assert live.part_factor("design lane", "moment")[0] == pytest.approx(0.6)  # no IM on the lane
+    en = GirderLiveLoad(loads.lm1(), lanes=1)
+    tandem = next(p.name for c in en.model.cases for p in c.parts if "tandem" in p.name.lower())
+    value, words = en.part_factor(tandem, "moment", LIMIT_STATES["SLS frequent"])
+    assert value == pytest.approx(0.75) and "ψ 0.75 (axles)" in words
+    with pytest.raises(ilkit.DesignInputError, match="'fatigue truck' is not a part of"):
+        live.part_factor("fatigue truck")
+    with pytest.raises(ilkit.DesignInputError, match="Fatigue I calls for a dynamic allowance"):
+        live.part_factor("design truck", "moment", LIMIT_STATES["Fatigue I"])

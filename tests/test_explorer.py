@@ -609,3 +609,104 @@ def test_deflection_read_out_is_in_millimetres_as_in_the_plot(continuous):
     for loc, text in ticks:  # each label reads the tick's position in mm/kN
         assert float(text.replace("−", "-")) == pytest.approx(1000 * loc, abs=1e-9)
     explorer.close()
+
+
+# ------------------------------------------------------------ factored effect for a limit state (issue 11)
+def factored_shown(explorer) -> float:
+    return float(re.search(r"class='ilkit-factored'>([^<]+)<", explorer.readout.value).group(1))
+
+
+@pytest.fixture(scope="module")
+def highway():
+    # our own three-span girder (kip, ft) and one girder's share of HL-93, given
+    from ilkit import design
+
+    beam = ilkit.Beam(295, {0: "pin", 90: "roller", 205: "roller", 295: "roller"}, EI=1e8, units="kip-ft")
+    g = design.given_distribution(0.68, 0.88, includes_multiple_presence=True)
+    return beam, design.GirderLiveLoad(ilkit.loads.hl93(), distribution=g, name="HL-93, girder 2")
+
+
+@pytest.mark.parametrize(("label", "quantity", "at", "side", "expected"), [
+    # γLL 1.75 (Strength I, AASHTO LRFD Table 3.4.1-1, from memory) × IM 1.33 on the truck (Table 3.6.2.1-1, from
+    # memory) × gM 0.68 (given); the two-truck case also × 0.90 (3.6.1.3.1, from memory); shear × gV 0.88
+    ("design truck", "moment", 36, None, 1.75 * 1.33 * 0.68),
+    ("two design trucks", "moment", 90, None, 1.75 * 1.33 * 0.90 * 0.68),
+    ("design tandem", "shear", 90, "right", 1.75 * 1.33 * 0.88),
+    ("design truck", "reaction", 90, None, 1.75 * 1.33 * 0.88),
+])
+def test_the_factored_effect_is_the_core_effect_times_the_named_factors(highway, label, quantity, at, side,
+                                                                         expected):
+    beam, live = highway
+    explorer = Explorer(beam, live=live, limit_state="Strength I", quantity=quantity, at=at, side=side,
+                        backend="inline")
+    assert explorer.limit_state.value == "Strength I" and explorer.limit_state.layout.display == ""
+    explorer.load.value = f"HL-93, girder 2: {label}"
+    for x in (40.0, 117.5, 233.0):
+        explorer.position.value = x
+        part = next(p for c in live.model.cases for p in c.parts if p.name == label)
+        effect = ilkit.stand(explorer.line, part, x).effect
+        assert explorer.value == effect
+        assert explorer.factored == pytest.approx(expected * effect, rel=1e-12)
+        assert factored_shown(explorer) == pytest.approx(expected * effect, rel=1e-4, abs=1e-4)
+    explorer.jump("max")  # the worst placement, factored the same way
+    assert explorer.factored == pytest.approx(expected * explorer.value, rel=1e-12)
+    text = html.unescape(explorer.readout.value)
+    assert "IM 33 %" in text and "γLL 1.75" in text and "(unfactored" in text
+    assert ("case factor 0.9" in text) == (label == "two design trucks")
+    explorer.close()
+
+
+def test_the_limit_state_control_switches_the_factored_read_out(highway):
+    beam, live = highway
+    explorer = Explorer(beam, live=live, limit_state=["Strength I", "Service II"], at=36, backend="inline")
+    assert [v for _, v in explorer.limit_state.options] == ["", "Strength I", "Service II"]
+    assert "ilkit-factored" not in explorer.readout.value and explorer.factored is None  # the unit load
+    assert "choose one of them as the load" in html.unescape(explorer.readout.value)
+    explorer.load.value = "HL-93, girder 2: design truck"
+    explorer.position.value = 50.0
+    strength = explorer.factored
+    explorer.limit_state.value = "Service II"  # γLL 1.30 (Table 3.4.1-1, from memory)
+    assert explorer.factored == pytest.approx(strength * 1.30 / 1.75, rel=1e-12)
+    explorer.limit_state.value = ""
+    assert explorer.factored is None and "ilkit-factored" not in explorer.readout.value
+    explorer.quantity.value = "rotation"
+    explorer.limit_state.value = "Strength I"
+    assert explorer.factored is None and "not for the rotation" in html.unescape(explorer.readout.value)
+    explorer.close()
+
+
+def test_without_a_girder_live_load_the_one_load_model_is_one_lane(highway):
+    beam, _ = highway
+    explorer = Explorer(beam, ilkit.loads.hl93(), limit_state="Service I", at=36, backend="inline")
+    explorer.load.value = "HL-93: design truck"
+    explorer.position.value = 40.0
+    assert explorer.live.name == "HL-93, one lane"
+    assert explorer.factored == pytest.approx(1.33 * explorer.value, rel=1e-12)  # γLL 1.00, IM 33 %, 1 lane
+    assert "NL 1.00" in html.unescape(explorer.readout.value)
+    explorer.close()
+
+
+def test_a_limit_state_the_live_load_does_not_suit_is_a_typed_error(highway):
+    beam, live = highway
+    with pytest.raises(ilkit.DesignInputError, match="Fatigue I calls for a dynamic allowance of 15 %"):
+        Explorer(beam, live=live, limit_state="Fatigue I", backend="inline")
+    with pytest.raises(ilkit.DesignInputError, match="unknown limit state 'Strength VI'"):
+        Explorer(beam, live=live, limit_state="Strength VI", backend="inline")
+    with pytest.raises(ilkit.DesignInputError, match="say whose live load it factors"):
+        Explorer(beam, [ilkit.loads.hl93(), VEHICLE.converted("kip-ft")], limit_state="Strength I",
+                 backend="inline")
+    with pytest.raises(ilkit.DesignInputError, match="give the girder's live load"):
+        Explorer(beam, live=ilkit.loads.hl93(), limit_state="Strength I", backend="inline")
+
+
+def test_a_vehicle_that_is_not_the_girders_live_load_is_not_factored(highway):
+    beam, live = highway
+    truck = ilkit.AxleTrain([30, 40], [14], units="kip-ft", name="site truck")
+    explorer = Explorer(beam, {"site truck": truck, "HL-93": ilkit.loads.hl93()}, live=live,
+                        limit_state="Strength I", backend="inline")
+    explorer.load.value = "site truck"
+    assert explorer.factored is None
+    assert "factored effects are those of the vehicles of HL-93, girder 2" in html.unescape(explorer.readout.value)
+    explorer.load.value = "HL-93: design truck"  # the same truck, offered by the model given as a load
+    assert explorer.factored == pytest.approx(1.75 * 1.33 * 0.68 * explorer.value, rel=1e-12)
+    explorer.close()

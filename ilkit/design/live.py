@@ -155,6 +155,47 @@ class GirderLiveLoad(RichDisplay):
         already in the lane's values)."""
         return self.factors(action).product
 
+    def part_factor(self, part: str, action: Action = "moment", limit_state: LimitState | None = None
+                    ) -> tuple[float, str]:
+        """The multiplier on the unfactored effect of the model's part named ``part`` standing alone (as
+        :func:`ilkit.loads.stand` and :func:`ilkit.loads.place` give it), and its words.
+
+        The multiplier is that part's factor in the first case of the model that holds it (the dynamic effect
+        on it times the case factor, e.g. 1.33 × 0.90 for a truck of AASHTO's two-truck case), times the
+        girder's share of ``action`` (:meth:`scale`) and, with a ``limit_state``, its γLL and its factor on
+        the part's kind (``live_parts``: ψ of the axles or of the uniform load).  Dimensionless; the words
+        read like ``"IM 33 % × gM 0.6805 × γLL 1.75"``.  A limit state that does not suit this live load
+        (:meth:`check`) is refused.
+        """
+        from ilkit.design.combinations import LimitState
+
+        owner = next(((c, p) for c in self.model.cases for p in c.parts if p.name == part), None)
+        if owner is None:
+            names = ", ".join(dict.fromkeys(p.name for c in self.model.cases for p in c.parts))
+            raise DesignInputError(f"part_factor: {part!r} is not a part of {self.name!r} (its parts: {names}).",
+                                   field="part", value=part)
+        case, load = owner
+        words = []
+        dynamic = case.dynamic
+        if dynamic.multiplier(part) != 1.0:
+            symbol = "IM" if dynamic.kind == "allowance" else "Φ"
+            words.append(f"{symbol} {100 * dynamic.value:.4g} %" if symbol == "IM" else f"Φ {dynamic.value:.4g}")
+        if case.factor != 1.0:
+            words.append(f"case factor {fmt(case.factor)}")
+        value = case.part_factor(load) * self.scale(action)
+        words += [f.describe() for f in self.factors(action) if not f.parts]
+        if limit_state is not None:
+            if not isinstance(limit_state, LimitState):
+                raise DesignInputError(f"part_factor: give a LimitState, got {type(limit_state).__name__}.",
+                                       field="limit_state", value=limit_state)
+            self.check(limit_state)
+            psi = limit_state.live_parts.get(part_kind(load), 1.0)
+            value *= limit_state.live * psi
+            words.append(f"γLL {fmt(limit_state.live)}")
+            if part_kind(load) in limit_state.live_parts:
+                words.append(f"ψ {fmt(psi)} ({part_kind(load)})")
+        return value, " × ".join(words) or "no factors"
+
     @property
     def dynamic(self) -> Factor:
         """The dynamic effect the model's values contain, as a factor."""

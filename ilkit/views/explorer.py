@@ -12,7 +12,11 @@
   direction; the axles are drawn on the beam and
   on the line, and the current value of the quantity is read out with units;
 * buttons that jump to the worst placement (largest, smallest), and an
-  envelope view of a chosen load model.
+  envelope view of a chosen load model;
+* when asked for a limit state (``limit_state=``, with the girder's live load
+  ``live=``), the factored effect of the vehicle beside the unfactored one,
+  with the factors named (dynamic allowance, case factor, the girder's share,
+  γLL): :meth:`ilkit.design.GirderLiveLoad.part_factor`.
 
 The explorer holds no engineering logic: every number it shows comes from a
 core call (the line's ordinates and extremes, :func:`ilkit.loads.stand`,
@@ -91,10 +95,20 @@ class Explorer:
         The side, where the quantity jumps at ``at``.
     backend:
         ``"inline"`` or ``"ipympl"``; default: follow matplotlib's backend.
+    limit_state:
+        A limit state (a name such as ``"Strength I"``, a
+        :class:`~ilkit.design.LimitState`, ``"AASHTO"``, or a list): the
+        read-out then also gives the factored effect of the vehicle on the
+        girder for the limit state chosen in the ``limit_state`` control.
+    live:
+        The girder's live load (:class:`~ilkit.design.GirderLiveLoad`: a load
+        model and the girder's share); its model's vehicles are offered when
+        ``loads`` is not given.  Default with a limit state: one lane of the
+        one load model given (``GirderLiveLoad(model, lanes=1)``).
 
     Attributes
     ----------
-    quantity, location, side, load, direction, slider, position, largest, smallest, envelope, model:
+    quantity, location, side, load, direction, slider, position, largest, smallest, envelope, model, limit_state:
         The controls (ipywidgets); set their ``value`` (or ``click()`` a
         button) to drive the explorer from code.  ``slider`` moves the load by
         steps (its value counts the steps); ``position`` is the exact position
@@ -113,6 +127,14 @@ class Explorer:
     placement:
         Where the chosen load stands and what each axle contributes
         (:class:`ilkit.loads.LoadPlacement`), ``None`` for the unit load.
+    factored:
+        With a limit state chosen: the factored effect of the vehicle on the
+        girder (``value`` times :meth:`~ilkit.design.GirderLiveLoad.part_factor`),
+        in the beam's units; ``None`` otherwise (the unit load, a load that is
+        not part of the girder's live load, a quantity without a share).
+    live:
+        The girder's live load the limit states apply to (``None`` without
+        a limit state).
     widget:
         The whole layout.
     """
@@ -126,10 +148,17 @@ class Explorer:
         at: Any = None,
         side: Literal["left", "right"] | None = None,
         backend: Backend | None = None,
+        limit_state: Any = None,
+        live: Any = None,
     ) -> None:
         w = _require("ipywidgets")
         self.beam = beam
+        if live is not None and loads is None:
+            loads = {getattr(live, "name", "live load"): getattr(live, "model", live)}
         self._travelling, self._models = _read_loads(loads)
+        self.live, states = _read_design(live, limit_state, self._models)
+        self._states = {s.name: s for s in states}
+        self.factored: float | None = None
         self.line: InfluenceLine | None = None
         self.value: float = 0.0
         self.x: float = 0.0
@@ -200,13 +229,19 @@ class Explorer:
             style={"description_width": "5.5em"}, tooltip="the load model whose envelope is shown",
         )  # fmt: skip
         self.envelope.layout.display = "" if self._models else "none"
+        self.limit_state = w.Dropdown(
+            options=[("unfactored", ""), *((n, n) for n in self._states)], value=next(iter(self._states), ""),
+            description="limit state", layout=w.Layout(width="17em", display="" if self._states else "none"),
+            style={"description_width": "5.5em"},
+            tooltip="read out the factored effect of the vehicle on the girder for this limit state",
+        )  # fmt: skip
         self.readout = w.HTML()
         self.message = w.HTML()
         self.caution = w.HTML(
             f"<div style='color:#5a5a5a; font-size:0.85em'>{html.escape(CAUTION_SHORT)}</div>"
         )
         for name in ("quantity", "location", "side", "load", "direction", "slider", "position", "largest",
-                     "smallest", "envelope", "model", "readout", "message", "caution"):  # fmt: skip
+                     "smallest", "envelope", "model", "limit_state", "readout", "message", "caution"):  # fmt: skip
             getattr(self, name).add_class(f"ilkit-{name}")
 
         self._figure = ExplorerFigure(beam, backend=backend)
@@ -215,7 +250,7 @@ class Explorer:
         self.widget = w.VBox(
             [
                 w.HBox([self.quantity, self.location, self.side]),
-                w.HBox([self.load, self.direction, self.largest, self.smallest]),
+                w.HBox([self.load, self.direction, self.largest, self.smallest, self.limit_state]),
                 w.HBox([self.slider, self.position, self.envelope, self.model]),
                 self.readout,
                 self.message,
@@ -241,6 +276,7 @@ class Explorer:
         self.smallest.on_click(lambda _: self.jump("min"))
         self.envelope.observe(self._on_envelope, "value")
         self.model.observe(self._on_envelope, "value")
+        self.limit_state.observe(lambda _: self._write_readout(), "value")
         self._render()
 
     # ------------------------------------------------------------------ display
@@ -553,6 +589,9 @@ class Explorer:
             f"<b><span class='ilkit-value'>{_number(self.value * factor)}</span> "
             f"<span class='ilkit-unit'>{html.escape(unit)}</span></b>",
         )
+        self.factored = None
+        if self.limit_state.value:
+            rows.insert(1, self._factored_row(self._states[self.limit_state.value], factor, unit))
         if self.envelope.value and self.model.value is not None:
             rows.append(self._envelope_row())
         rows.append(self._facts(line))
@@ -569,6 +608,31 @@ class Explorer:
             ) + "</span>"
             self._facts_of = line
         return self._facts_html
+
+    def _factored_row(self, state: Any, factor: float, unit: str) -> str:
+        """The factored effect of the vehicle on the girder for ``state`` (core: ``live.part_factor``)."""
+        assert self.line is not None and self.live is not None
+        kind = self.line.quantity.kind
+        head = f"<b>{html.escape(state.name)}</b>: "
+        part = self._travelling[self.load.value]
+        parts = [p for c in self.live.model.cases for p in c.parts]
+        if part is None or not any(p is part or p == part for p in parts):
+            return head + html.escape(
+                f"factored effects are those of the vehicles of {self.live.name} "
+                f"({', '.join(dict.fromkeys(p.name for p in parts))}); choose one of them as the load.")
+        if kind not in ("moment", "shear", "reaction", "deflection"):
+            return head + html.escape(f"the girder's share is given for moment, shear, reaction and deflection, not "
+                                      f"for the {_words(kind)}.")
+        try:
+            multiplier, words = self.live.part_factor(part.name, kind, state)
+        except IlkitError as err:
+            return head + html.escape(str(err))
+        self.factored = multiplier * self.value
+        return (
+            f"{head}factored effect on the girder ({html.escape(self.live.name)}) = {html.escape(words)} × this "
+            f"load's effect = <b><span class='ilkit-factored'>{_number(self.factored * factor)}</span> "
+            f"{html.escape(unit)}</b>"
+        )
 
     def _envelope_row(self) -> str:
         """The extremes of the envelope's load model at the section (core placement)."""
@@ -695,6 +759,30 @@ def _read_loads(loads: Any) -> tuple[dict[str, Travelling | None], dict[str, Any
             )
         models[name] = item
     return travelling, models
+
+
+def _read_design(live: Any, limit_state: Any, models: Mapping[str, Any]) -> tuple[Any, tuple[Any, ...]]:
+    """The girder's live load and the limit states the explorer factors the vehicle's effect for."""
+    from ilkit.design import GirderLiveLoad, limit_states
+    from ilkit.errors import DesignInputError
+
+    if live is not None and not isinstance(live, GirderLiveLoad):
+        raise DesignInputError(
+            f"live: give the girder's live load, e.g. design.GirderLiveLoad(loads.hl93(), distribution=...), got "
+            f"{type(live).__name__} {live!r:.60}.", field="live", value=live)
+    if limit_state is None:
+        return live, ()
+    states = limit_states(limit_state)
+    if live is None:
+        if len(models) != 1:
+            raise DesignInputError(
+                f"limit_state: say whose live load it factors: give live=design.GirderLiveLoad(model, "
+                f"distribution=...) (the explorer was given {len(models)} load models).", field="live")
+        name, model = next(iter(models.items()))
+        live = GirderLiveLoad(model, lanes=1, name=f"{name}, one lane")
+    for state in states:
+        live.check(state)
+    return live, states
 
 
 def _train_length(beam: Beam, load: Travelling, spacings: Sequence[float] | None) -> float:
