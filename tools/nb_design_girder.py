@@ -343,7 +343,25 @@ rounded(check.spans.set_index("span"), 4).round({"at [ft]": 1})   # where: to 0.
 ax = views.plot_deflection_check(check)
 """),
     ("md", """
-## 8. The calculation sheet
+## 8. Exploring the factored effect of a truck
+
+The explorer moves one vehicle of the girder's live load along the girder;
+with a limit state it reads out, beside the truck's unfactored effect, its
+factored effect on the girder with the factors named (IM, case factor, the
+girder's share, γLL). Open the notebook in JupyterLab to move it; here the
+controls are set from code.
+"""),
+    ("code", """
+explorer = short_term.explore(live=live_interior, limit_state=["Strength I", "Service II"], quantity="moment",
+                              at=110)
+explorer.load.value = "HL-93, interior girder: two design trucks"
+explorer.smallest.click()                                   # the worst placement for the hogging moment
+print(f"two trucks alone: {explorer.value:.1f} kip·ft; Strength I on the interior girder: "
+      f"{explorer.factored:.1f} kip·ft")
+explorer
+"""),
+    ("md", """
+## 9. The calculation sheet
 
 One call writes the sheet: inputs, the load model and its sources, the
 distribution, the permanent loads, the factored envelopes with every factor,

@@ -171,3 +171,54 @@ def test_explorer_as_a_voila_page(page, tmp_path, artifacts):
     with voila(tmp_path, folder) as base:
         page.goto(f"{base}/voila/render/{NOTEBOOK}", timeout=120_000)
         drive_explorer(page, artifacts / "voila-explorer.png")
+
+
+def test_explorer_reads_out_the_factored_effect_for_a_limit_state(page, tmp_path, artifacts):
+    """Choose a limit state in the page, move the truck with the keyboard: the factored effect follows, equal to
+    the core's effect times the factors named (γLL 1.75 Strength I, AASHTO LRFD Table 3.4.1-1, from memory; IM
+    33 % on the truck, Table 3.6.2.1-1, from memory; gM 0.68 given)."""
+    import nbformat
+
+    from ilkit import loads
+
+    beam = ilkit.Beam(295, {0: "pin", 90: "roller", 205: "roller", 295: "roller"}, EI=1e8, units="kip-ft")
+    truck = loads.hl93().cases[0].parts[0]
+    assert truck.name == "design truck"
+    folder = tmp_path / "work"
+    folder.mkdir()
+    nb = nbformat.v4.new_notebook()
+    nb.metadata["kernelspec"] = {"name": "python3", "display_name": "Python 3", "language": "python"}
+    nb.cells = [nbformat.v4.new_code_cell(
+        "%matplotlib inline\nimport ilkit\nfrom ilkit import design, loads\n"
+        "beam = ilkit.Beam(295, {0: 'pin', 90: 'roller', 205: 'roller', 295: 'roller'}, EI=1e8, units='kip-ft')\n"
+        "live = design.GirderLiveLoad(loads.hl93(), distribution=design.given_distribution(0.68, 0.88, "
+        "includes_multiple_presence=True), name='HL-93, girder 2')\n"
+        "explorer = beam.explore(live=live, limit_state=['Strength I', 'Service II'], quantity='moment', at=36)\n"
+        "explorer.load.value = 'HL-93, girder 2: design truck'\nexplorer.position.value = 40.0\n"
+        "explorer.limit_state.value = ''\nexplorer"
+    )]
+    nbformat.write(nb, folder / "factored.ipynb")
+    with jupyter_lab(tmp_path, folder) as (base, token):
+        run_all_cells(page, base, token, "factored.ipynb")
+        explorer = page.locator(".ilkit-explorer").first
+        explorer.wait_for(timeout=60_000)
+        explorer.scroll_into_view_if_needed()
+        value = explorer.locator(".ilkit-readout .ilkit-value")
+        where = explorer.locator(".ilkit-readout .ilkit-at")
+        _wait_for(value.inner_text, ilkit.stand(beam.moment(36), truck, 40.0).effect)
+        assert explorer.locator(".ilkit-factored").count() == 0  # unfactored until a limit state is chosen
+        explorer.locator(".ilkit-limit_state select").select_option("Strength I")
+        factored = explorer.locator(".ilkit-readout .ilkit-factored")
+        _wait_for(factored.inner_text, 1.75 * 1.33 * 0.68 * ilkit.stand(beam.moment(36), truck, 40.0).effect)
+        handle = explorer.locator(".ilkit-slider .noUi-handle")
+        handle.focus()
+        for _ in range(4):
+            handle.press("ArrowRight")
+        _wait_for(lambda: where.get_attribute("data-x"), 42.0)  # four steps of 0.5 ft (295 ft / 400, rounded down)
+        x = float(where.get_attribute("data-x"))
+        _wait_for(factored.inner_text, 1.75 * 1.33 * 0.68 * ilkit.stand(beam.moment(36), truck, x).effect)
+        assert "γLL 1.75" in explorer.locator(".ilkit-readout").inner_text()
+        explorer.locator(".ilkit-limit_state select").select_option("Service II")
+        _wait_for(factored.inner_text, 1.30 * 1.33 * 0.68 * ilkit.stand(beam.moment(36), truck, x).effect)
+        _settle_figure(explorer)
+        explorer.screenshot(path=str(artifacts / "lab-explorer-limit-state.png"))
