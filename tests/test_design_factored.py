@@ -195,3 +195,39 @@ def test_the_factor_on_one_part_standing_alone():
         live.part_factor("fatigue truck")
     with pytest.raises(ilkit.DesignInputError, match="Fatigue I calls for a dynamic allowance"):
         live.part_factor("design truck", "moment", LIMIT_STATES["Fatigue I"])
+
+
+def test_a_settlement_counts_only_where_it_adds_and_a_determinate_beams_is_no_effect_said_so():
+    """AASHTO LRFD Table 3.4.1-1 (from memory): γSE = 1.00 for settlement, taken where it adds to the extreme and
+    left out where it relieves (γ 0, common practice).  On a determinate beam a settlement moves the beam as a
+    rigid body: no force (statics), and the factored envelope says so in its notes."""
+    from ilkit.design import Settlement
+
+    live = GirderLiveLoad(loads.hl93(), distribution=given_distribution(0.6, includes_multiple_presence=True))
+    two = ilkit.Beam(160, {0: "pin", 80: "roller", 160: "roller"}, EI=4e6, units="kip-ft")
+    base = permanent_effects(two, DEAD, divisions=4, quantities=("moment", "shear", "reaction"))
+    settled = permanent_effects(two, [*DEAD, Settlement("pier settles", 80, 0.05)], divisions=4,
+                                quantities=("moment", "shear", "reaction"))
+    lane = live_envelope(two, live, divisions=4)
+    plain = factored_envelope(two, permanent=base, live=lane, limit_states="Strength I", divisions=4).frame
+    moved = factored_envelope(two, permanent=settled, live=lane, limit_states="Strength I", divisions=4).frame
+    s = settled.by_category()["settlement"].to_numpy()
+    order = settled.by_category()[["quantity", "x", "side"]]
+    key = ["quantity", "x", "side"]
+    a = order.merge(plain, on=key)
+    b = order.merge(moved, on=key)
+    assert np.allclose(b["max"] - a["max"], np.where(s > 0, s, 0.0), rtol=1e-12, atol=1e-9)
+    assert np.allclose(b["min"] - a["min"], np.where(s < 0, s, 0.0), rtol=1e-12, atol=1e-9)
+    # the settlement of the middle bearing of two equal spans: M = 3EIΔ/L² over it (sagging), derived in
+    # tests/test_design_permanent.py; here it raises the largest moment over the pier by exactly that
+    assert settled.value("moment", 80, category="settlement") == pytest.approx(3 * 4e6 * 0.05 / 80**2, rel=1e-9)
+
+    simple = SPAN.replace(EI=4e6)
+    quiet = permanent_effects(simple, [*DEAD, Settlement("bearing settles", 100, 0.05)], divisions=4,
+                              quantities=("moment", "shear", "reaction"))
+    env = factored_envelope(simple, permanent=quiet, live=live, limit_states="Strength I", divisions=4)
+    ref = factored_envelope(simple, permanent=permanent_effects(simple, DEAD, divisions=4,
+                                                                quantities=("moment", "shear", "reaction")),
+                            live=live, limit_states="Strength I", divisions=4)
+    assert np.array_equal(env.frame["max"].to_numpy(), ref.frame["max"].to_numpy())
+    assert any("statically determinate" in n and "no moment, shear or reaction" in n for n in env.notes)
