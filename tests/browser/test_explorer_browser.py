@@ -103,6 +103,19 @@ def drive_explorer(page, screenshot) -> None:
     explorer.screenshot(path=str(screenshot))
 
 
+def one_cell_notebook(tmp_path, name: str, source: str):
+    """A folder ``work`` in ``tmp_path`` holding the notebook ``name`` of one code cell; returns the folder."""
+    import nbformat
+
+    folder = tmp_path / "work"
+    folder.mkdir()
+    nb = nbformat.v4.new_notebook()
+    nb.metadata["kernelspec"] = {"name": "python3", "display_name": "Python 3", "language": "python"}
+    nb.cells = [nbformat.v4.new_code_cell(source)]
+    nbformat.write(nb, folder / name)
+    return folder
+
+
 def test_notebook_defines_the_girder_and_vehicle_of_this_test():
     import nbformat
 
@@ -123,21 +136,13 @@ def test_explorer_in_jupyterlab(page, tmp_path, artifacts):
 
 def test_explorer_with_ipympl_updates_the_canvas_in_place(page, tmp_path, artifacts):
     """With ``%matplotlib widget`` the figure is an ipympl canvas; a slider step repaints it in place."""
-    import nbformat
-
-    folder = tmp_path / "work"
-    folder.mkdir()
-    nb = nbformat.v4.new_notebook()
-    nb.metadata["kernelspec"] = {"name": "python3", "display_name": "Python 3", "language": "python"}
-    nb.cells = [
-        nbformat.v4.new_code_cell(
-            "%matplotlib widget\nimport ilkit\n"
-            "girder = ilkit.Beam(length=62, supports={0: 'pin', 24: 'roller', 50: 'roller'}, hinges=[30], "
-            "units='kN-m')\nexplorer = girder.explore(quantity='shear', at=10)\nexplorer.position.value = 0.0\n"
-            "explorer"
-        )
-    ]
-    nbformat.write(nb, folder / "widget.ipynb")
+    folder = one_cell_notebook(
+        tmp_path, "widget.ipynb",
+        "%matplotlib widget\nimport ilkit\n"
+        "girder = ilkit.Beam(length=62, supports={0: 'pin', 24: 'roller', 50: 'roller'}, hinges=[30], "
+        "units='kN-m')\nexplorer = girder.explore(quantity='shear', at=10)\nexplorer.position.value = 0.0\n"
+        "explorer",
+    )
     with jupyter_lab(tmp_path, folder) as (base, token):
         run_all_cells(page, base, token, "widget.ipynb")
         explorer = page.locator(".ilkit-explorer").first
@@ -177,27 +182,21 @@ def test_explorer_reads_out_the_factored_effect_for_a_limit_state(page, tmp_path
     """Choose a limit state in the page, move the truck with the keyboard: the factored effect follows, equal to
     the core's effect times the factors named (γLL 1.75 Strength I, AASHTO LRFD Table 3.4.1-1, from memory; IM
     33 % on the truck, Table 3.6.2.1-1, from memory; gM 0.68 given)."""
-    import nbformat
-
     from ilkit import loads
 
     beam = ilkit.Beam(295, {0: "pin", 90: "roller", 205: "roller", 295: "roller"}, EI=1e8, units="kip-ft")
     truck = loads.hl93().cases[0].parts[0]
     assert truck.name == "design truck"
-    folder = tmp_path / "work"
-    folder.mkdir()
-    nb = nbformat.v4.new_notebook()
-    nb.metadata["kernelspec"] = {"name": "python3", "display_name": "Python 3", "language": "python"}
-    nb.cells = [nbformat.v4.new_code_cell(
+    folder = one_cell_notebook(
+        tmp_path, "factored.ipynb",
         "%matplotlib inline\nimport ilkit\nfrom ilkit import design, loads\n"
         "beam = ilkit.Beam(295, {0: 'pin', 90: 'roller', 205: 'roller', 295: 'roller'}, EI=1e8, units='kip-ft')\n"
         "live = design.GirderLiveLoad(loads.hl93(), distribution=design.given_distribution(0.68, 0.88, "
         "includes_multiple_presence=True), name='HL-93, girder 2')\n"
         "explorer = beam.explore(live=live, limit_state=['Strength I', 'Service II'], quantity='moment', at=36)\n"
         "explorer.load.value = 'HL-93, girder 2: design truck'\nexplorer.position.value = 40.0\n"
-        "explorer.limit_state.value = ''\nexplorer"
-    )]
-    nbformat.write(nb, folder / "factored.ipynb")
+        "explorer.limit_state.value = ''\nexplorer",
+    )
     with jupyter_lab(tmp_path, folder) as (base, token):
         run_all_cells(page, base, token, "factored.ipynb")
         explorer = page.locator(".ilkit-explorer").first
