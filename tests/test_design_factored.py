@@ -231,3 +231,20 @@ def test_a_settlement_counts_only_where_it_adds_and_a_determinate_beams_is_no_ef
                             live=live, limit_states="Strength I", divisions=4)
     assert np.array_equal(env.frame["max"].to_numpy(), ref.frame["max"].to_numpy())
     assert any("statically determinate" in n and "no moment, shear or reaction" in n for n in env.notes)
+
+
+def test_the_extremes_behind_the_governing_sections(permanent):
+    """Simple span of 100 ft at quarter points: the largest factored moment is at midspan (statics); the smallest
+    (zero at both ends, positive inside) is taken at the first of the equal sections, the left end."""
+    live = GirderLiveLoad(loads.hl93(), distribution=given_distribution(0.6, 0.7, includes_multiple_presence=True))
+    env = factored_envelope(SPAN, permanent=permanent, live=live, limit_states=["Strength I", "Service I"],
+                            divisions=4)
+    found = env.governing_extremes("Strength I")
+    keys = [(e.maximum.quantity.kind, float(e.maximum.quantity.at), e.maximum.quantity.side) for e in found]
+    assert keys[:2] == [("moment", 50.0, None), ("moment", 0.0, None)]
+    assert {k[0] for k in keys} == {"moment", "shear", "reaction"}
+    lane = env.live["Strength I"]
+    assert found[0].maximum.value * 0.6 == pytest.approx(lane.frame.loc[
+        (lane.frame["quantity"] == "moment") & (lane.frame["x"] == 50), "max"].iloc[0], rel=1e-12)
+    with pytest.raises(ilkit.DesignInputError, match="governing_extremes: limit_state"):
+        env.governing_extremes("Strength II")

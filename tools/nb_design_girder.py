@@ -297,26 +297,15 @@ assert abs(by_hand - factored_interior.value("moment", 44, "Strength I")) < 1e-9
     ("md", """
 ## 6. Concurrent forces at the governing sections
 
-For the governing Strength I sections, the live load's other actions under the
+At the sections of the largest and smallest Strength I moment, shear and
+reaction, the live load's other actions under the
 same placement of the same loads (each load with its dynamic allowance and
 case factor), for the interior girder: moments times gM, shears and reactions
 times gV. Where an axle stands exactly at the section the shear jumps by its
 load, so both faces are given.
 """),
     ("code", """
-def governing_extremes(factored, live):
-    rows = factored.frame[factored.frame["limit_state"] == "Strength I"]
-    picked = {}
-    for quantity in ("moment", "shear", "reaction"):
-        part = rows[rows["quantity"] == quantity]
-        # the first of equal values (to 0.001): the same section on every machine
-        for row in (part.loc[part["max"].round(3).idxmax()], part.loc[part["min"].round(3).idxmin()]):
-            key = (quantity, row["x"], row["side"])
-            picked.setdefault(key, live.extremes(quantity, row["x"], side=row["side"] or None))
-    return list(picked.values())
-
-
-together = design.concurrent_forces(governing_extremes(factored_interior, hl93_envelope), short_term)
+together = design.concurrent_forces(factored_interior.governing_extremes("Strength I"), short_term)
 together_interior = together.for_girder(live_interior)
 rounded(together_interior.moment_with_shear())
 """),

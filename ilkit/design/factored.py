@@ -46,6 +46,8 @@ from ilkit.units import LENGTH, UnitSystem, magnitude_in
 if TYPE_CHECKING:  # pragma: no cover
     import pandas as pd
 
+    from ilkit.loads.results import Extremes
+
 __all__ = ["FactoredEnvelope", "factored_envelope", "NO_LIVE"]
 
 QUANTITIES = ("moment", "shear", "reaction")
@@ -133,6 +135,27 @@ class FactoredEnvelope(RichDisplay):
             "min_case": low["min_case"].to_numpy(),
         })
         return out
+
+    def governing_extremes(self, limit_state: str) -> list[Extremes]:
+        """The live load's extremes (:class:`ilkit.Extremes`, one lane, with their placements) at the sections that
+        govern ``limit_state``: where its largest and its smallest moment, shear and reaction are (one section may
+        give two).  Of equal values (to 1e-9 of the largest) the first section along the beam is taken.  For
+        :func:`~ilkit.design.concurrent_forces` (then :meth:`~ilkit.design.ConcurrentForces.for_girder`)."""
+        choice(limit_state, [s.name for s in self.limit_states], what="governing_extremes: limit_state",
+               field="limit_state", error=DesignInputError)
+        rows = self.frame[self.frame["limit_state"] == limit_state]
+        live = self.live[limit_state]
+        picked: dict[tuple[str, float, str], Extremes] = {}
+        for quantity in QUANTITIES:
+            part = rows[rows["quantity"] == quantity]
+            for column, sign in (("max", 1.0), ("min", -1.0)):
+                values = sign * part[column].to_numpy(dtype=float)
+                tol = 1e-9 * max(float(np.abs(values).max(initial=0.0)), 1e-300)
+                row = part.iloc[int(np.argmax(values >= values.max() - tol))]
+                key = (quantity, float(row["x"]), str(row["side"]))
+                if key not in picked:
+                    picked[key] = live.extremes(quantity, row["x"], side=row["side"] or None)
+        return list(picked.values())
 
     def value(self, quantity: str, at: object, limit_state: str, extreme: Literal["max", "min"] = "max",
               side: str | None = None) -> float:

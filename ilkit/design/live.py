@@ -178,8 +178,7 @@ class GirderLiveLoad(RichDisplay):
         words = []
         dynamic = case.dynamic
         if dynamic.multiplier(part) != 1.0:
-            symbol = "IM" if dynamic.kind == "allowance" else "Φ"
-            words.append(f"{symbol} {100 * dynamic.value:.4g} %" if symbol == "IM" else f"Φ {dynamic.value:.4g}")
+            words.append(f"IM {100 * dynamic.value:.4g} %" if dynamic.kind == "allowance" else f"Φ {dynamic.value:.4g}")
         if case.factor != 1.0:
             words.append(f"case factor {fmt(case.factor)}")
         value = case.part_factor(load) * self.scale(action)

@@ -104,27 +104,12 @@ def composite_girder_study() -> GirderStudy:
         fatigue_live = lane_envelopes["fatigue"].for_girder(fatigue)
         factored = design.factored_envelope(short_term, permanent=permanent, limit_states="AASHTO",
                                             live={"*": live, "Fatigue I": fatigue_live, "Fatigue II": fatigue_live})
-        concurrent = design.concurrent_forces(governing_extremes(factored, live), short_term).for_girder(hl93)
+        concurrent = design.concurrent_forces(factored.governing_extremes("Strength I"), short_term).for_girder(hl93)
         girders[where] = {"distribution": g, "permanent": permanent, "live": hl93, "fatigue": fatigue,
                           "factored": factored, "concurrent": concurrent}
     deflection = design.deflection_check(short_term, lanes=design.design_lanes(section.roadway_width).count,
                                          girders=section.girders)
     return GirderStudy(section, beams, Kg, lever, girders, deflection)
-
-
-def governing_extremes(factored: Any, live: Any) -> list[Any]:
-    """The one-lane extremes (:class:`ilkit.Extremes`) at the sections of the governing Strength I values: the
-    largest and the smallest moment, shear and reaction along the girder (one section may give two)."""
-    rows = factored.frame[factored.frame["limit_state"] == "Strength I"]
-    picks: dict[tuple[str, float, str], Any] = {}
-    for quantity in ("moment", "shear", "reaction"):
-        part = rows[rows["quantity"] == quantity]
-        # the first of equal values (to 0.001): the same section on every machine
-        for row in (part.loc[part["max"].round(3).idxmax()], part.loc[part["min"].round(3).idxmin()]):
-            key = (quantity, float(row["x"]), str(row["side"]))
-            if key not in picks:
-                picks[key] = live.extremes(quantity, row["x"], side=row["side"] or None)
-    return list(picks.values())
 
 
 def write_composite_girder_sheet(directory: str | Path) -> CalculationSheet:
