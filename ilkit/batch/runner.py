@@ -33,11 +33,12 @@ from pathlib import Path
 from typing import TYPE_CHECKING, Any
 
 from ilkit._check import whole
+from ilkit._display import RichDisplay
 from ilkit._files import make_folder, write_file
 from ilkit.batch._parquet import need_pyarrow, read_table, write_tables
 from ilkit.batch.inventory import Inventory, Record, read_inventory
 from ilkit.batch.tasks import EnvelopeTask, GirderTask
-from ilkit.errors import BatchInputError, MissingDependencyError
+from ilkit.errors import BatchInputError, IlkitError, MissingDependencyError
 
 if TYPE_CHECKING:  # pragma: no cover
     import pandas as pd
@@ -59,16 +60,19 @@ DIED = "the worker process ended while computing this girder (killed, or out of 
 
 
 @dataclass(frozen=True)
-class BatchResult:
+class BatchResult(RichDisplay):
     """A finished batch run: where its tables are and what happened.
 
-    ``computed``: girders computed by this call; ``skipped``: girders found done in the folder (a resumed
-    run); ``failed``: girders whose task raised (error rows); ``invalid``: records that did not validate.
-    Read the tables with :meth:`results` and :meth:`summary` (pandas DataFrames).
+    ``task``: the per-girder task (``None`` when a reopened run's task cannot be rebuilt from its
+    settings); ``settings``: its description.  ``computed``: girders computed by this call; ``skipped``:
+    girders found done in the folder (a resumed run); ``failed``: girders whose task raised (error rows);
+    ``invalid``: records that did not validate.  Read the tables with :meth:`results` and :meth:`summary`
+    (pandas DataFrames); :meth:`compute` gives one girder's design objects again, for its sheet.
     """
 
     folder: Path
-    task: Mapping[str, Any]
+    task: GirderTask | None = field(repr=False)
+    settings: Mapping[str, Any] = field(repr=False)
     computed: int = 0
     skipped: int = 0
     failed: int = 0
@@ -112,6 +116,16 @@ class BatchResult:
             raise BatchInputError("record: this result has no inventory; open it with open_run(folder).",
                                   field="inventory")
         return self.inventory.record(girder)
+
+    def compute(self, girder: str) -> list[tuple[str, str, Any]]:
+        """One girder's design results again (``(load, kind, result)``: :class:`~ilkit.design.LiveEnvelope`
+        and :class:`~ilkit.design.FactoredEnvelope` objects for the envelope task), computed from its record:
+        the objects behind its rows, with their placements, for drawings and sheets."""
+        compute = getattr(self.task, "compute", None)
+        if compute is None:
+            raise BatchInputError("compute: this run's task cannot be computed again here (its settings: "
+                                  f"{dict(self.settings)}).", field="task")
+        return compute(self.record(girder))
 
     def __repr__(self) -> str:
         return (f"BatchResult({str(self.folder)!r}: {self.computed} computed, {self.skipped} skipped, "
@@ -205,7 +219,7 @@ def run(
         if bar is not None:
             bar.close()
     all_failed = _assemble(folder, inv, current)
-    return BatchResult(folder, described, computed=len(todo), skipped=skipped, failed=all_failed,
+    return BatchResult(folder, task, described, computed=len(todo), skipped=skipped, failed=all_failed,
                        invalid=len(inv.errors), inventory=inv)
 
 
@@ -220,7 +234,14 @@ def open_run(out: str | os.PathLike[str]) -> BatchResult:
                               value=str(folder)) from None
     inv = read_inventory(records)
     summary = read_table(folder / _SUMMARY)
-    return BatchResult(folder, described, failed=int((summary["status"] == "failed").sum()),
+    task = None
+    if described.get("task") == "envelope":
+        try:
+            task = EnvelopeTask(models=described["models"], limit_states=described["limit_states"],
+                                divisions=described["divisions"])
+        except (IlkitError, KeyError):  # a load model given as an object is not rebuilt from its description
+            task = None
+    return BatchResult(folder, task, described, failed=int((summary["status"] == "failed").sum()),
                        invalid=int((summary["status"] == "invalid").sum()), inventory=inv)
 
 
