@@ -58,3 +58,16 @@ def test_a_reopened_run_gives_the_same_sheet_numbers(result):
     rows = result.girder(RECORDS[0]["id"])
     frame = computed[0][2].frame
     assert rows["max"].tolist() == frame["max"].tolist()
+
+
+def test_the_demo_page_of_an_inventory_run(tmp_path):
+    from ilkit.views.inventory import write_inventory_demo
+
+    page = write_inventory_demo(tmp_path, 4, workers=1, progress=False)
+    text = page.read_text(encoding="utf-8")
+    assert page.name == "inventory_run.html" and "qualified engineer" in text
+    assert text.count("<img src=\"data:image/svg+xml;base64,") == 4
+    assert all(f"<td>G000{i}</td>" in text for i in range(1, 5))
+    assert (tmp_path / "inventory_run_summary.csv").read_text(encoding="utf-8").count("\nG000") == 4
+    again = batch.open_run(tmp_path / "inventory_run")
+    assert len(again.summary()) == 4

@@ -277,10 +277,11 @@ def _failed(record: Record, error: str, where: object, message: str) -> _Outcome
 
 
 def _batches(records: list[Record], slots: int, size: int) -> list[list[Record]]:
-    """Records in batches, in inventory order: about four batches per worker slot, at most ``size``."""
+    """Records in batches, in inventory order: about four batches per worker slot, at most ``size`` and at most
+    eight (the progress bar moves by a batch)."""
     if not records:
         return []
-    n = max(1, min(size, math.ceil(len(records) / (4 * max(slots, 1)))))
+    n = max(1, min(size, 8, math.ceil(len(records) / (4 * max(slots, 1)))))
     return [records[i:i + n] for i in range(0, len(records), n)]
 
 

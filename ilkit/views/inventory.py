@@ -9,13 +9,16 @@ No engineering here: every number is read from the run's tables or computed agai
 * :func:`plot_inventory`: a histogram of one governing value (the largest sagging moment of each
   girder ...) across the inventory, one set of bars per unit system;
 * :func:`write_girder_sheet`: one girder's calculation sheet (its beam, the load model and limit-state
-  envelopes of the run), named after its id (escaped: :func:`ilkit.batch.file_name`).
+  envelopes of the run), named after its id (escaped: :func:`ilkit.batch.file_name`);
+* :func:`write_inventory_demo`: the demo's inventory run (``make demo``): a generated inventory of our own,
+  its summary table and its histograms on a page that renders offline.
 """
 
 from __future__ import annotations
 
 import html
 import os
+from pathlib import Path
 from typing import TYPE_CHECKING, Any, Literal
 
 from ilkit._check import choice, whole
@@ -35,7 +38,7 @@ if TYPE_CHECKING:  # pragma: no cover
 
     from ilkit.views.report import CalculationSheet
 
-__all__ = ["plot_inventory", "write_girder_sheet"]
+__all__ = ["plot_inventory", "write_girder_sheet", "write_inventory_demo"]
 
 _WORDS = {("moment", "max"): "largest sagging moment", ("moment", "min"): "largest hogging moment",
           ("shear", "max"): "largest positive shear", ("shear", "min"): "largest negative shear",
@@ -130,3 +133,52 @@ def _display(result: BatchResult, include: Any = None, exclude: Any = None) -> d
                  + shown.head(10).to_html(index=False, float_format=lambda v: f"{v:.6g}"))
     parts.append(f"<p><em>{html.escape(CAUTION)}</em></p>")
     return {"text/plain": repr(result), "text/html": "\n".join(parts)}
+
+
+_DEMO_PLOTS = (("moment", "max"), ("moment", "min"), ("shear", "max"), ("reaction", "max"))
+
+
+def write_inventory_demo(out: str | os.PathLike[str], girders: int = 300, *, workers: int | None = None,
+                         progress: bool = True) -> Path:
+    """Run a generated inventory of ``girders`` girders of our own (:func:`ilkit.batch.sample_inventory`: 1 to
+    5 spans of 20 to 150 ft, kip-ft) under HL-93, Strength I and Service II at tenth points into
+    ``out/inventory_run/`` (the Parquet tables) and write ``out/inventory_run.html`` (the counts, histograms
+    of the governing values and the summary table; it renders offline) and ``out/inventory_run_summary.csv``;
+    returns the page.  A second call resumes the run (nothing is computed twice)."""
+    from ilkit._files import write_files
+    from ilkit.batch import run, sample_inventory
+    from ilkit.views import _doc
+
+    folder = Path(out)
+    n = whole(girders, what="write_inventory_demo: girders", field="girders", minimum=1, error=BatchInputError)
+    result = run(sample_inventory(n), folder / "inventory_run", models=["HL-93"],
+                 limit_states=["Strength I", "Service II"], workers=workers, progress=progress)
+    summary = result.summary()
+    figures = []
+    for quantity, extreme in _DEMO_PLOTS:
+        with style.context():
+            fig = style.new_figure(3.2)
+            plot_inventory(result, quantity, extreme, fig.add_subplot(), bins=30)
+            figures.append(f'<p><img src="{_doc.svg_data_uri(style.figure_svg(fig))}" '
+                           f'alt="{html.escape(_WORDS[(quantity, extreme)])} of each girder"></p>')
+    done = int((summary["status"] == "done").sum())
+    columns = ["girder", "status", "spans", "moment_max", "moment_max_x", "moment_max_load", "moment_min",
+               "moment_min_x", "moment_min_load", "shear_max", "shear_min", "reaction_max"]
+    page = (
+        "<!doctype html><html><head><meta charset='utf-8'><title>Inventory run: HL-93, Strength I, Service II"
+        "</title></head><body style='font-family: sans-serif; max-width: 60em; margin: 2em auto'>"
+        "<h1>Inventory run: HL-93, Strength I and Service II over a generated inventory</h1>"
+        f"<p><strong>Caution.</strong> {html.escape(CAUTION)}</p>"
+        f"<p>{len(summary)} girders of our own (invented: 1 to 5 continuous spans of 20 to 150 ft, kip and ft), "
+        f"{done} done, {result.failed} failed, {result.invalid} invalid; envelopes at tenth points of every span "
+        "(ilkit.batch.run). Governing values over every section, the HL-93 girder live load and the two limit "
+        "states; sagging moment positive, shear positive when the part left of the section is pushed up, "
+        "reactions upward. Tables: inventory_run/results.parquet, inventory_run/summary.parquet, "
+        "inventory_run_summary.csv.</p>"
+        + "".join(figures)
+        + summary[columns].to_html(index=False, float_format=lambda v: f"{v:.1f}")
+        + "</body></html>")
+    target = folder / "inventory_run.html"
+    write_files({target: page, folder / "inventory_run_summary.csv": summary.to_csv(index=False)},
+                what="write_inventory_demo")
+    return target
