@@ -1,8 +1,8 @@
 """API reference pages: one page per public name, one summary page per package.
 
 The public names are the ``__all__`` of ``ilkit``, ``ilkit.loads``, ``ilkit.design``, ``ilkit.trusses``,
-``ilkit.batch`` and ``ilkit.views``.  A name listed by several packages (``ilkit.AxleTrain`` is ``ilkit.loads.AxleTrain``) is
-documented once, in the most specific package, and the others link to it.
+``ilkit.batch`` and ``ilkit.views``.  A name listed by several packages (``ilkit.AxleTrain`` is
+``ilkit.loads.AxleTrain``) is documented once, in the most specific package, and the others link to it.
 """
 
 from __future__ import annotations

@@ -197,7 +197,11 @@ class Record:
         from ilkit import design
 
         out: list[PermanentLoad] = []
-        for i, item in enumerate(self.data.get("permanent", [])):
+        given = self.data.get("permanent", [])
+        if not isinstance(given, list):
+            raise InventoryError(f"permanent: give a list of loads, e.g. [{{name = 'deck', category = 'DC', intensity "
+                                 f"= 1.2}}], got {given!r}.", record=self.id, field="permanent", value=given)
+        for i, item in enumerate(given):
             where = f"permanent[{i}]"
             if not isinstance(item, Mapping):
                 raise InventoryError(f"{where}: give a table with name, category and intensity, load or settlement, "
