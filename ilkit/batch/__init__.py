@@ -1,7 +1,7 @@
 """Inventory scale: many girders under many load models or limit states, locally or on a Dask cluster.
 
 * :func:`read_inventory`: a girder inventory file of our own format (TOML, JSON, CSV, Parquet; see
-  :mod:`ilkit.batch.inventory` and the README), every record validated with the typed errors of
+  ``ilkit.batch.inventory`` and the README), every record validated with the typed errors of
   :class:`ilkit.Beam` and the design layer; a bad record is reported with its id and field.
 * :func:`run`: a per-girder task (:class:`EnvelopeTask`: live-load envelopes of load models and
   factored envelopes of limit states at tenth points) over every record, in local worker processes
@@ -20,7 +20,7 @@ from ilkit.batch.inventory import FIELDS, LIVE_MODELS, Inventory, Record, Record
 from ilkit.batch.names import file_name
 from ilkit.batch.runner import STATUS_COLUMNS, BatchResult, open_run, run
 from ilkit.batch.sample import sample_inventory
-from ilkit.batch.tasks import ROW_COLUMNS, EnvelopeTask, GirderResult, girder_results
+from ilkit.batch.tasks import ROW_COLUMNS, EnvelopeTask, GirderResult, GirderTask, girder_results
 
 __all__ = [
     "read_inventory",
@@ -35,6 +35,7 @@ __all__ = [
     "BatchResult",
     "EnvelopeTask",
     "GirderResult",
+    "GirderTask",
     "girder_results",
     "ROW_COLUMNS",
     "STATUS_COLUMNS",

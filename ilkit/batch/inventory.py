@@ -419,6 +419,8 @@ def validate_record(raw: Mapping[str, Any], index: int = 0, defaults: Mapping[st
                     getattr(err, "field", "")).startswith("distribution"):
                 _set_field(err, "live")
             raise
+    elif "lanes" in data or "multiple_presence" in data:  # the share, checked with a model the run may give
+        record.live_load(_models()["HL-93"]())
     else:
         record.distribution()
     record.resistance()

@@ -1,7 +1,7 @@
 """The batch runner: maps a per-girder task over an inventory, writes the results in chunks, resumes.
 
 No engineering here: the runner reads and validates the inventory, hands batches of records to the
-task (:mod:`ilkit.batch.tasks`) in worker processes, and keeps what comes back.
+task (``ilkit.batch.tasks``) in worker processes, and keeps what comes back.
 
 Output folder (``out``)::
 
@@ -159,7 +159,7 @@ def run(
         What to compute (:class:`~ilkit.batch.EnvelopeTask`): load models (``"HL-93"`` ...), limit
         states (``"Strength I"`` ...), parts per span (tenth points by default).
     task:
-        Another per-girder task instead (see :mod:`ilkit.batch.tasks`).
+        Another per-girder task instead (see ``ilkit.batch.tasks``).
     workers:
         Local worker processes; all cores by default; ``1`` runs in this process.
     client, scheduler:

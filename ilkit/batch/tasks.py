@@ -52,11 +52,17 @@ class GirderResult:
 
 
 class GirderTask(Protocol):
-    """What the runner needs of a task (see the module notes)."""
+    """What the runner needs of a per-girder task: ``describe()``, its settings as plain data (a resumed run
+    must have the same), and ``task(record)``, the girder's :class:`GirderResult` computed from the validated
+    record alone (values in the record's units, signs of :mod:`ilkit.model`)."""
 
-    def describe(self) -> dict[str, Any]: ...
+    def describe(self) -> dict[str, Any]:
+        """The task's settings as plain data (JSON-able)."""
+        ...
 
-    def __call__(self, record: Record) -> GirderResult: ...
+    def __call__(self, record: Record) -> GirderResult:
+        """One girder's rows and summary (record units, signs of :mod:`ilkit.model`)."""
+        ...
 
 
 def girder_results(record: Record, task: GirderTask) -> GirderResult:

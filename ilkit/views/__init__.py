@@ -36,7 +36,7 @@ and lane placements in :mod:`ilkit.views.factored_records`, drawn by
 :func:`plot_factored_envelope` (with the unfactored components underneath)
 and :func:`plot_transverse`.  Batch runs over a girder inventory (:mod:`ilkit.batch`):
 :func:`plot_inventory` (the spread of a governing value across the inventory) and
-:func:`write_girder_sheet` (one girder's sheet on demand), in :mod:`ilkit.views.inventory`.
+:func:`write_girder_sheet` (one girder's sheet on demand), in ``ilkit.views.inventory``.
 
 A new result type joins by registering with the dispatchers
 :func:`ilkit.views.display.mimebundle`, :func:`table`,
