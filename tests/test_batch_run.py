@@ -237,3 +237,10 @@ def test_a_girder_that_kills_its_worker_every_time_is_one_error_row(tmp_path):
     assert summary["status"].tolist() == ["done", "failed", "done"]
     assert summary.loc[1, "error"] == "WorkerDied" and "worker process ended" in summary.loc[1, "message"]
     assert set(result.results()["girder"]) == {records[0]["id"], records[2]["id"]}
+
+
+def test_a_task_must_describe_itself_and_take_a_record(tmp_path):
+    with pytest.raises(ilkit.BatchInputError, match="GirderTask"):
+        batch.run(SAMPLE[:1], tmp_path, task=len, progress=False)
+    with pytest.raises(ilkit.BatchInputError, match="not both"):
+        batch.run(SAMPLE[:1], tmp_path, task=batch.EnvelopeTask(models=["HL-93"]), models=["HL-93"])

@@ -183,6 +183,9 @@ def run(
                             limit_states=() if limit_states is None else limit_states, divisions=divisions)
     elif models is not None or limit_states is not None:
         raise BatchInputError("run: give a task, or models and limit_states, not both.", field="task", value=task)
+    elif not (callable(task) and callable(getattr(task, "describe", None))):
+        raise BatchInputError(f"run: a task has describe() and is called with one record (see GirderTask), got "
+                              f"{type(task).__name__} {task!r:.60}.", field="task", value=task)
     described = task.describe()
     size = whole(chunk_size, what="run: chunk_size", field="chunk_size", minimum=1, error=BatchInputError)
     if workers is not None:
@@ -209,7 +212,7 @@ def run(
                 failed += sum(o.status != "done" for o in outcomes)
                 if bar is not None:
                     bar.update(len(outcomes))
-                    bar.set_postfix(failed=failed, refresh=False)
+                    bar.set_postfix(failed=failed, invalid=len(inv.errors), refresh=False)
                 if len(chunk) >= size or (chunk and time.monotonic() - last > 60):
                     _write_chunk(folder, number, chunk)
                     number, chunk, last = number + 1, [], time.monotonic()
