@@ -183,3 +183,20 @@ def test_two_ids_never_share_a_file_name(tmp_path):
     ids = ["a/b", "a%2Fb", "a b", "a_b", ".x", "%2Ex", "é", "%C3%A9"]
     names = {batch.file_name(tmp_path, i).name for i in ids}
     assert len(names) == len(ids)
+
+
+def test_live_load_errors_name_the_record_field_they_come_from():
+    inv = batch.read_inventory([
+        {"id": "no dynamic factor", "units": "kN-m", "spans": [10], "live": {"model": "LM71"}},
+        {"id": "unknown argument", "units": "kN-m", "spans": [10], "live": {"model": "LM71", "speed": 3}},
+        {"id": "lanes", "units": "kN-m", "spans": [10], "live": "LM1", "lanes": 0},
+        {"id": "presence", "units": "kN-m", "spans": [10], "live": "LM1", "multiple_presence": -1},
+        {"id": "both", "units": "kN-m", "spans": [10], "live": "LM1", "lanes": 2,
+         "distribution": {"moment": 0.5}},
+        {"id": "share", "units": "kN-m", "spans": [10], "live": "LM1", "distribution": {"moment": -1}},
+    ])
+    fields = {e.id: e.field for e in inv.errors}
+    assert fields == {"no dynamic factor": "live.dynamic_factor", "unknown argument": "live", "lanes": "lanes",
+                      "presence": "multiple_presence", "both": "lanes", "share": fields["share"]}
+    assert fields["share"].startswith("distribution")
+    assert not inv.records

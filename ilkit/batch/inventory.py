@@ -150,7 +150,12 @@ def live_model(spec: object, *, field: str = "live", record: str | None = None) 
     if unknown:
         raise InventoryError(f"{field}: {name} takes no argument {unknown}; it takes {', '.join(known)}.",
                              record=record, field=field, value=unknown)
-    return factory(**arguments)
+    try:
+        return factory(**arguments)
+    except IlkitError as err:  # an argument of the model: named under the field
+        given = getattr(err, "field", None)
+        _set_field(err, f"{field}.{given}" if isinstance(given, str) and given in known else field)
+        raise
 
 
 @dataclass(frozen=True)
@@ -287,10 +292,10 @@ class Record:
                                  record=self.id, field="lanes", value=lanes)
         try:
             return GirderLiveLoad(model, distribution=distribution, lanes=_whole_text(lanes), multiple_presence=m)
-        except IlkitError as err:
-            if getattr(err, "field", None) in ("lanes", "multiple_presence") or m is not None:
-                _set_field(err, getattr(err, "field", None) if getattr(err, "field", None) in (
-                    "lanes", "multiple_presence") else "multiple_presence")
+        except IlkitError as err:  # named by the record's field it comes from
+            given = str(getattr(err, "field", None))
+            named = [f for f in ("lanes", "multiple_presence") if f in given]
+            _set_field(err, named[0] if named else ("multiple_presence" if given == "factors" else "live"))
             raise
 
     def resistance(self) -> dict[str, float]:
@@ -412,13 +417,7 @@ def validate_record(raw: Mapping[str, Any], index: int = 0, defaults: Mapping[st
             _prefix(err, f"permanent[{i}]")
             raise
     if "live" in data:
-        try:
-            record.live_load()
-        except IlkitError as err:
-            if getattr(err, "field", None) not in ("lanes", "multiple_presence", "distribution") and not str(
-                    getattr(err, "field", "")).startswith("distribution"):
-                _set_field(err, "live")
-            raise
+        record.live_load()
     elif "lanes" in data or "multiple_presence" in data:  # the share, checked with a model the run may give
         record.live_load(_models()["HL-93"]())
     else:
