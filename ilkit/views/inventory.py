@@ -93,9 +93,10 @@ def plot_inventory(
 
 def write_girder_sheet(result: BatchResult, girder: str, folder: str | os.PathLike[str]) -> CalculationSheet:
     """Write the calculation sheet of one girder of a run into ``folder``: its beam and the run's results for
-    it computed again from its record (the load models' envelopes with their placements, the factored
-    envelopes); the files are named after the girder's id, escaped so that they stay in ``folder``
-    (:func:`ilkit.batch.file_name`).  Returns the :class:`~ilkit.views.CalculationSheet`."""
+    it computed again from its record (for each load model the girder's live load and one lane's envelope
+    with its placements; the permanent effects and the factored envelopes of the limit states); the files
+    are named after the girder's id, escaped so that they stay in ``folder`` (:func:`ilkit.batch.file_name`).
+    Returns the :class:`~ilkit.views.CalculationSheet`."""
     from ilkit.views.report import write_calculation_sheet
 
     expect(result, BatchResult, what="write_girder_sheet", hint="give the result of ilkit.batch.run(...)")
@@ -104,7 +105,8 @@ def write_girder_sheet(result: BatchResult, girder: str, folder: str | os.PathLi
     beam = record.beam()
     loads = ", ".join(load for load, kind, _ in computed if kind == "load model")
     states = ", ".join(str(s) for s in result.settings.get("limit_states", []))
-    info = {"girder": girder, "inventory": result.inventory.source if result.inventory else "",
+    source = (result.inventory.source if result.inventory else "") or "records given in Python"
+    info = {"girder": girder, "inventory": source,
             "load models": loads or "-", "limit states": states or "-"}
     results: list[Any] = []
     for _, kind, found in computed:  # a load model: the girder's share, then one lane's envelope and placements
