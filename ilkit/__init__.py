@@ -13,6 +13,7 @@ from __future__ import annotations
 from typing import Any
 
 from ilkit.errors import (
+    BatchInputError,
     BeamInputError,
     DesignInputError,
     ExportError,
@@ -20,6 +21,7 @@ from ilkit.errors import (
     IlkitError,
     IllConditionedError,
     IndeterminateBeamError,
+    InventoryError,
     LoadInputError,
     MissingDependencyError,
     NoDerivationError,
@@ -90,6 +92,9 @@ __all__ = [
     "OutsideRangeError",
     "TrussInputError",
     "UnstableTrussError",
+    "InventoryError",
+    "BatchInputError",
+    "batch",
     # moving loads (published models: ilkit.loads)
     "AxleTrain",
     "TrainUniform",
@@ -116,8 +121,8 @@ def __getattr__(name: str) -> Any:
         from ilkit._symbols import x
 
         return x
-    if name in ("views", "design", "trusses"):
-        # drawings, derivations, tables and calculation sheets; design effects; trusses: loaded on first use
+    if name in ("views", "design", "trusses", "batch"):
+        # drawings, derivations, tables and calculation sheets; design effects; trusses; batch runs: on first use
         import importlib
 
         return importlib.import_module(f"ilkit.{name}")

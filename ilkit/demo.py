@@ -7,6 +7,8 @@
 * ``<name>.html``: the same rendered as a page (figures included, no kernel needed);
 * ``figures/<name>-<k>.png``: every figure;
 * ``_static/mathjax/``: the MathJax that typesets the pages' formulas;
+* ``inventory_run.html``, ``inventory_run_summary.csv``, ``inventory_run/``: a generated inventory of a few hundred
+  girders of our own run under HL-93 and two limit states (:mod:`ilkit.batch`);
 * ``index.html``: a page linking all of the above, with the engineering caution.
 
 Every page renders offline (a calculation package is archived and read on
@@ -42,8 +44,10 @@ def _missing(err: ImportError) -> Exception:
     )
 
 
-def run(out: Path, notebooks: Path | None = None) -> Path:
-    """Execute the notebooks and write the rendered results to ``out``; return the index page."""
+def run(out: Path, notebooks: Path | None = None, girders: int = 0) -> Path:
+    """Execute the notebooks and write the rendered results to ``out``; with ``girders``, also run a generated
+    inventory of that many girders (:func:`ilkit.views.inventory.write_inventory_demo`); return the index
+    page."""
     try:
         import nbformat
     except ImportError as err:  # pragma: no cover - exercised without the extra only
@@ -79,6 +83,13 @@ def run(out: Path, notebooks: Path | None = None) -> Path:
         entries.append((path.stem, title, count))
     for extra in _extra_outputs(out):
         entries.append(extra)
+    if girders:
+        from ilkit.views.inventory import write_inventory_demo
+
+        print(f"running an inventory of {girders} girders ...", flush=True)
+        page = write_inventory_demo(out, girders)
+        entries.append((page.name, f"Inventory run: {girders} generated girders under HL-93, Strength I and "
+                                   "Service II (summary table and histograms)", 0))
     index = out / "index.html"
     items = "\n".join(
         f'<li><a href="{html.escape(href)}">{html.escape(title)}</a>'
@@ -240,8 +251,10 @@ def main(argv: list[str] | None = None) -> int:
     parser.add_argument("--out", type=Path, default=Path("out/demo"), help="output folder (default out/demo)")
     parser.add_argument("--notebooks", type=Path, default=None,
                         help="folder of the notebooks to run (default: notebooks/ of this checkout)")
+    parser.add_argument("--girders", type=int, default=300,
+                        help="girders of the generated inventory run (default 300; 0 leaves it out)")
     args = parser.parse_args(argv)
-    index = run(args.out, notebooks=args.notebooks)
+    index = run(args.out, notebooks=args.notebooks, girders=args.girders)
     print(f"\nDemo study written to {args.out.resolve()}")
     print(f"Open {index.resolve()} in a browser.")
     return 0

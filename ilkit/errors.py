@@ -28,6 +28,8 @@ __all__ = [
     "OutsideRangeError",
     "TrussInputError",
     "UnstableTrussError",
+    "InventoryError",
+    "BatchInputError",
 ]
 
 
@@ -297,3 +299,41 @@ class UnstableTrussError(IlkitError):
         self.joints = joints
         self.members = members
         self.motions = motions
+
+
+class InventoryError(_InputError):
+    """A record of a girder inventory (:mod:`ilkit.batch`) has a field that cannot be used, or the
+    inventory file itself cannot be read.
+
+    The errors of the girder's beam, loads and live load keep their own types
+    (:class:`BeamInputError`, :class:`UnstableBeamError`, :class:`UnitsError`,
+    :class:`LoadInputError` ...); this one covers what only an inventory has:
+    a missing or repeated id, an unknown field, a field of the wrong form.
+
+    Attributes
+    ----------
+    record:
+        The id of the record at fault (``None`` for the file as a whole).
+    field:
+        The field at fault (``"spans"``, ``"permanent[2].intensity"`` ...).
+    value:
+        The offending value as given.
+    """
+
+    def __init__(self, message: str, *, record: str | None = None, field: str | None = None,
+                 value: object = None) -> None:
+        super().__init__(message, field=field, value=value)
+        self.record = record
+
+
+class BatchInputError(_InputError):
+    """A batch run (:func:`ilkit.batch.run`) was asked with an argument that cannot be used: an unknown
+    load model or limit state, a bad number of workers, an output folder that holds another run's results.
+
+    Attributes
+    ----------
+    field:
+        The argument at fault (``"models"``, ``"workers"``, ``"out"`` ...).
+    value:
+        The offending value as given.
+    """

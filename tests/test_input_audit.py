@@ -22,7 +22,17 @@ from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
 import ilkit
-from ilkit import BeamInputError, IlkitError, IllConditionedError, LoadInputError, Quantity, Spring, Support, trusses
+from ilkit import (
+    BeamInputError,
+    IlkitError,
+    IllConditionedError,
+    LoadInputError,
+    Quantity,
+    Spring,
+    Support,
+    batch,
+    trusses,
+)
 from ilkit.design import (
     Applied,
     CrossSection,
@@ -699,6 +709,38 @@ ENTRY_POINTS = {
     "truss.reaction": lambda v: _TRUSS.reaction(v),
     "member_envelope load": lambda v: trusses.member_envelope(_TRUSS, v),
     "MemberEnvelope.extreme": lambda v: _TRUSS_ENVELOPE.extreme(v),
+    "inventory record": lambda v: batch.validate_record(v),
+    "inventory id": lambda v: batch.validate_record({"id": v, "units": "kN-m", "spans": [10]}),
+    "inventory units": lambda v: batch.validate_record({"id": "g", "units": v, "spans": [10]}),
+    "inventory spans": lambda v: batch.validate_record({"id": "g", "units": "kN-m", "spans": v}),
+    "inventory span": lambda v: batch.validate_record({"id": "g", "units": "kN-m", "spans": [10, v]}),
+    "inventory supports": lambda v: batch.validate_record({"id": "g", "units": "kN-m", "length": 10, "supports": v}),
+    "inventory EI": lambda v: batch.validate_record({"id": "g", "units": "kN-m", "spans": [10], "EI": v}),
+    "inventory EI range": lambda v: batch.validate_record({"id": "g", "units": "kN-m", "spans": [10], "EI": [v]}),
+    "inventory live": lambda v: batch.validate_record({"id": "g", "units": "kN-m", "spans": [10], "live": v}),
+    "inventory live argument": lambda v: batch.validate_record(
+        {"id": "g", "units": "kN-m", "spans": [10], "live": {"model": "LM71", "dynamic_factor": v}}),
+    "inventory distribution": lambda v: batch.validate_record(
+        {"id": "g", "units": "kN-m", "spans": [10], "live": "LM1", "distribution": v}),
+    "inventory distribution moment": lambda v: batch.validate_record(
+        {"id": "g", "units": "kN-m", "spans": [10], "live": "LM1", "distribution": {"moment": v}}),
+    "inventory lanes": lambda v: batch.validate_record(
+        {"id": "g", "units": "kN-m", "spans": [10], "live": "LM1", "lanes": v}),
+    "inventory permanent": lambda v: batch.validate_record({"id": "g", "units": "kN-m", "spans": [10], "permanent": v}),
+    "inventory permanent load": lambda v: batch.validate_record(
+        {"id": "g", "units": "kN-m", "spans": [10], "permanent": [v]}),
+    "inventory permanent intensity": lambda v: batch.validate_record(
+        {"id": "g", "units": "kN-m", "spans": [10], "permanent": [{"name": "d", "category": "DC", "intensity": v}]}),
+    "inventory permanent at": lambda v: batch.validate_record(
+        {"id": "g", "units": "kN-m", "spans": [10], "permanent": [{"name": "d", "category": "DC", "load": 1,
+                                                                   "at": v}]}),
+    "inventory resistance": lambda v: batch.validate_record({"id": "g", "units": "kN-m", "spans": [10],
+                                                             "resistance": v}),
+    "read_inventory": lambda v: batch.read_inventory(v),
+    "EnvelopeTask models": lambda v: batch.EnvelopeTask(models=v),
+    "EnvelopeTask limit_states": lambda v: batch.EnvelopeTask(limit_states=v),
+    "EnvelopeTask divisions": lambda v: batch.EnvelopeTask(divisions=v),
+    "batch file_name": lambda v: batch.file_name("sheets", v),
 }
 
 

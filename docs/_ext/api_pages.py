@@ -1,8 +1,8 @@
 """API reference pages: one page per public name, one summary page per package.
 
-The public names are the ``__all__`` of ``ilkit``, ``ilkit.loads``, ``ilkit.design``, ``ilkit.trusses`` and
-``ilkit.views``.  A name listed by several packages (``ilkit.AxleTrain`` is ``ilkit.loads.AxleTrain``) is
-documented once, in the most specific package, and the others link to it.
+The public names are the ``__all__`` of ``ilkit``, ``ilkit.loads``, ``ilkit.design``, ``ilkit.trusses``,
+``ilkit.batch`` and ``ilkit.views``.  A name listed by several packages (``ilkit.AxleTrain`` is
+``ilkit.loads.AxleTrain``) is documented once, in the most specific package, and the others link to it.
 """
 
 from __future__ import annotations
@@ -15,9 +15,9 @@ import sys
 from functools import cache
 from typing import Any
 
-PACKAGES = ("ilkit", "ilkit.loads", "ilkit.design", "ilkit.trusses", "ilkit.views")
+PACKAGES = ("ilkit", "ilkit.loads", "ilkit.design", "ilkit.trusses", "ilkit.batch", "ilkit.views")
 PAGE = {"ilkit": "ilkit", "ilkit.loads": "loads", "ilkit.design": "design", "ilkit.trusses": "trusses",
-        "ilkit.views": "views"}
+        "ilkit.batch": "batch", "ilkit.views": "views"}
 
 # groups of a package's summary, by the module that defines a name (first match wins)
 GROUPS: tuple[tuple[str, str], ...] = (
@@ -51,6 +51,12 @@ GROUPS: tuple[tuple[str, str], ...] = (
     ("ilkit.trusses.statics", "The truss"),
     ("ilkit.trusses.lines", "Influence lines of a truss"),
     ("ilkit.trusses.envelope", "Member envelopes"),
+    ("ilkit.batch.inventory", "Inventories"),
+    ("ilkit.batch.names", "Inventories"),
+    ("ilkit.batch.sample", "Inventories"),
+    ("ilkit.batch.tasks", "Per-girder tasks"),
+    ("ilkit.batch.runner", "Batch runs"),
+    ("ilkit.views.inventory", "Batch runs"),
     ("ilkit.views.truss", "Drawings"),
     ("ilkit.views.draw", "Drawings"),
     ("ilkit.views.plot", "Drawings"),
@@ -65,6 +71,7 @@ GROUPS: tuple[tuple[str, str], ...] = (
     ("ilkit.loads", "Subpackages"),
     ("ilkit.design", "Subpackages"),
     ("ilkit.trusses", "Subpackages"),
+    ("ilkit.batch", "Subpackages"),
     ("ilkit", "Other names"),
 )
 

@@ -34,7 +34,9 @@ displays and sheet sections in :mod:`ilkit.views.moving_records`; design results
 :func:`plot_deflection_check`; factored envelopes, distributions, limit states
 and lane placements in :mod:`ilkit.views.factored_records`, drawn by
 :func:`plot_factored_envelope` (with the unfactored components underneath)
-and :func:`plot_transverse`.
+and :func:`plot_transverse`.  Batch runs over a girder inventory (:mod:`ilkit.batch`):
+:func:`plot_inventory` (the spread of a governing value across the inventory) and
+:func:`write_girder_sheet` (one girder's sheet on demand), in ``ilkit.views.inventory``.
 
 A new result type joins by registering with the dispatchers
 :func:`ilkit.views.display.mimebundle`, :func:`table`,
@@ -50,6 +52,7 @@ from ilkit.views.draw import draw_beam
 from ilkit.views.explorer import Explorer
 from ilkit.views.factored_plots import plot_factored_envelope, plot_transverse
 from ilkit.views.formula import formula
+from ilkit.views.inventory import plot_inventory, write_girder_sheet
 from ilkit.views.moving import plot_envelope, plot_placement
 from ilkit.views.plot import plot_line
 from ilkit.views.report import CalculationSheet, TitleBlock, write_calculation_sheet
@@ -75,6 +78,8 @@ __all__ = [
     "TitleBlock",
     "Explorer",
     "plot_envelope",
+    "plot_inventory",
+    "write_girder_sheet",
     "plot_placement",
     "plot_permanent_effects",
     "plot_deflection_check",

@@ -1,0 +1,186 @@
+"""Views of a batch run over a girder inventory (:func:`ilkit.batch.run`): the summary, the spread of the
+governing values across the inventory, one girder's calculation sheet on demand.
+
+No engineering here: every number is read from the run's tables or computed again by its task.
+
+* ``views.table(result)``: the summary (one row per girder; :meth:`ilkit.batch.BatchResult.summary`);
+  in a notebook a :class:`~ilkit.batch.BatchResult` shows its counts, the girders not done and the
+  first rows of the summary;
+* :func:`plot_inventory`: a histogram of one governing value (the largest sagging moment of each
+  girder ...) across the inventory, one set of bars per unit system;
+* :func:`write_girder_sheet`: one girder's calculation sheet (its beam, the load model and limit-state
+  envelopes of the run), named after its id (escaped: :func:`ilkit.batch.file_name`);
+* :func:`write_inventory_demo`: the demo's inventory run (``make demo``): a generated inventory of our own,
+  its summary table and its histograms on a page that renders offline.
+"""
+
+from __future__ import annotations
+
+import html
+import os
+from pathlib import Path
+from typing import TYPE_CHECKING, Any, Literal
+
+from ilkit._check import choice, whole
+from ilkit.batch.names import file_name
+from ilkit.batch.runner import STATUS_COLUMNS, BatchResult
+from ilkit.batch.tasks import QUANTITIES
+from ilkit.errors import BatchInputError
+from ilkit.views import style
+from ilkit.views._args import axes_or_none, expect
+from ilkit.views.caution import CAUTION
+from ilkit.views.display import mimebundle
+from ilkit.views.tables import table
+
+if TYPE_CHECKING:  # pragma: no cover
+    import pandas as pd
+    from matplotlib.axes import Axes
+
+    from ilkit.views.report import CalculationSheet
+
+__all__ = ["plot_inventory", "write_girder_sheet", "write_inventory_demo"]
+
+_WORDS = {("moment", "max"): "largest sagging moment", ("moment", "min"): "largest hogging moment",
+          ("shear", "max"): "largest positive shear", ("shear", "min"): "largest negative shear",
+          ("reaction", "max"): "largest reaction", ("reaction", "min"): "smallest reaction"}
+_UNITS = {"moment": "moment", "shear": "force", "reaction": "force"}
+
+
+def _unit(system: str, quantity: str) -> str:
+    from ilkit.units import SYSTEMS
+
+    found = SYSTEMS.get(system)
+    return getattr(found, _UNITS[quantity]) if found is not None else ""
+
+
+def plot_inventory(
+    result: BatchResult,
+    quantity: Literal["moment", "shear", "reaction"] = "moment",
+    extreme: Literal["max", "min"] = "max",
+    ax: Axes | None = None,
+    *,
+    bins: int = 30,
+) -> Axes:
+    """Histogram of the governing ``extreme`` of ``quantity`` of each girder done (the summary's
+    ``{quantity}_{extreme}``, over every load and section of the run), one set of bars per unit system
+    (values are not converted); returns the axes.  Sagging moment positive, shear and reactions as in
+    :mod:`ilkit.model`."""
+    expect(result, BatchResult, what="plot_inventory", hint="give the result of ilkit.batch.run(...)")
+    choice(quantity, QUANTITIES, what="plot_inventory: quantity", field="quantity", error=BatchInputError)
+    choice(extreme, ("max", "min"), what="plot_inventory: extreme", field="extreme", error=BatchInputError)
+    n = whole(bins, what="plot_inventory: bins", field="bins", minimum=1, error=BatchInputError)
+    axes_or_none(ax, what="plot_inventory")
+    summary = result.summary()
+    done = summary[summary["status"] == "done"]
+    column = f"{quantity}_{extreme}"
+    with style.context():
+        ax = style.axes(ax, 3.2)
+        groups = list(done.groupby("units", sort=True)) if not done.empty else []
+        for system, part in groups:
+            values = part[column].to_numpy(dtype=float)
+            unit = _unit(str(system), quantity)
+            ax.hist(values, bins=n, alpha=0.75 if len(groups) > 1 else 1.0,
+                    label=f"{system}: {len(values)} girders ({unit})")
+        units = sorted({_unit(str(s), quantity) for s, _ in groups})
+        ax.set_xlabel(f"{_WORDS[(quantity, extreme)]} of each girder" + (f" ({units[0]})" if len(units) == 1 else ""))
+        ax.set_ylabel("girders")
+        ax.set_title(f"{_WORDS[(quantity, extreme)].capitalize()} across the inventory: {len(done)} girders done, "
+                     f"{len(summary) - len(done)} not done", fontsize="medium")
+        if groups:
+            ax.legend(fontsize="small")
+    return ax
+
+
+def write_girder_sheet(result: BatchResult, girder: str, folder: str | os.PathLike[str]) -> CalculationSheet:
+    """Write the calculation sheet of one girder of a run into ``folder``: its beam and the run's results for
+    it computed again from its record (for each load model the girder's live load and one lane's envelope
+    with its placements; the permanent effects and the factored envelopes of the limit states); the files
+    are named after the girder's id, escaped so that they stay in ``folder`` (:func:`ilkit.batch.file_name`).
+    Returns the :class:`~ilkit.views.CalculationSheet`."""
+    from ilkit.views.report import write_calculation_sheet
+
+    expect(result, BatchResult, what="write_girder_sheet", hint="give the result of ilkit.batch.run(...)")
+    record = result.record(girder)
+    computed = result.compute(girder)
+    beam = record.beam()
+    loads = ", ".join(load for load, kind, _ in computed if kind == "load model")
+    states = ", ".join(str(s) for s in result.settings.get("limit_states", []))
+    source = (result.inventory.source if result.inventory else "") or "records given in Python"
+    info = {"girder": girder, "inventory": source,
+            "load models": loads or "-", "limit states": states or "-"}
+    results: list[Any] = []
+    for _, kind, found in computed:  # a load model: the girder's share, then one lane's envelope and placements
+        results += [found.live, found.lane] if kind == "load model" else [found.permanent, found]
+    return write_calculation_sheet(beam, file_name(folder, girder, ".html"), lines=[], results=results,
+                                   title=f"Girder {girder}", info=info)
+
+
+@table.register(BatchResult)
+def _summary_table(result: BatchResult, **_: Any) -> pd.DataFrame:
+    return result.summary()
+
+
+@mimebundle.register(BatchResult)
+def _display(result: BatchResult, include: Any = None, exclude: Any = None) -> dict[str, Any]:
+    summary = result.summary()
+    done = int((summary["status"] == "done").sum())
+    parts = [f"<p><strong>Batch run</strong> in <code>{html.escape(str(result.folder))}</code>: {len(summary)} "
+             f"girders, {done} done ({result.computed} computed now, {result.skipped} found done), "
+             f"{result.failed} failed, {result.invalid} invalid records.</p>"]
+    errors = summary[summary["status"] != "done"][list(STATUS_COLUMNS)]
+    if not errors.empty:
+        parts.append("<p>Girders not done:</p>" + errors.head(20).to_html(index=False))
+    shown = summary[summary["status"] == "done"].drop(columns=["status", "error", "field", "message"])
+    parts.append("<p>Summary (first rows; <code>result.summary()</code> has them all):</p>"
+                 + shown.head(10).to_html(index=False, float_format=lambda v: f"{v:.6g}"))
+    parts.append(f"<p><em>{html.escape(CAUTION)}</em></p>")
+    return {"text/plain": repr(result), "text/html": "\n".join(parts)}
+
+
+_DEMO_PLOTS = (("moment", "max"), ("moment", "min"), ("shear", "max"), ("reaction", "max"))
+
+
+def write_inventory_demo(out: str | os.PathLike[str], girders: int = 300, *, workers: int | None = None,
+                         progress: bool = True) -> Path:
+    """Run a generated inventory of ``girders`` girders of our own (:func:`ilkit.batch.sample_inventory`: 1 to
+    5 spans of 20 to 150 ft, kip-ft) under HL-93, Strength I and Service II at tenth points into
+    ``out/inventory_run/`` (the Parquet tables) and write ``out/inventory_run.html`` (the counts, histograms
+    of the governing values and the summary table; it renders offline) and ``out/inventory_run_summary.csv``;
+    returns the page.  A second call resumes the run (nothing is computed twice)."""
+    from ilkit._files import write_files
+    from ilkit.batch import run, sample_inventory
+    from ilkit.views import _doc
+
+    folder = Path(out)
+    n = whole(girders, what="write_inventory_demo: girders", field="girders", minimum=1, error=BatchInputError)
+    result = run(sample_inventory(n), folder / "inventory_run", models=["HL-93"],
+                 limit_states=["Strength I", "Service II"], workers=workers, progress=progress)
+    summary = result.summary()
+    figures = []
+    for quantity, extreme in _DEMO_PLOTS:
+        with style.context():
+            fig = style.new_figure(3.2)
+            plot_inventory(result, quantity, extreme, fig.add_subplot(), bins=30)
+            figures.append(f'<p><img src="{_doc.svg_data_uri(style.figure_svg(fig))}" '
+                           f'alt="{html.escape(_WORDS[(quantity, extreme)])} of each girder"></p>')
+    done = int((summary["status"] == "done").sum())
+    columns = ["girder", "status", "spans", "moment_max", "moment_max_x", "moment_max_load", "moment_min",
+               "moment_min_x", "moment_min_load", "shear_max", "shear_min", "reaction_max"]
+    page = (
+        "<!doctype html><html><head><meta charset='utf-8'><title>Inventory run: HL-93, Strength I, Service II"
+        "</title></head><body style='font-family: sans-serif; max-width: 60em; margin: 2em auto'>"
+        "<h1>Inventory run: HL-93, Strength I and Service II over a generated inventory</h1>"
+        f"<p><strong>Caution.</strong> {html.escape(CAUTION)}</p>"
+        f"<p>{len(summary)} girders of our own (invented: 1 to 5 continuous spans of 20 to 150 ft, kip and ft), "
+        f"{done} done, {result.failed} failed, {result.invalid} invalid; envelopes at tenth points of every span "
+        "(ilkit.batch.run). Governing values over every section, the HL-93 girder live load and the two limit "
+        "states; sagging moment positive, shear positive when the part left of the section is pushed up, "
+        "reactions upward. Tables: inventory_run/results.parquet, inventory_run/summary.parquet, "
+        "inventory_run_summary.csv.</p>"
+        + "".join(figures)
+        + summary[columns].to_html(index=False, float_format=lambda v: f"{v:.1f}")
+        + "</body></html>")
+    target = folder / "inventory_run.html"
+    write_files({target: page, folder / "inventory_run_summary.csv": summary.to_csv(index=False)},
+                what="write_inventory_demo")
+    return target
