@@ -17,6 +17,7 @@
 from __future__ import annotations
 
 import math
+import sys
 from fractions import Fraction
 
 import numpy as np
@@ -89,10 +90,12 @@ def test_determinate_lines_are_exact_where_the_member_length_is_rational(truss):
         assert line.is_exact == rational
         if not rational:  # exact force density times the length, rounded once
             t = line.origin.density
+            # evaluating a straight piece at its end rounds once or twice relative to the ordinates it joins
+            scale = max(1.0, *(abs(v) for v in line.origin.ordinates))
             for k in range(len(truss.deck)):
                 assert line.origin.ordinates[k] == float(t[k]) * math.sqrt(square)
                 assert math.isclose(at_panel_point(truss, line, k), line.origin.ordinates[k], rel_tol=1e-14,
-                                    abs_tol=1e-14)
+                                    abs_tol=4 * sys.float_info.epsilon * scale)
 
 
 @settings(max_examples=examples(40))
