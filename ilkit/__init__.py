@@ -22,9 +22,11 @@ from ilkit.errors import (
     IndeterminateBeamError,
     LoadInputError,
     MissingDependencyError,
+    MissingResistanceError,
     NoDerivationError,
     OutsideRangeError,
     PlacementTooLargeError,
+    RatingInputError,
     SideRequiredError,
     StiffnessRequiredError,
     TrussInputError,
@@ -80,6 +82,7 @@ __all__ = [
     "NoDerivationError",
     "views",
     "design",
+    "rating",
     "trusses",
     "LoadInputError",
     "ExportError",
@@ -88,6 +91,8 @@ __all__ = [
     "DesignInputError",
     "FactorAppliedTwiceError",
     "OutsideRangeError",
+    "RatingInputError",
+    "MissingResistanceError",
     "TrussInputError",
     "UnstableTrussError",
     # moving loads (published models: ilkit.loads)
@@ -116,8 +121,9 @@ def __getattr__(name: str) -> Any:
         from ilkit._symbols import x
 
         return x
-    if name in ("views", "design", "trusses"):
-        # drawings, derivations, tables and calculation sheets; design effects; trusses: loaded on first use
+    if name in ("views", "design", "rating", "trusses"):
+        # drawings, derivations, tables and calculation sheets; design effects; load rating; trusses: loaded
+        # on first use
         import importlib
 
         return importlib.import_module(f"ilkit.{name}")
