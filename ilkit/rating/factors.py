@@ -33,11 +33,11 @@ from typing import Literal, get_args
 
 from ilkit._check import choice
 from ilkit._exact import fmt
-from ilkit.design._inputs import amount
 from ilkit.design.combinations import LimitState
 from ilkit.design.factors import Factor
 from ilkit.design.lanes import AASHTO_LRFD
 from ilkit.errors import RatingInputError
+from ilkit.rating._inputs import amount
 from ilkit.rating.vehicles import MBE
 
 __all__ = [

@@ -33,7 +33,6 @@ from typing import TYPE_CHECKING, Any, Literal
 from ilkit._check import choice
 from ilkit._display import RichDisplay
 from ilkit._exact import fmt
-from ilkit.design._inputs import amount
 from ilkit.design.factors import Applied, Factor
 from ilkit.design.lanes import in_feet
 from ilkit.design.permanent import PermanentEffects
@@ -43,6 +42,7 @@ from ilkit.loads.combination import LoadModel
 from ilkit.loads.models import ALPHA_VALUES, cooper, lm71, phi2, phi3, sw0
 from ilkit.loads.placement import extremes_of
 from ilkit.model import Beam
+from ilkit.rating._inputs import amount
 from ilkit.rating.resistance import Resistances
 
 if TYPE_CHECKING:  # pragma: no cover

@@ -26,9 +26,9 @@ from typing import Any, Literal
 
 from ilkit._check import choice, listed
 from ilkit._exact import fmt
-from ilkit.design._inputs import amount
 from ilkit.design.factors import Factor
 from ilkit.errors import DesignInputError, MissingResistanceError, RatingInputError
+from ilkit.rating._inputs import amount
 
 __all__ = ["Resistances", "RESISTANCE_KINDS"]
 
@@ -188,6 +188,8 @@ class Resistances:
         Raises :class:`~ilkit.MissingResistanceError` where none is given for the section."""
         choice(action, ("moment", "shear"), what="nominal: action", field="action", error=RatingInputError)
         choice(sense, ("positive", "negative"), what="nominal: sense", field="sense", error=RatingInputError)
+        choice(side, ("left", "right"), what="nominal: side", field="side", error=RatingInputError, optional=True)
+        x = amount(x, "nominal: x", minimum=None)
         kind = "shear" if action == "shear" else f"{sense} moment"
         value = self.given.get(kind)
         where = f"x={fmt(round(float(x), 9))}" + (f" ({side} face)" if side else "")
