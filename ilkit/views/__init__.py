@@ -36,7 +36,7 @@ and lane placements in :mod:`ilkit.views.factored_records`, drawn by
 :func:`plot_factored_envelope` (with the unfactored components underneath)
 and :func:`plot_transverse`; load ratings (:mod:`ilkit.rating`) in :mod:`ilkit.views.rating_records`, drawn by
 :func:`plot_rating` and :func:`plot_rail_rating`, written as a rating sheet (HTML, Markdown and PDF) by
-:func:`write_rating_sheet`.
+:func:`write_rating_sheet`, explored with :class:`RatingView` (pick a vehicle, move it, watch the RF).
 
 A new result type joins by registering with the dispatchers
 :func:`ilkit.views.display.mimebundle`, :func:`table`,
@@ -56,6 +56,7 @@ from ilkit.views.moving import plot_envelope, plot_placement
 from ilkit.views.plot import plot_line
 from ilkit.views.rating_plots import plot_rail_rating, plot_rating
 from ilkit.views.rating_records import RatingSheet, write_rating_sheet
+from ilkit.views.rating_view import RatingView
 from ilkit.views.report import CalculationSheet, TitleBlock, write_calculation_sheet
 from ilkit.views.sketch import sketch
 from ilkit.views.tables import plain_names, summary, table, to_csv, to_excel, to_latex
@@ -88,6 +89,7 @@ __all__ = [
     "plot_rail_rating",
     "write_rating_sheet",
     "RatingSheet",
+    "RatingView",
     "draw_truss",
     "plot_member_forces",
 ]
