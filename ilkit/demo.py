@@ -216,8 +216,8 @@ def _page_exporter(mathjax_url: str) -> Any:
 
 def _extra_outputs(out: Path) -> list[tuple[str, str, int]]:
     """Further demo outputs written by the views layer: calculation sheets of two notebook girders and of the
-    notebook's through truss."""
-    from ilkit.views.demo import write_demo_sheet, write_highway_sheet, write_truss_sheet
+    notebook's through truss, and the rating sheet of the rated girder."""
+    from ilkit.views.demo import write_demo_sheet, write_highway_sheet, write_rating_demo_sheet, write_truss_sheet
 
     entries = []
     for write, title in (
@@ -225,10 +225,15 @@ def _extra_outputs(out: Path) -> list[tuple[str, str, int]]:
         (write_highway_sheet, "Calculation sheet of the continuous highway girder under HL-93 (placements, "
                               "envelope)"),
         (write_truss_sheet, "Calculation sheet of the Pratt through truss under HL-93 (member forces)"),
+        (write_rating_demo_sheet, "Rating sheet of the three-span steel girder with a corroded span (design, "
+                                  "legal, emergency and permit loads)"),
     ):
         sheet = write(out)
-        print(f"wrote {sheet.html.name} and {sheet.markdown.name} ...", flush=True)
-        entries.append((sheet.html.name, f"{title} (Markdown version: {sheet.markdown.name})", 0))
+        pdf = getattr(sheet, "pdf", None)
+        print(f"wrote {sheet.html.name} and {sheet.markdown.name}{f' and {pdf.name}' if pdf else ''} ...",
+              flush=True)
+        also = f", PDF: {pdf.name}" if pdf else ""
+        entries.append((sheet.html.name, f"{title} (Markdown version: {sheet.markdown.name}{also})", 0))
     return entries
 
 
