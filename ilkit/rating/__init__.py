@@ -19,7 +19,6 @@ from ilkit.rating.factors import (
     CONDITION_FACTORS,
     PHI_CS_MINIMUM,
     SYSTEM_FACTORS,
-    PermitKind,
     condition_factor,
     design_live_factor,
     emergency_live_factor,
@@ -32,7 +31,6 @@ from ilkit.rating.factors import (
 from ilkit.rating.lrfr import (
     LEGAL_SET,
     GirderRating,
-    RatingLevel,
     RatingLoad,
     StandingRating,
     design_load,
@@ -71,7 +69,6 @@ __all__ = [
     "Resistances",
     "RESISTANCE_KINDS",
     "RatingLoad",
-    "RatingLevel",
     "design_load",
     "legal_load",
     "permit_load",
@@ -98,7 +95,6 @@ __all__ = [
     "legal_live_factor",
     "emergency_live_factor",
     "permit_live_factor",
-    "PermitKind",
     "rating_limit_state",
     "posting_load",
     # rail

@@ -98,7 +98,7 @@ def determinant_length(beam: Beam) -> float:
 
     A single span: its length.  A girder continuous over n spans: LΦ = k · Lm, Lm the mean span and k = 1.2,
     1.3, 1.4 for 2, 3, 4 spans and 1.5 for five or more, but not less than the longest span.  Overhangs are
-    not spans here.
+    not spans here.  A length: positive, of no sign convention.
     """
     if not isinstance(beam, Beam):
         raise RatingInputError(f"determinant_length: give a Beam, got {type(beam).__name__}.", field="beam")
