@@ -287,3 +287,13 @@ def test_bad_rating_input_names_the_fix(permanent):
         rating.condition_factor("excellent")
     with pytest.raises(RatingInputError):
         rating.Resistances()
+
+
+def test_the_rating_core_imports_no_plotting_widgets_or_pdf():
+    import subprocess
+    import sys
+
+    code = ("import sys, ilkit.rating; "
+            "print([m for m in ('matplotlib', 'ipywidgets', 'weasyprint', 'ilkit.views') if m in sys.modules])")
+    out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True)
+    assert out.stdout.strip() == "[]"

@@ -272,7 +272,8 @@ class RatingView:
         where = html.escape(self._label(self._section))
         share = "with IM and the girder's share" + ("" if self._at_worst else "; axles only")
         self.readout.value = (
-            f"<div class='ilkit-rating-readout'><b>RF = {self._rf_text(st.rf)}</b> at {where} ({self.quantity.value},"
+            f"<div class='ilkit-rating-readout' data-rf='{st.rf!r}' data-front='{self.front!r}'>"
+            f"<b>RF = <span class='ilkit-rf'>{self._rf_text(st.rf)}</span></b> at {where} ({self.quantity.value},"
             f" {st.sense}) with {name}'s front at x = {short(self.front, 5)}: live effect "
             f"{short(st.live, 5)} {unit} ({share}), C = "
             f"{short(st.capacity, 5)} {unit}, Σγp P = {short(st.dead, 5)} {unit}. "
