@@ -52,6 +52,7 @@ from ilkit.loads.primitives import AxleTrain
 from ilkit.loads.standing import stand
 from ilkit.model import Beam
 from ilkit.rating import vehicles as veh
+from ilkit.rating._inputs import amount
 from ilkit.rating.factors import (
     PHI_CS_MINIMUM,
     PermitKind,
@@ -130,6 +131,15 @@ class RatingLoad:
     weight: float | None = None
 
     def __post_init__(self) -> None:
+        if not isinstance(self.name, str) or not self.name.strip():
+            raise RatingInputError(f"RatingLoad: name must be a non-empty text, got {self.name!r}.", field="name",
+                                   value=self.name)
+        if self.weight is not None:
+            object.__setattr__(self, "weight", amount(self.weight, f"RatingLoad {self.name!r}: weight (tons)",
+                                                      minimum=0.0, strict=True))
+        if not isinstance(self.single_lane, bool):
+            raise RatingInputError(f"RatingLoad {self.name!r}: single_lane must be True or False.",
+                                   field="single_lane", value=self.single_lane)
         if not isinstance(self.model, LoadModel):
             raise RatingInputError(f"RatingLoad {self.name!r}: model must be a LoadModel, got "
                                    f"{type(self.model).__name__}.", field="model", value=self.model)

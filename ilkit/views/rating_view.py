@@ -25,6 +25,7 @@ import math
 from typing import TYPE_CHECKING, Any, Literal
 
 from ilkit.errors import IlkitError, RatingInputError
+from ilkit.loads.primitives import AxleTrain
 from ilkit.loads.standing import train_length
 from ilkit.rating.lrfr import GirderRating, StandingRating
 from ilkit.views import style
@@ -184,8 +185,8 @@ class RatingView:
     def _set_travel(self) -> None:
         """The slider covers every position where the vehicle's axles can stand on the girder."""
         r = self.rating.load(self.vehicle.value)
-        train = next((p for p in r.model.cases[0].parts if hasattr(p, "loads")), None)
-        extra = train_length(train) if train is not None else 0.0  # type: ignore[arg-type]
+        train = next((p for p in r.model.cases[0].parts if isinstance(p, AxleTrain)), None)
+        extra = train_length(train) if train is not None else 0.0
         self._set_quietly(self.slider, "max", math.ceil((float(self.rating.beam.length) + extra) / self._step))
 
     def _set_quietly(self, control: Any, name: str, value: Any) -> None:
