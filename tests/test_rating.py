@@ -85,6 +85,36 @@ def test_legal_load_rating_in_tons_and_posting_worked_by_hand(reference, permane
     assert rating.posting_load(1.2, 25).load is None
 
 
+def test_permit_rating_worked_by_hand(reference, permanent):
+    # a permit of our own, two 40 kip axles 4 ft apart, on the 100 ft span: one axle at midspan, the other
+    # 4 ft away: 40 × 25 + 40 × 23 = 1920 kip·ft; × 1.33 (IM, MBE 6A.4.5.5); a special permit, single trip,
+    # escorted with no other vehicle on the bridge: γLL 1.15 (MBE Table 6A.4.5.4.2a-1, from memory), the
+    # one-lane share without multiple presence given as 0.5 lanes (6A.4.5.4.2b); Strength II dead-load factors
+    # as Strength I (Table 6A.4.2.2-1).  Rating in tons: RF × 40 tons.
+    permit = rating.permit_load(rating.permit_vehicle([40, 40], [4], name="twin-axle permit"),
+                                "special single trip escorted")
+    r = _rate(permanent, [permit], single_lane=given_distribution(0.5))
+    rf = (8000 - 1.25 * 1500 - 1.50 * 375) / (1.15 * 0.5 * 1.33 * 1920)
+    reference("special permit rating factor, midspan moment", expected=rf,
+              computed=r.rf("twin-axle permit", "moment", 50), source=MBE,
+              clause="6A.4.5.4.2a (γLL), 6A.4.5.4.2b (one lane, m taken out), 6A.4.5.5 (IM), from memory",
+              from_memory=True, rel=1e-12)
+    top = r.controlling().iloc[0]
+    assert top["limit_state"] == "Strength II" and top["rating_tons"] == pytest.approx(top["RF"] * 40)
+
+
+def test_the_lane_type_long_span_case_applies_from_200_ft():
+    # MBE 6A.4.4.2.1 (from memory): the 0.75 × Type 3-3 + 0.2 kip/ft case for spans of 200 ft and more
+    for length, long_case in ((190, False), (210, True)):
+        beam = ilkit.Beam(length, {0: "pin", length: "roller"}, units="kip-ft")
+        perm = permanent_effects(beam, DEAD, divisions=2, quantities=("moment", "shear"))
+        r = rating.rate_girder(beam, permanent=perm, loads="lane-type", distribution=G, divisions=2,
+                               resistances=rating.Resistances(positive_moment=20000, shear=900))
+        cases = [c.name for c in r.load("lane-type").model.cases]
+        assert ("0.75 × Type 3-3 + lane" in cases) is long_case
+        assert any("200 ft" in n for n in r.notes) is not long_case
+
+
 def test_negative_moment_rating_uses_the_relieving_dead_load_factor():
     # two 60 ft spans: at the pier the dead moment is hogging (adds to the negative live moment: γmax 1.25);
     # in the span near the end support it is sagging and relieves a negative live moment (γmin 0.90;

@@ -11,14 +11,15 @@
 
 Every value recalled from the Manuals is marked ``from_memory``; check it against the licensed current
 edition, and have every rating checked and sealed by a licensed engineer under the owner's rules.  The core
-imports no plotting or widget library; the views (:mod:`ilkit.views.rating_records`, :func:`ilkit.views.
-plot_rating`, :class:`ilkit.views.RatingView`) sit on top.
+imports no plotting or widget library; the views (:mod:`ilkit.views.rating_records`,
+:func:`ilkit.views.plot_rating`, :class:`ilkit.views.RatingView`) sit on top.
 """
 
 from ilkit.rating.factors import (
     CONDITION_FACTORS,
     PHI_CS_MINIMUM,
     SYSTEM_FACTORS,
+    Posting,
     condition_factor,
     design_live_factor,
     emergency_live_factor,
@@ -97,6 +98,7 @@ __all__ = [
     "permit_live_factor",
     "rating_limit_state",
     "posting_load",
+    "Posting",
     # rail
     "arema_impact",
     "cooper_rating",
