@@ -70,7 +70,11 @@ def plot_rating(rating: GirderRating, vehicles: str | Sequence[str] | None = Non
         ax.set_ylabel("rating factor RF")
         what = f"{quantity}" if quantity else "moment and shear"
         ax.set_title(f"Rating factor along the girder ({what}; the smaller of both senses)")
-        ax.legend(fontsize=6.5, frameon=False, ncols=min(4, len(chosen)))
+        if len(chosen) > 4:  # many vehicles: the legend below the axes, clear of the lines
+            ax.legend(fontsize=6.5, frameon=False, ncols=min(5, len(chosen)), loc="upper center",
+                      bbox_to_anchor=(0.5, -0.2))
+        else:
+            ax.legend(fontsize=6.5, frameon=False, ncols=len(chosen))
     return ax
 
 

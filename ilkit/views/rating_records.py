@@ -73,16 +73,21 @@ def _where(row: Any, length: str) -> str:
 
 
 def controlling_table(rating: GirderRating) -> Table:
-    """The controlling rating of every vehicle as a document table."""
+    """The controlling rating of every vehicle as a document table (its placement: :func:`placement_table`)."""
     length = rating.beam.units.length if rating.beam.units else ""
     rows = []
     for _, r in rating.controlling().iterrows():
-        rows.append((r["vehicle"], r["level"], r["limit_state"], _rf(r["RF"]), _where(r, length),
-                     f"{r['case']}: {r['placement']}", _tons(r["weight"]), _tons(r["rating_tons"]),
-                     _tons(r["posting"]), r["action"]))
-    header = ("vehicle", "level", "limit state", "RF", "where", "governing placement", "weight [t]",
-              "rating [t]", "posting [t]", "what follows")
-    return Table(header, tuple(rows), "lllrlllrrrl"[:len(header)])
+        rows.append((r["vehicle"], r["level"], r["limit_state"], _rf(r["RF"]), _where(r, length), _tons(r["weight"]),
+                     _tons(r["rating_tons"]), _tons(r["posting"]), r["action"]))
+    header = ("vehicle", "level", "limit state", "RF", "where", "weight [t]", "rating [t]", "posting [t]",
+              "what follows")
+    return Table(header, tuple(rows), "lllrlrrrl")
+
+
+def placement_table(rating: GirderRating) -> Table:
+    """Where every vehicle stands for its controlling rating, in words (one lane)."""
+    rows = tuple((r["vehicle"], r["case"], r["placement"]) for _, r in rating.controlling().iterrows())
+    return Table(("vehicle", "governing case", "where the loads stand"), rows)
 
 
 def _rating_factors(rating: GirderRating) -> tuple[tuple[str, ...], ...]:
@@ -178,6 +183,8 @@ def rating_blocks(rating: GirderRating, number: str = "", *, placements: bool = 
         Para(("The controlling rating of every vehicle (rating in tons = RF × weight; posting load W / 0.7 × "
               "(RF − 0.3) for 0.3 < RF < 1, MBE 6A.8.3, from memory):",)),
         controlling_table(rating),
+        Para(("Where each vehicle stands for its controlling rating (positions in the beam's length unit):",)),
+        placement_table(rating),
         figure_block(lambda ax: plot_rating(rating, ax=ax), 3.0,
                      f"{number} Rating factor along the girder, every vehicle".strip(),
                      _slug(f"rating-along-{number}") or "rating-along"),
