@@ -180,8 +180,8 @@ def test_factors_are_applied_once_and_recorded(permanent):
     (lambda: rating.emergency_vehicle("EV3"), 86.0, 19.0),
 ])
 def test_vehicle_weights_and_lengths(reference, make, total, spacing):
-    # totals and wheel bases from memory (MBE 6A.4.4.2.1 and its figures; the Type 3, 3S2 and 3-3 as
-    # listed in /work/shared/load-models.md); the NRL's varying gap counted at its smallest, 6 ft
+    # totals and wheel bases from memory (MBE 6A.4.4.2.1 and its figures, Appendix D6A); the NRL's varying
+    # gap counted at its smallest, 6 ft
     model = make()
     train = model.cases[0].parts[0]
     reference(f"{model.name}: gross weight (kip)", expected=total, computed=train.total_load, source=MBE,
