@@ -79,3 +79,24 @@ def test_shear_near_an_end_support_is_not_zero():
     P = 300 / KIP
     assert found.value == pytest.approx(-P * 0.1 / 64.7, rel=1e-12)
     assert found.value != 0.0 and not math.isclose(found.value, 0.0)
+
+
+def test_train_as_long_as_the_beam_to_rounding_is_described_as_it_was_valued():
+    # a 0.1 + 0.7 m cantilevered girder (fixed at 0, hinge at 0.1, pin at 0.2, free end at
+    # 0.7999999999999999) and two 0.25 kN axles 0.8 m apart: the train fits on the beam to rounding.
+    # The search once cut it as longer than the beam, valued the rear axle as off the beam and then
+    # described it standing on the free end, so the table summed to -1.25 for a maximum of 0.25.
+    # Statics (common practice): shear just right of the fixed support is +1 for a load on the
+    # first part (0 < x <= 0.1); a load at the free end gives -(0.8 - 0.2)/(0.2 - 0.1) = -6.
+    beam = ilkit.Beam(0.1 + 0.7, {0: "fixed", 0.2: "pin"}, hinges=[0.1], units="kN-m")
+    line = beam.shear(0, side="right")
+    train = AxleTrain([0.25, 0.25], [0.8], units="kN-m")
+    found = extremes(line, train)
+    assert found.maximum.value == pytest.approx(0.25, rel=1e-12)  # one axle at the support, the other off
+    assert found.minimum.value == pytest.approx(-1.5, rel=1e-12)  # one axle at the free end, the other off
+    for e in (found.maximum, found.minimum):
+        assert e.to_frame()["factored effect [kN]"].sum() == pytest.approx(e.value, rel=1e-12)
+        for a in e.placements[0].axles:
+            face = {"left": line.left, "right": line.right, None: line}[a.side]
+            on_beam = a.counted
+            assert a.ordinate * on_beam == pytest.approx(float(face(a.x)) * on_beam, rel=1e-12, abs=1e-15)

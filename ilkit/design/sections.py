@@ -17,21 +17,18 @@ from dataclasses import dataclass
 from fractions import Fraction
 from typing import TYPE_CHECKING
 
-from ilkit._check import choice, listed, whole
+from ilkit._check import choice
 from ilkit._exact import fmt, fmt_precise, to_exact
 from ilkit.errors import LoadInputError
 from ilkit.floor import FloorLine
+from ilkit.loads.envelope import MAX_DIVISIONS, section_faces
 from ilkit.model import Beam
 from ilkit.quantity import Side
-from ilkit.units import LENGTH, magnitude_in
 
 if TYPE_CHECKING:  # pragma: no cover
     from ilkit.influence import InfluenceLine
 
 __all__ = ["Section", "envelope_sections", "load_ordinate", "MAX_DIVISIONS"]
-
-MAX_DIVISIONS = 1000
-"""Most equal parts per span and overhang (as :func:`ilkit.loads.envelope` allows)."""
 
 
 @dataclass(frozen=True)
@@ -86,36 +83,7 @@ def envelope_sections(
     if not isinstance(beam, Beam):
         raise LoadInputError(f"envelope_sections: give a Beam, got {type(beam).__name__} {beam!r}.", field="beam",
                              value=beam)
-    divisions = whole(
-        divisions,
-        what="divisions: the parts per span",
-        field="divisions",
-        minimum=1,
-        maximum=MAX_DIVISIONS,
-        error=LoadInputError,
-        hint="; for a closer look at one stretch add its sections with at=[...]",
-    )
-    L = beam.length
-    supports = [s.at for s in beam.supports]
-    releases = [p for p, _ in beam.releases]
-    floor_beams = list(beam.panel_points or ())  # where a floor system brings the load down, the shear jumps
-    stations = sorted({Fraction(0), L, *supports})
-    points: set[Fraction] = set(releases) | set(floor_beams)
-    for a, b in zip(stations[:-1], stations[1:]):
-        points.update(a + (b - a) * Fraction(k, divisions) for k in range(divisions + 1))
-    for raw in listed(at, wanted="at: give a list of section positions, e.g. [12.5]", field="at", ordered=False):
-        pos = magnitude_in(raw, dims=LENGTH, system=beam.units, field="at")
-        if not 0 <= pos <= L:
-            raise LoadInputError(
-                f"at: x={fmt_precise(pos)} is off the beam; give sections from 0 to {fmt(L)}.", field="at", value=raw
-            )
-        points.add(beam.position(pos))
-    faces = set(supports) | set(releases) | set(floor_beams)
-    out: list[Section] = []
-    for p in sorted(points):
-        sides: tuple[Side | None, ...] = ("left", "right") if p in faces and 0 < p < L else (None,)
-        out.extend(Section(p, side) for side in sides)
-    return tuple(out)
+    return tuple(Section(p, side) for p, side in section_faces(beam, divisions, at))
 
 
 def load_ordinate(line: InfluenceLine, x: float, side: Side | None, *, own_section: bool = False) -> float:

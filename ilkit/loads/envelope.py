@@ -174,65 +174,37 @@ def envelope(
             f"Declare them: Beam(..., units={model.units.name!r}) or units='kN-m'.",
             field="units",
         )
-    divisions = whole(
-        divisions,
-        what="divisions: the parts per span",
-        field="divisions",
-        minimum=1,
-        maximum=MAX_DIVISIONS,
-        error=LoadInputError,
-        hint="; for a closer look at one stretch add its sections with at=[...]",
-    )
     model = model.converted(beam.units)
     u = beam.units
-    L = beam.length
-    supports = [s.at for s in beam.supports]
-    releases = [p for p, _ in beam.releases]
-    floor_beams = list(beam.panel_points or ())  # where a floor system brings the load down, the shear jumps
-    stations = sorted({Fraction(0), L, *supports})
-    points: set[Fraction] = set(releases) | set(floor_beams)
-    for a, b in zip(stations[:-1], stations[1:]):
-        points.update(a + (b - a) * Fraction(k, divisions) for k in range(divisions + 1))
-    for raw in listed(at, wanted="at: give a list of section positions, e.g. [12.5]", field="at", ordered=False):
-        pos = magnitude_in(raw, dims=LENGTH, system=u, field="at")
-        if not 0 <= pos <= L:
-            raise LoadInputError(
-                f"at: x={fmt_precise(pos)} is off the beam; give sections from 0 to {fmt(L)}.", field="at", value=raw
-            )
-        points.add(beam.position(pos))  # a section within the merge tolerance of a support is the support
-    faces = set(supports) | set(releases) | set(floor_beams)
+    faces = section_faces(beam, divisions, at)
 
     # every line of the envelope first, then one search of all of them together
     lines: dict[tuple[str, Fraction, Side | None], InfluenceLine] = {}
-    for p in sorted(points):
-        sides: tuple[Side | None, ...] = ("left", "right") if p in faces and 0 < p < L else (None,)
-        for side in sides:
-            lines[("moment", p, side)] = beam.moment(p, side=side)
-            lines[("shear", p, side)] = beam.shear(p, side=side)
+    for p, side in faces:
+        lines[("moment", p, side)] = beam.moment(p, side=side)
+        lines[("shear", p, side)] = beam.shear(p, side=side)
     for s in beam.supports:
         lines[("reaction", s.at, None)] = beam.reaction(s.at)
     found: dict[tuple[str, Fraction, Side | None], Extremes] = dict(
         zip(lines, extremes_of(list(lines.values()), model, beam=beam))
     )
     rows: list[dict[str, Any]] = []
-    for p in sorted(points):
-        sides = ("left", "right") if p in faces and 0 < p < L else (None,)
-        for side in sides:
-            m, v = found[("moment", p, side)], found[("shear", p, side)]
-            rows.append(
-                {
-                    f"x [{u.length}]": float(p),
-                    "side": side or "",
-                    f"M max [{u.moment}]": m.maximum.value,
-                    "M max case": m.maximum.case,
-                    f"M min [{u.moment}]": m.minimum.value,
-                    "M min case": m.minimum.case,
-                    f"V max [{u.force}]": v.maximum.value,
-                    "V max case": v.maximum.case,
-                    f"V min [{u.force}]": v.minimum.value,
-                    "V min case": v.minimum.case,
-                }
-            )
+    for p, side in faces:
+        m, v = found[("moment", p, side)], found[("shear", p, side)]
+        rows.append(
+            {
+                f"x [{u.length}]": float(p),
+                "side": side or "",
+                f"M max [{u.moment}]": m.maximum.value,
+                "M max case": m.maximum.case,
+                f"M min [{u.moment}]": m.minimum.value,
+                "M min case": m.minimum.case,
+                f"V max [{u.force}]": v.maximum.value,
+                "V max case": v.maximum.case,
+                f"V min [{u.force}]": v.minimum.value,
+                "V min case": v.minimum.case,
+            }
+        )
     reaction_rows = []
     for s in beam.supports:
         r = found[("reaction", s.at, None)]
@@ -246,10 +218,56 @@ def envelope(
                 "R min case": r.minimum.case,
             }
         )
-    best, positions = _absolute_maximum(beam, model, found, stations + releases + floor_beams)
+    best, positions = _absolute_maximum(beam, model, found, _barriers(beam))
     return Envelope(
         beam, model.name, pd.DataFrame(rows), pd.DataFrame(reaction_rows), best, found, model, positions
     )
+
+
+def _barriers(beam: Beam) -> list[Fraction]:
+    """The ends, supports, releases and floor beams of ``beam``: where an influence line may jump or kink."""
+    return [Fraction(0), beam.length, *(s.at for s in beam.supports), *(p for p, _ in beam.releases),
+            *(beam.panel_points or ())]
+
+
+def section_faces(beam: Beam, divisions: object = 10, at: object = ()) -> list[tuple[Fraction, Side | None]]:
+    """The sections of an envelope of ``beam``, left to right, as ``(x, side)``.
+
+    The ends, every support, every hinge and shear release, every floor beam
+    (``Beam(panel_points=...)``, where a floor system brings the load down and
+    the shear jumps), ``divisions`` equal parts of each span and overhang, and
+    the further positions ``at`` (in the beam's length unit, or pint
+    quantities; one within the merge tolerance of a support is that support).
+    Both faces (``"left"``, ``"right"``) at interior supports, releases and
+    floor beams; ``side=None`` elsewhere.  The one rule shared by
+    :func:`envelope` and :func:`ilkit.design.envelope_sections`.
+    """
+    divisions = whole(
+        divisions,
+        what="divisions: the parts per span",
+        field="divisions",
+        minimum=1,
+        maximum=MAX_DIVISIONS,
+        error=LoadInputError,
+        hint="; for a closer look at one stretch add its sections with at=[...]",
+    )
+    L = beam.length
+    stations = sorted({Fraction(0), L, *(s.at for s in beam.supports)})
+    jumps = {p for p in _barriers(beam) if 0 < p < L}
+    points: set[Fraction] = set(_barriers(beam))
+    for a, b in zip(stations[:-1], stations[1:]):
+        points.update(a + (b - a) * Fraction(k, divisions) for k in range(divisions + 1))
+    for raw in listed(at, wanted="at: give a list of section positions, e.g. [12.5]", field="at", ordered=False):
+        pos = magnitude_in(raw, dims=LENGTH, system=beam.units, field="at")
+        if not 0 <= pos <= L:
+            raise LoadInputError(
+                f"at: x={fmt_precise(pos)} is off the beam; give sections from 0 to {fmt(L)}.", field="at", value=raw
+            )
+        points.add(beam.position(pos))  # a section within the merge tolerance of a support is the support
+    faces: list[tuple[Fraction, Side | None]] = []
+    for p in sorted(points):
+        faces.extend((p, side) for side in (("left", "right") if p in jumps else (None,)))
+    return faces
 
 
 def _absolute_maximum(

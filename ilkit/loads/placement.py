@@ -193,6 +193,9 @@ class _Study:
         self.plain = plain
         self.signed = signed
         self.tol = plain.tol
+        # parts of a train closer than this can stand on a line together: its length, and the tolerance
+        # within which a load at an end stands on it (a train as long as the beam to rounding fits on it)
+        self.reach = float((plain.length + plain.tol).max())
         self._cands: dict[tuple[object, ...], _search.Candidates] = {}
         self._found: dict[int, _Found] = {}
         self._effects: dict[int, np.ndarray] = {}
@@ -330,7 +333,7 @@ class _Study:
                 continue
             drop = isinstance(part, AxleTrain) and part.drop_adverse_axles
             for _, chain in _layouts(part):
-                cut = _search.split(chain, float(self.plain.length.max()))
+                cut = _search.split(chain, self.reach)
                 for index in range(len(cut.parts)):
                     sub = cut.part(index)
                     if sub.variable <= _search.PATTERN_GAPS and _search.cost(sub, self.lines_for(drop)).patterns:
@@ -409,7 +412,7 @@ class _Study:
             found = _Found(self.sense, self.tol)
             find = self.finder(drop)
             for direction, chain in _layouts(load):
-                cut = _search.split(chain, float(self.plain.length.max()))
+                cut = _search.split(chain, self.reach)
                 for index in range(len(cut.parts)):
                     part = cut.part(index)
                     plan = _search.cost(part, lines)
