@@ -115,6 +115,28 @@ def test_the_lane_type_long_span_case_applies_from_200_ft():
         assert any("200 ft" in n for n in r.notes) is not long_case
 
 
+def test_service_ii_check_of_a_steel_girder_worked_by_hand(reference, permanent):
+    # MBE 6A.6.4.2.2 and Table 6A.4.2.2-1 (from memory): Service II of steel, legal loads γLL 1.30, dead loads
+    # unfactored, no φ, φc, φs; the limit moment 5000 kip·ft given.  Type 3 at midspan as above.
+    r = _rate(permanent, ["Type 3"], adtt=1000, condition="fair",
+              resistances=rating.Resistances(positive_moment=8000, shear=2000),
+              service=rating.Resistances(positive_moment=5000, name="0.80 Fy, non-composite"))
+    live = 0.6 * 1.33 * 1096
+    rows = r.frame[(r.frame["quantity"] == "moment") & (r.frame["x"] == 50.0)].set_index("limit_state")
+    reference("Type 3 Service II rating factor, midspan moment", expected=(5000 - 1500 - 375) / (1.30 * live),
+              computed=rows.loc["Service II", "RF"], source=MBE,
+              clause="6A.6.4.2.2, Table 6A.4.2.2-1, Service II (from memory)", from_memory=True, rel=1e-12)
+    assert rows.loc["Strength I", "RF"] == pytest.approx((0.95 * 8000 - 1.25 * 1500 - 1.5 * 375) / (1.30 * live))
+    top = r.controlling().iloc[0]
+    assert top["limit_state"] == "Service II" and top["RF"] == pytest.approx(rows.loc["Service II", "RF"])
+    assert r.service_factors["Type 3"]["moment"].describe() == "IM 33 % (Type 3) × gM 0.60 × γLL 1.30"
+    # the standing vehicle gives the smaller of the two checks
+    placement = r.extreme("Type 3", "moment", 50).placements[0]
+    assert r.standing("Type 3", "moment", 50, placement.front, direction=placement.direction).rf == pytest.approx(
+        rows.loc["Service II", "RF"])
+    assert "shear" not in set(r.frame.loc[r.frame["limit_state"] == "Service II", "quantity"])
+
+
 def test_negative_moment_rating_uses_the_relieving_dead_load_factor():
     # two 60 ft spans: at the pier the dead moment is hogging (adds to the negative live moment: γmax 1.25);
     # in the span near the end support it is sagging and relieves a negative live moment (γmin 0.90;

@@ -66,7 +66,9 @@ share
 ## Nominal resistances, with the section loss
 
 Given per action along the girder (kip·ft and kip): the corroded first span carries a smaller sagging
-moment, the web at the left bearing a smaller shear. A section no value covers would be refused.
+moment, the web at the left bearing a smaller shear. A section no value covers would be refused. For
+the steel, the Service II check (permanent deformations) takes the moments at which the flanges reach
+0.80 Fy, also given.
 """),
     ("code", """
 resistances = rating.Resistances(
@@ -74,6 +76,11 @@ resistances = rating.Resistances(
     negative_moment=2700,
     shear=[(0, 8, 300), (8, 230, 420)],
     name="G2, 1964 plans with the section loss of the last inspection",
+)
+service = rating.Resistances(  # the Service II limits of the steel: 0.80 Fy in the flanges (non-composite)
+    positive_moment=[(0, 70, 1450), (70, 230, 2300)],
+    negative_moment=2150,
+    name="0.80 Fy in the flanges (non-composite)",
 )
 resistances
 """),
@@ -98,23 +105,26 @@ loads = ["design", "legal", "emergency", permit]
 ## Rating
 
 One call rates every vehicle at every tenth point of each span (both faces at the piers), for moment and
-shear and both senses; the fair condition gives φc = 0.95.
+shear and both senses, at the strength limit state (Strength I; Strength II for the permit) and at
+Service II; the fair condition gives φc = 0.95.
 """),
     ("code", """
 rated = rating.rate_girder(
     girder, permanent=permanent, resistances=resistances, distribution=share,
-    loads=loads, adtt=1200, condition="fair",
+    loads=loads, adtt=1200, condition="fair", service=service,
 )
 controlling = rated.controlling()
-controlling[["vehicle", "level", "RF", "quantity", "x", "side", "sense", "rating_tons", "posting", "action"]].round(3)
+controlling[["vehicle", "limit_state", "RF", "quantity", "x", "side", "sense", "rating_tons", "posting",
+             "action"]].round(3)
 """),
     ("code", """
 ax = views.plot_rating(rated, ["HL-93 inventory", "Type 3S2", "NRL", "EV3", "transformer hauler"])
 """),
     ("md", """
-The corroded first span controls: the design load does not pass even at the operating level, the notional
-rating load and the EV3 call for posting (W / 0.7 × (RF − 0.3) tons), and the transformer hauler cannot
-cross as asked. Where the NRL stands for its controlling rating:
+The corroded first span controls: the design load does not pass even at the operating level; Service II
+governs the legal loads, and the SU6, SU7, the notional rating load and the EV3 call for posting
+(W / 0.7 × (RF − 0.3) tons); the transformer hauler cannot cross as asked. Where the NRL stands for its
+controlling rating:
 """),
     ("code", """
 row = controlling.set_index("vehicle").loc["NRL"]
@@ -130,6 +140,7 @@ Applying one of them a second time is refused.
 """),
     ("code", """
 print(rated.live_factors["NRL"]["moment"].describe())
+print(rated.service_factors["NRL"]["moment"].describe())
 print(rated.live_factors["transformer hauler"]["moment"].describe())
 print(rated.capacity_factors["moment"].describe())
 try:

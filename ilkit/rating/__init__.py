@@ -27,6 +27,7 @@ from ilkit.rating.factors import (
     permit_live_factor,
     posting_load,
     rating_limit_state,
+    service_live_factor,
     system_factor,
 )
 from ilkit.rating.lrfr import (
@@ -97,6 +98,7 @@ __all__ = [
     "emergency_live_factor",
     "permit_live_factor",
     "rating_limit_state",
+    "service_live_factor",
     "posting_load",
     "Posting",
     # rail

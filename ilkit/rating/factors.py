@@ -18,6 +18,8 @@ current edition and the owner's rules.
   other vehicle on the bridge 1.15; special, single trip with other traffic 1.50, 1.40, 1.35; special,
   multiple trips (fewer than 100 crossings) with other traffic 1.85, 1.75, 1.55; special permits take the
   one-lane distribution factor with the multiple presence factor taken out (6A.4.5.4.2b);
+* Service II of steel girders (Table 6A.4.2.2-1, 6A.6.4.2.2): γLL 1.30 (design inventory, legal), 1.00
+  (design operating, permits), dead loads unfactored, the limits given by the engineer;
 * dead loads (Table 6A.4.2.2-1): γDC 1.25, γDW 1.50 (1.25 where the wearing surface thickness is
   measured); where a category's effect relieves the live load's, its minimum factor of AASHTO LRFD Table
   3.4.1-2 is used (0.90, 0.65) as in design (common practice);
@@ -52,6 +54,7 @@ __all__ = [
     "permit_live_factor",
     "PermitKind",
     "rating_limit_state",
+    "service_live_factor",
     "posting_load",
     "Posting",
 ]
@@ -180,6 +183,16 @@ def permit_live_factor(kind: PermitKind, adtt: float | None = None) -> Factor:
     value = points[-1][1] if a is None else _between(a, points)
     note = f"{kind} permit, " + ("ADTT not known" if a is None else f"ADTT {fmt(round(a, 6))}")
     return Factor("load factor", round(value, 6), "γLL", source=_T_PERMIT, from_memory=True, note=note)
+
+
+def service_live_factor(level: str) -> Factor:
+    """γLL of the Service II check of steel girders (MBE Table 6A.4.2.2-1, from memory): 1.30 for the design load
+    at the inventory level, 1.00 at the operating level, 1.30 for legal loads (and, here, emergency vehicles),
+    1.00 for permits.  ``level``: a :data:`~ilkit.rating.lrfr.RatingLevel`.  Dimensionless."""
+    values = {"design inventory": 1.30, "design operating": 1.00, "legal": 1.30, "emergency": 1.30, "permit": 1.00}
+    choice(level, tuple(values), what="service_live_factor: level", field="level", error=RatingInputError)
+    return Factor("load factor", values[level], "γLL", source=_T_LOADS, from_memory=True,
+                  note=f"Service II, {level}")
 
 
 def rating_limit_state(name: str, live: Factor, *, wearing_surface_measured: bool = False,

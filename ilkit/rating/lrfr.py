@@ -64,6 +64,7 @@ from ilkit.rating.factors import (
     permit_live_factor,
     posting_load,
     rating_limit_state,
+    service_live_factor,
     system_factor,
 )
 from ilkit.rating.resistance import Resistances
@@ -302,7 +303,9 @@ class GirderRating(RichDisplay):
 
     ``live_factors[vehicle][action]``: the :class:`~ilkit.design.Applied` record of the live part (dynamic
     allowance, distribution, γLL); ``capacity_factors[action]``: that of the capacity (φc, φs, the bound,
-    φ); ``limit_states[vehicle]``: the load combination used (dead-load factors and γLL).
+    φ); ``limit_states[vehicle]``: the load combination used (dead-load factors and γLL).  With a Service II
+    check (``service``, the limits given), ``service_states[vehicle]`` and ``service_factors[vehicle][action]``
+    are its combination and live-part record, and its rows read ``"Service II"``.
     """
 
     beam: Beam = field(repr=False)
@@ -321,6 +324,9 @@ class GirderRating(RichDisplay):
     notes: tuple[str, ...] = field(repr=False, default=())
     _found: Mapping[tuple[str, str, Fraction, str | None], Extremes] = field(repr=False, default_factory=dict)
     _dead: Mapping[tuple[str, float, str], Mapping[str, float]] = field(repr=False, default_factory=dict)
+    service: Resistances | None = field(repr=False, default=None)
+    service_states: Mapping[str, LimitState] = field(repr=False, default_factory=dict)
+    service_factors: Mapping[str, Mapping[str, Applied]] = field(repr=False, default_factory=dict)
 
     def __repr__(self) -> str:
         worst = self.controlling()
@@ -354,7 +360,7 @@ class GirderRating(RichDisplay):
             best = part.loc[part["RF"].idxmin()]
             post: Posting | None = posting_load(best["RF"], r.weight) if r.posted and r.weight else None
             rows.append({
-                "vehicle": r.name, "level": r.level, "limit_state": r.limit_state, "RF": float(best["RF"]),
+                "vehicle": r.name, "level": r.level, "limit_state": best["limit_state"], "RF": float(best["RF"]),
                 "quantity": best["quantity"], "x": float(best["x"]), "side": best["side"], "sense": best["sense"],
                 "case": best["case"], "placement": best["placement"],
                 "weight": r.weight if r.weight is not None else math.nan,
@@ -437,18 +443,23 @@ class GirderRating(RichDisplay):
         share = self._share(r, quantity)
         live = placed.effect * case.part_factor(train) * share
         sense: Sense = "positive" if live >= 0 else "negative"
-        capacity = self._capacity(quantity, sense, float(x), face)
-        dead = _dead_of(self._dead[(quantity, float(x), face or "")], self.limit_states[r.name], sense)
-        gamma = self.limit_states[r.name].live
-        rf = _rf(capacity, dead, live, gamma, sense) if abs(live) > 0 else math.inf
-        return StandingRating(rf, live, sense, capacity, dead, placed)
+        by = self._dead[(quantity, float(x), face or "")]
+        best = StandingRating(math.inf, live, sense, math.nan, math.nan, placed)
+        checks = []
+        if quantity in self.resistances.actions:
+            checks.append((self.limit_states[r.name], self.capacity_factors[quantity].product, self.resistances))
+        if self.service is not None and self.service.covers(quantity, sense):
+            checks.append((self.service_states[r.name], 1.0, self.service))
+        for state, factor, given in checks:
+            capacity = factor * given.nominal(quantity, sense, float(x), face)  # type: ignore[arg-type]
+            dead = _dead_of(by, state, sense)
+            rf = _rf(capacity, dead, live, state.live, sense) if abs(live) > 0 else math.inf
+            if rf < best.rf or math.isnan(best.capacity):
+                best = StandingRating(rf, live, sense, capacity, dead, placed)
+        return best
 
     def _share(self, r: RatingLoad, quantity: str) -> float:
         return self.live_factors[r.name][quantity].product / self.limit_states[r.name].live
-
-    def _capacity(self, quantity: str, sense: Sense, x: float, side: str | None) -> float:
-        rn = self.resistances.nominal(quantity, sense, x, side)  # type: ignore[arg-type]
-        return self.capacity_factors[quantity].product * rn
 
 
 def _dead_of(by_category: Mapping[str, float], state: LimitState, sense: Sense) -> float:
@@ -534,6 +545,7 @@ def rate_girder(
     at: Sequence[object] = (),
     wearing_surface_measured: bool = False,
     dead_factors: Mapping[str, object] | None = None,
+    service: Resistances | None = None,
 ) -> GirderRating:
     """Rate one girder on ``beam`` for ``loads`` (LRFR; see the module notes for the rule).
 
@@ -559,6 +571,12 @@ def rate_girder(
         The rated sections (:func:`ilkit.design.envelope_sections`: tenth points by default).
     wearing_surface_measured, dead_factors:
         γDW 1.25 instead of 1.50; (γmax, γmin) of other permanent load categories.
+    service:
+        For steel girders, the Service II check (MBE 6A.6.4.2.2, from memory): the moments (and shears) at
+        the permanent-deformation limit, given as :class:`~ilkit.rating.Resistances` (e.g. from 0.95 Fy in
+        the flanges of a composite girder, 0.80 Fy of a non-composite one); rated with the dead loads
+        unfactored, no φ, φc or φs, and γLL of :func:`~ilkit.rating.service_live_factor`.  Only the
+        resistances given are checked.  Rows with ``limit_state`` ``"Service II"``.
 
     Returns a :class:`GirderRating`; rating factors are dimensionless, effects in the beam's units with the
     signs of :mod:`ilkit.model`.
@@ -577,14 +595,18 @@ def rate_girder(
     if not isinstance(resistances, Resistances):
         raise RatingInputError(f"rate_girder: give resistances=ilkit.rating.Resistances(...), got "
                                f"{type(resistances).__name__}.", field="resistances", value=resistances)
+    if service is not None and not isinstance(service, Resistances):
+        raise RatingInputError(f"rate_girder: give service=ilkit.rating.Resistances(...) (the Service II limits), "
+                               f"got {type(service).__name__}.", field="service", value=service)
     dist = _distribution(distribution, "distribution")
     longest = max(in_feet(float(b - a), beam.units) for a, b in beam.spans)
     chosen = rating_loads(loads, adtt=adtt, long_span=longest >= LONG_SPAN_FT)
     one_lane = _single_lane(dist, single_lane) if any(r.single_lane for r in chosen) else None
     phi_c, phi_s = condition_factor(condition), system_factor(system)
     sections = envelope_sections(beam, divisions, at)
-    actions = resistances.actions
-    capacity = {a: _capacity_record(phi_c, phi_s, resistances.phi[a]) for a in actions}
+    actions = tuple(a for a in ("moment", "shear")
+                    if a in resistances.actions or (service is not None and a in service.actions))
+    capacity = {a: _capacity_record(phi_c, phi_s, resistances.phi[a]) for a in resistances.actions}
     # the permanent effects of every rated row, by category
     by_cat = permanent.by_category()
     by_cat = by_cat[by_cat["quantity"].isin(actions)]
@@ -603,6 +625,10 @@ def rate_girder(
     lines = [beam.line(a, x, side) for a, x, side in keys]
     states = {r.name: rating_limit_state(r.limit_state, r.live_factor, permanent=dead_factors,
                                          wearing_surface_measured=wearing_surface_measured) for r in chosen}
+    service_states = {} if service is None else {
+        r.name: LimitState("Service II", {"*": (1.0, 1.0)}, service_live_factor(r.level).value,
+                           source=service_live_factor(r.level).source, from_memory=True,
+                           notes="dead loads unfactored; no φ, φc or φs") for r in chosen}
     for state in states.values():  # an unknown category is named before any search
         for c in categories:
             try:
@@ -613,6 +639,7 @@ def rate_girder(
     searched: dict[LoadModel, list[Extremes]] = {}
     found: dict[tuple[str, str, Fraction, str | None], Extremes] = {}
     live_factors: dict[str, Mapping[str, Applied]] = {}
+    service_factors: dict[str, Mapping[str, Applied]] = {}
     rows: list[dict[str, Any]] = []
     notes: list[str] = []
     for r in chosen:
@@ -623,9 +650,14 @@ def rate_girder(
                 raise RatingInputError(f"{r.name}: {err}", field="loads", value=r.name) from None
         ext = searched[r.model]
         girder = GirderLiveLoad(r.model, distribution=one_lane if r.single_lane else dist, name=r.name)
-        state = states[r.name]
         record = {a: girder.factors(a).then(r.live_factor) for a in actions}  # type: ignore[arg-type]
         live_factors[r.name] = MappingProxyType(record)
+        checks = [(r.limit_state, states[r.name], resistances, capacity, resistances.actions)]
+        if service is not None:
+            gamma = service_live_factor(r.level)
+            service_factors[r.name] = MappingProxyType(
+                {a: girder.factors(a).then(gamma) for a in service.actions})  # type: ignore[arg-type]
+            checks.append(("Service II", service_states[r.name], service, None, service.actions))
         scale = {a: girder.scale(a) for a in actions}  # type: ignore[arg-type]
         noise = 1e-9 * max((max(abs(e.maximum.value), abs(e.minimum.value)) for e in ext), default=0.0)
         for (a, x, side), e in zip(keys, ext):
@@ -636,16 +668,19 @@ def rate_girder(
                 if (value <= noise) if sense == "positive" else (value >= -noise):
                     continue
                 live = scale[a] * value
-                rn = resistances.nominal(a, sense, float(x), side)  # type: ignore[arg-type]
-                c = capacity[a].product * rn
-                d = _dead_of(by, state, sense)  # type: ignore[arg-type]
-                rows.append({
-                    "vehicle": r.name, "level": r.level, "limit_state": r.limit_state, "quantity": a,
-                    "x": float(x), "side": side or "", "sense": sense,
-                    "RF": _rf(c, d, live, state.live, sense),  # type: ignore[arg-type]
-                    "capacity": c, "Rn": rn, "dead": d, "live": live, "gamma_LL": state.live,
-                    "case": extreme.case, "placement": _placement_words(extreme),
-                })
+                for name, state, given, record_of, rated in checks:
+                    if a not in rated or (record_of is None and not given.covers(a, sense)):  # type: ignore[union-attr]
+                        continue
+                    rn = given.nominal(a, sense, float(x), side)  # type: ignore[union-attr, arg-type]
+                    c = (record_of[a].product if record_of is not None else 1.0) * rn
+                    d = _dead_of(by, state, sense)  # type: ignore[arg-type]
+                    rows.append({
+                        "vehicle": r.name, "level": r.level, "limit_state": name, "quantity": a,
+                        "x": float(x), "side": side or "", "sense": sense,
+                        "RF": _rf(c, d, live, state.live, sense),  # type: ignore[arg-type]
+                        "capacity": c, "Rn": rn, "dead": d, "live": live, "gamma_LL": state.live,
+                        "case": extreme.case, "placement": _placement_words(extreme),
+                    })
         if r.level == "legal" and r.model.name == "lane-type legal load" and longest < LONG_SPAN_FT:
             notes.append(f"{r.name}: every span is shorter than {fmt(LONG_SPAN_FT)} ft, so only the two-truck case "
                          "for negative moment and interior reactions applies (MBE 6A.4.4.2.1, from memory).")
@@ -664,4 +699,5 @@ def rate_girder(
     return GirderRating(
         beam, frame, chosen, resistances, permanent, dist, one_lane, phi_c, phi_s, MappingProxyType(capacity),
         MappingProxyType(live_factors), MappingProxyType(states), sections, tuple(notes), MappingProxyType(found),
-        MappingProxyType({k: MappingProxyType(v) for k, v in dead.items()}))
+        MappingProxyType({k: MappingProxyType(v) for k, v in dead.items()}), service,
+        MappingProxyType(service_states), MappingProxyType(service_factors))

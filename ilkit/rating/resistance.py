@@ -181,6 +181,10 @@ class Resistances:
             out.append("shear")
         return tuple(out)
 
+    def covers(self, action: str, sense: str) -> bool:
+        """True when a resistance is given for ``action`` (``"moment"``, ``"shear"``) of ``sense``."""
+        return ("shear" if action == "shear" else f"{sense} moment") in self.given
+
     def nominal(self, action: Literal["moment", "shear"], sense: Literal["positive", "negative"], x: float,
                 side: Literal["left", "right"] | None = None) -> float:
         """Rn for ``action`` of ``sense`` at the section ``x`` (face ``side``), in the beam's units (a magnitude).

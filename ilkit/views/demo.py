@@ -178,8 +178,9 @@ def corroded_girder() -> Beam:
 def corroded_girder_rating() -> object:
     """The notebook's rating of :func:`corroded_girder` (girder 2 of five, 7.5 ft apart): dead loads, lever-rule
     distribution, nominal resistances with the corroded first span and the web loss at the abutment bearing,
-    fair condition, ADTT 1200; the design load, the legal loads, the emergency vehicles and a permit vehicle of
-    our own (a six-axle transformer hauler, special single trip with traffic)."""
+    fair condition, ADTT 1200, the Service II limits of the steel; the design load, the legal loads, the
+    emergency vehicles and a permit vehicle of our own (a six-axle transformer hauler, special single trip
+    with traffic)."""
     from ilkit import design, rating
 
     beam = corroded_girder()
@@ -191,11 +192,13 @@ def corroded_girder_rating() -> object:
     resistances = rating.Resistances(
         positive_moment=[(0, 70, 1800), (70, 230, 2900)], negative_moment=2700,
         shear=[(0, 8, 300), (8, 230, 420)], name="G2, 1964 plans with the section loss of the last inspection")
+    service = rating.Resistances(positive_moment=[(0, 70, 1450), (70, 230, 2300)], negative_moment=2150,
+                                 name="0.80 Fy in the flanges (non-composite)")
     hauler = rating.permit_vehicle([14, 36, 36, 34, 34, 34], [13, 4.5, 26, 4.5, 4.5], name="transformer hauler")
     return rating.rate_girder(
         beam, permanent=permanent, resistances=resistances, distribution=design.lever_rule(section, 2),
         loads=["design", "legal", "emergency", rating.permit_load(hauler, "special single trip", adtt=1200)],
-        adtt=1200, condition="fair")
+        adtt=1200, condition="fair", service=service)
 
 
 def write_rating_demo_sheet(directory: str | Path) -> object:

@@ -97,6 +97,11 @@ def _rating_factors(rating: GirderRating) -> tuple[tuple[str, ...], ...]:
     for r in rating.loads:
         for action, record in rating.live_factors[r.name].items():
             rows += factor_rows(f"{r.name}, {action}", record)
+        for action, record in rating.service_factors.get(r.name, {}).items():
+            rows += factor_rows(f"{r.name}, {action}, Service II", [record.factors[-1]])
+    if rating.service is not None:
+        rows.append(("Service II, dead loads", "load factor", "γp", "1", "every category, unfactored",
+                     rating.service_states[rating.loads[0].name].source, "recalled from memory: check it"))
     seen = set()
     for r in rating.loads:
         state = rating.limit_states[r.name]
@@ -123,12 +128,14 @@ def _vehicle_rows(rating: GirderRating) -> tuple[tuple[str, ...], ...]:
 
 
 def _resistance_rows(rating: GirderRating) -> tuple[tuple[str, ...], ...]:
-    res = rating.resistances
     rows = []
-    for kind in RESISTANCE_KINDS:
-        action = "shear" if kind == "shear" else "moment"
-        phi = res.phi[action].value
-        rows.append((kind, res.describe(kind), short(phi, 3)))
+    for res, words in ((rating.resistances, "strength"), (rating.service, "Service II limit")):
+        if res is None:
+            continue
+        for kind in RESISTANCE_KINDS:
+            action = "shear" if kind == "shear" else "moment"
+            phi = short(res.phi[action].value, 3) if words == "strength" else "—"
+            rows.append((f"{kind} ({words})", res.describe(kind), phi))
     return tuple(rows)
 
 

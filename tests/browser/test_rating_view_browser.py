@@ -43,7 +43,8 @@ def test_notebook_rates_the_demo_girder():
                  'positive_moment=[(0, 70, 1800), (70, 230, 2900)]', "negative_moment=2700",
                  "shear=[(0, 8, 300), (8, 230, 420)]", '"load": [14, 36, 36, 34, 34, 34]',
                  '"spacing": [None, 13, 4.5, 26, 4.5, 4.5]', 'condition="fair"', "adtt=1200",
-                 'design.DistributedLoad("steel, slab and haunch", "DC", 1.05)'):
+                 'design.DistributedLoad("steel, slab and haunch", "DC", 1.05)',
+                 "positive_moment=[(0, 70, 1450), (70, 230, 2300)]", "negative_moment=2150", "service=service"):
         assert text in source, text
 
 
