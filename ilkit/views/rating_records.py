@@ -184,6 +184,9 @@ def rating_blocks(rating: GirderRating, number: str = "", *, placements: bool = 
               "the vehicle's dynamic allowance, times the girder's share; Σ γp P takes each permanent load "
               "category with its largest factor where it adds to the live load's effect and its smallest where "
               "it relieves it.",)),
+        *([Para(("Service II (steel, MBE 6A.6.4.2.2, from memory): RF = (fR − P) / (γLL (LL + IM)), fR the "
+                 "limit given, the dead loads P unfactored, γLL 1.30 for the design inventory level and legal "
+                 "loads, 1.00 for the operating level and permits.",))] if rating.service is not None else []),
         Para((f"Condition factor {rating.condition.describe()}, system factor {rating.system.describe()}; "
               f"distribution: {d.girder}, {d.method} (moment {short(d.moment.value, 4)}, shear "
               f"{short(d.shear.value, 4)} lanes).",)),
