@@ -188,7 +188,7 @@ def permit_live_factor(kind: PermitKind, adtt: float | None = None) -> Factor:
 def service_live_factor(level: str) -> Factor:
     """γLL of the Service II check of steel girders (MBE Table 6A.4.2.2-1, from memory): 1.30 for the design load
     at the inventory level, 1.00 at the operating level, 1.30 for legal loads (and, here, emergency vehicles),
-    1.00 for permits.  ``level``: a :data:`~ilkit.rating.lrfr.RatingLevel`.  Dimensionless."""
+    1.00 for permits.  ``level``: the level of a :class:`~ilkit.rating.RatingLoad`.  Dimensionless."""
     values = {"design inventory": 1.30, "design operating": 1.00, "legal": 1.30, "emergency": 1.30, "permit": 1.00}
     choice(level, tuple(values), what="service_live_factor: level", field="level", error=RatingInputError)
     return Factor("load factor", values[level], "γLL", source=_T_LOADS, from_memory=True,
