@@ -24,9 +24,11 @@ from ilkit.errors import (
     InventoryError,
     LoadInputError,
     MissingDependencyError,
+    MissingResistanceError,
     NoDerivationError,
     OutsideRangeError,
     PlacementTooLargeError,
+    RatingInputError,
     SideRequiredError,
     StiffnessRequiredError,
     TrussInputError,
@@ -82,6 +84,7 @@ __all__ = [
     "NoDerivationError",
     "views",
     "design",
+    "rating",
     "trusses",
     "LoadInputError",
     "ExportError",
@@ -90,6 +93,8 @@ __all__ = [
     "DesignInputError",
     "FactorAppliedTwiceError",
     "OutsideRangeError",
+    "RatingInputError",
+    "MissingResistanceError",
     "TrussInputError",
     "UnstableTrussError",
     "InventoryError",
@@ -121,8 +126,9 @@ def __getattr__(name: str) -> Any:
         from ilkit._symbols import x
 
         return x
-    if name in ("views", "design", "trusses", "batch"):
-        # drawings, derivations, tables and calculation sheets; design effects; trusses; batch runs: on first use
+    if name in ("views", "design", "rating", "trusses", "batch"):
+        # drawings, derivations, tables and calculation sheets; design effects; load rating; trusses; batch
+        # runs: loaded on first use
         import importlib
 
         return importlib.import_module(f"ilkit.{name}")

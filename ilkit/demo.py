@@ -227,8 +227,9 @@ def _page_exporter(mathjax_url: str) -> Any:
 
 def _extra_outputs(out: Path) -> list[tuple[str, str, int]]:
     """Further demo outputs written by the views layer: calculation sheets of two notebook girders, of the
-    notebook's through truss and of the design notebook's composite girder."""
-    from ilkit.views.demo import write_demo_sheet, write_highway_sheet, write_truss_sheet
+    notebook's through truss and of the design notebook's composite girder, and the rating sheet of the rated
+    girder."""
+    from ilkit.views.demo import write_demo_sheet, write_highway_sheet, write_rating_demo_sheet, write_truss_sheet
     from ilkit.views.demo_girder import write_composite_girder_sheet
 
     entries = []
@@ -239,10 +240,15 @@ def _extra_outputs(out: Path) -> list[tuple[str, str, int]]:
         (write_truss_sheet, "Calculation sheet of the Pratt through truss under HL-93 (member forces)"),
         (write_composite_girder_sheet, "Calculation sheet of the three-span composite steel girder (distribution, "
                                        "factored envelopes of an interior and an exterior girder)"),
+        (write_rating_demo_sheet, "Rating sheet of the three-span steel girder with a corroded span (design, "
+                                  "legal, emergency and permit loads)"),
     ):
         sheet = write(out)
-        print(f"wrote {sheet.html.name} and {sheet.markdown.name} ...", flush=True)
-        entries.append((sheet.html.name, f"{title} (Markdown version: {sheet.markdown.name})", 0))
+        pdf = getattr(sheet, "pdf", None)
+        print(f"wrote {sheet.html.name} and {sheet.markdown.name}{f' and {pdf.name}' if pdf else ''} ...",
+              flush=True)
+        also = f", PDF: {pdf.name}" if pdf else ""
+        entries.append((sheet.html.name, f"{title} (Markdown version: {sheet.markdown.name}{also})", 0))
     return entries
 
 

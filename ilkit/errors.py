@@ -26,6 +26,8 @@ __all__ = [
     "DesignInputError",
     "FactorAppliedTwiceError",
     "OutsideRangeError",
+    "RatingInputError",
+    "MissingResistanceError",
     "TrussInputError",
     "UnstableTrussError",
     "InventoryError",
@@ -245,6 +247,32 @@ class FactorAppliedTwiceError(DesignInputError):
     def __init__(self, message: str, *, kind: str) -> None:
         super().__init__(message, field="factors", value=kind)
         self.kind = kind
+
+
+class RatingInputError(DesignInputError):
+    """A load-rating input (a resistance, a rating vehicle, a condition or system factor, a permit, a rail
+    rating) was described with a value that cannot be used.
+
+    Attributes
+    ----------
+    field:
+        The argument at fault (``"resistances"``, ``"loads"``, ``"condition"`` ...).
+    value:
+        The offending value as given.
+    """
+
+
+class MissingResistanceError(RatingInputError):
+    """A rated section has no nominal resistance for an action: give it (a value, a function of x, or a
+    table row covering the section).
+
+    Attributes
+    ----------
+    field:
+        The resistance missing (``"positive moment"``, ``"negative moment"``, ``"shear"``).
+    value:
+        The section's position, in the beam's length unit.
+    """
 
 
 class OutsideRangeError(DesignInputError):

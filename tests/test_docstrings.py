@@ -22,7 +22,7 @@ import pytest
 
 import ilkit
 
-PACKAGES = ("ilkit", "ilkit.loads", "ilkit.design", "ilkit.trusses", "ilkit.batch", "ilkit.views")
+PACKAGES = ("ilkit", "ilkit.loads", "ilkit.design", "ilkit.rating", "ilkit.trusses", "ilkit.batch", "ilkit.views")
 
 # what a docstring says when it states a unit, and when it states a sign convention
 UNIT = re.compile(

@@ -31,6 +31,7 @@ from ilkit import (
     Spring,
     Support,
     batch,
+    rating,
     trusses,
 )
 from ilkit.design import (
@@ -587,6 +588,7 @@ _TRUSS = trusses.pratt(40, 4, 3, units="kN-m")
 _TRUSS_ENVELOPE = trusses.member_envelope(_TRUSS, KNIFE)
 _DEAD = DistributedLoad("w", "DC", 1)
 _PERMANENT = permanent_effects(TWO_SPANS, [_DEAD], divisions=2)
+_RATED = permanent_effects(SPAN, [_DEAD], divisions=1, quantities=("moment", "shear"))
 _EXTREME = place(TWO_SPANS.moment(5), KNIFE)
 
 
@@ -741,6 +743,28 @@ ENTRY_POINTS = {
     "EnvelopeTask limit_states": lambda v: batch.EnvelopeTask(limit_states=v),
     "EnvelopeTask divisions": lambda v: batch.EnvelopeTask(divisions=v),
     "batch file_name": lambda v: batch.file_name("sheets", v),
+    # load rating
+    "Resistances positive_moment": lambda v: rating.Resistances(positive_moment=v),
+    "Resistances ranges": lambda v: rating.Resistances(shear=[(0, 10, v)]),
+    "Resistances phi": lambda v: rating.Resistances(shear=1, phi_shear=v),
+    "Resistances.nominal at": lambda v: rating.Resistances(shear=[(0, 10, 5)]).nominal("shear", "positive", v),
+    "condition_factor": lambda v: rating.condition_factor(v),
+    "system_factor": lambda v: rating.system_factor(v),
+    "legal_live_factor adtt": lambda v: rating.legal_live_factor(v),
+    "permit_live_factor kind": lambda v: rating.permit_live_factor(v),
+    "posting_load weight": lambda v: rating.posting_load(0.5, v),
+    "permit_vehicle axles": lambda v: rating.permit_vehicle(v, [4.0]),
+    "permit_vehicle spacings": lambda v: rating.permit_vehicle([10.0, 10.0], v),
+    "rating_loads": lambda v: rating.rating_loads(v),
+    "legal_load adtt": lambda v: rating.legal_load("Type 3", adtt=v),
+    "arema_impact span": lambda v: rating.arema_impact(v),
+    "arema_impact girder_spacing": lambda v: rating.arema_impact(50, girder_spacing=v),
+    "rate_girder loads": lambda v: rating.rate_girder(SPAN, permanent=_RATED, loads=v, divisions=1,
+                                                      distribution=given_distribution(0.5),
+                                                      resistances=rating.Resistances(positive_moment=100)),
+    "rate_girder condition": lambda v: rating.rate_girder(SPAN, permanent=_RATED, loads="Type 3", divisions=1,
+                                                          condition=v, distribution=given_distribution(0.5),
+                                                          resistances=rating.Resistances(positive_moment=100)),
 }
 
 

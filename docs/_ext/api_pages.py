@@ -1,7 +1,7 @@
 """API reference pages: one page per public name, one summary page per package.
 
-The public names are the ``__all__`` of ``ilkit``, ``ilkit.loads``, ``ilkit.design``, ``ilkit.trusses``,
-``ilkit.batch`` and ``ilkit.views``.  A name listed by several packages (``ilkit.AxleTrain`` is
+The public names are the ``__all__`` of ``ilkit``, ``ilkit.loads``, ``ilkit.design``, ``ilkit.rating``,
+``ilkit.trusses``, ``ilkit.batch`` and ``ilkit.views``.  A name listed by several packages (``ilkit.AxleTrain`` is
 ``ilkit.loads.AxleTrain``) is documented once, in the most specific package, and the others link to it.
 """
 
@@ -15,9 +15,9 @@ import sys
 from functools import cache
 from typing import Any
 
-PACKAGES = ("ilkit", "ilkit.loads", "ilkit.design", "ilkit.trusses", "ilkit.batch", "ilkit.views")
-PAGE = {"ilkit": "ilkit", "ilkit.loads": "loads", "ilkit.design": "design", "ilkit.trusses": "trusses",
-        "ilkit.batch": "batch", "ilkit.views": "views"}
+PACKAGES = ("ilkit", "ilkit.loads", "ilkit.design", "ilkit.rating", "ilkit.trusses", "ilkit.batch", "ilkit.views")
+PAGE = {"ilkit": "ilkit", "ilkit.loads": "loads", "ilkit.design": "design", "ilkit.rating": "rating",
+        "ilkit.trusses": "trusses", "ilkit.batch": "batch", "ilkit.views": "views"}
 
 # groups of a package's summary, by the module that defines a name (first match wins)
 GROUPS: tuple[tuple[str, str], ...] = (
@@ -46,6 +46,11 @@ GROUPS: tuple[tuple[str, str], ...] = (
     ("ilkit.design.factored", "Limit states and factored envelopes"),
     ("ilkit.design.concurrent", "Concurrent forces and deflection"),
     ("ilkit.design.deflection", "Concurrent forces and deflection"),
+    ("ilkit.rating.lrfr", "Rating a girder (LRFR)"),
+    ("ilkit.rating.resistance", "Rating a girder (LRFR)"),
+    ("ilkit.rating.vehicles", "Rating vehicles"),
+    ("ilkit.rating.factors", "Rating factors and posting"),
+    ("ilkit.rating.rail", "Rail ratings"),
     ("ilkit.trusses.model", "The truss"),
     ("ilkit.trusses.layouts", "Layouts"),
     ("ilkit.trusses.statics", "The truss"),
@@ -63,6 +68,9 @@ GROUPS: tuple[tuple[str, str], ...] = (
     ("ilkit.views.sketch", "Drawings"),
     ("ilkit.views.moving", "Drawings"),
     ("ilkit.views.design_plots", "Drawings"),
+    ("ilkit.views.rating_plots", "Drawings"),
+    ("ilkit.views.rating_records", "Calculation sheets"),
+    ("ilkit.views.rating_view", "The explorer"),
     ("ilkit.views.derive", "Derivations"),
     ("ilkit.views.tables", "Tables and export"),
     ("ilkit.views.report", "Calculation sheets"),
@@ -70,6 +78,7 @@ GROUPS: tuple[tuple[str, str], ...] = (
     ("ilkit.views", "Subpackages"),
     ("ilkit.loads", "Subpackages"),
     ("ilkit.design", "Subpackages"),
+    ("ilkit.rating", "Subpackages"),
     ("ilkit.trusses", "Subpackages"),
     ("ilkit.batch", "Subpackages"),
     ("ilkit", "Other names"),

@@ -32,8 +32,10 @@ from ilkit.errors import DesignInputError, FactorAppliedTwiceError
 
 __all__ = ["FactorKind", "FACTOR_KINDS", "Factor", "Applied", "FactorAppliedTwiceError"]
 
-FactorKind = Literal["dynamic allowance", "multiple presence", "distribution", "load factor", "lanes", "adjustment"]
-"""The kinds of factor a result can contain; each at most once."""
+FactorKind = Literal["dynamic allowance", "multiple presence", "distribution", "load factor", "lanes", "adjustment",
+                     "resistance", "condition", "system"]
+"""The kinds of factor a result can contain; each at most once (``"resistance"``, ``"condition"`` and
+``"system"`` are the factors φ, φc and φs of a capacity in a load rating)."""
 
 FACTOR_KINDS: tuple[str, ...] = get_args(FactorKind)
 """Every :data:`FactorKind`, in the order a live load usually receives them."""
@@ -61,7 +63,8 @@ class Factor:
     kind:
         One of :data:`FactorKind`: ``"dynamic allowance"``, ``"multiple
         presence"``, ``"distribution"``, ``"load factor"``, ``"lanes"``,
-        ``"adjustment"``.
+        ``"adjustment"``; for a capacity ``"resistance"`` (φ), ``"condition"``
+        (φc), ``"system"`` (φs).
     value:
         The multiplier (dimensionless, at least 0): 1.33 for a dynamic
         allowance IM of 33 %, 1.20 for m, 0.62 for g, 1.75 for γLL.

@@ -36,7 +36,10 @@ and lane placements in :mod:`ilkit.views.factored_records`, drawn by
 :func:`plot_factored_envelope` (with the unfactored components underneath)
 and :func:`plot_transverse`.  Batch runs over a girder inventory (:mod:`ilkit.batch`):
 :func:`plot_inventory` (the spread of a governing value across the inventory) and
-:func:`write_girder_sheet` (one girder's sheet on demand), in ``ilkit.views.inventory``.
+:func:`write_girder_sheet` (one girder's sheet on demand), in ``ilkit.views.inventory``; load
+ratings (:mod:`ilkit.rating`) in :mod:`ilkit.views.rating_records`, drawn by :func:`plot_rating` and
+:func:`plot_rail_rating`, written as a rating sheet (HTML, Markdown and PDF) by :func:`write_rating_sheet`,
+explored with :class:`RatingView` (pick a vehicle, move it, watch the RF).
 
 A new result type joins by registering with the dispatchers
 :func:`ilkit.views.display.mimebundle`, :func:`table`,
@@ -45,7 +48,7 @@ A new result type joins by registering with the dispatchers
 """
 
 # tables, displays and sheet sections of the moving-load and design results register themselves
-from ilkit.views import design_records, factored_records, moving_records  # noqa: F401
+from ilkit.views import design_records, factored_records, moving_records, rating_records  # noqa: F401
 from ilkit.views.derive import Derivation, derivation
 from ilkit.views.design_plots import plot_deflection_check, plot_permanent_effects
 from ilkit.views.draw import draw_beam
@@ -55,6 +58,9 @@ from ilkit.views.formula import formula
 from ilkit.views.inventory import plot_inventory, write_girder_sheet
 from ilkit.views.moving import plot_envelope, plot_placement
 from ilkit.views.plot import plot_line
+from ilkit.views.rating_plots import plot_rail_rating, plot_rating
+from ilkit.views.rating_records import RatingSheet, write_rating_sheet
+from ilkit.views.rating_view import RatingView
 from ilkit.views.report import CalculationSheet, TitleBlock, write_calculation_sheet
 from ilkit.views.sketch import sketch
 from ilkit.views.tables import plain_names, summary, table, to_csv, to_excel, to_latex
@@ -85,6 +91,11 @@ __all__ = [
     "plot_deflection_check",
     "plot_factored_envelope",
     "plot_transverse",
+    "plot_rating",
+    "plot_rail_rating",
+    "write_rating_sheet",
+    "RatingSheet",
+    "RatingView",
     "draw_truss",
     "plot_member_forces",
 ]

@@ -14,7 +14,13 @@
   beams (kip, ft).  :func:`write_truss_sheet` writes its sheet with the
   member forces under HL-93.
 
-The demo runner (``python -m ilkit.demo``) calls all three; their title blocks
+* The rated girder of ``notebooks/load_rating.ipynb``: a 1960s-style three-span continuous
+  steel girder of 70 + 90 + 70 ft (kip, ft) whose first span lost section to corrosion, rated for the
+  design load, the legal loads, the emergency vehicles and a permit vehicle of our own.
+  :func:`write_rating_demo_sheet` writes its rating sheet (HTML, Markdown and, where WeasyPrint is
+  installed, PDF).
+
+The demo runner (``python -m ilkit.demo``) calls all four; their title blocks
 are filled in (the checker's box is left for a person).
 """
 
@@ -37,6 +43,9 @@ __all__ = [
     "through_truss",
     "truss_lane_factor",
     "write_truss_sheet",
+    "corroded_girder",
+    "corroded_girder_rating",
+    "write_rating_demo_sheet",
 ]
 
 
@@ -156,4 +165,56 @@ def write_truss_sheet(directory: str | Path) -> CalculationSheet:
                            "the lower chord",
               "live load": f"AASHTO LRFD HL-93 times {factor:g} lanes per truss (lever rule, two lanes, multiple "
                            "presence 1.00), dynamic allowance 33 % on truck and tandem"},
+    )
+
+
+def corroded_girder() -> Beam:
+    """The rated girder: three continuous spans of 70, 90 and 70 ft; the first span's steel lost section to
+    corrosion, so its EI is smaller (kip, ft; invented numbers)."""
+    return Beam(230, {0: "pin", 70: "roller", 160: "roller", 230: "roller"},
+                EI=[(0, 70, 3.4e6), (70, 230, 4.0e6)], units="kip-ft")
+
+
+def corroded_girder_rating() -> object:
+    """The notebook's rating of :func:`corroded_girder` (girder 2 of five, 7.5 ft apart): dead loads, lever-rule
+    distribution, nominal resistances with the corroded first span and the web loss at the abutment bearing,
+    fair condition, ADTT 1200, the Service II limits of the steel; the design load, the legal loads, the
+    emergency vehicles and a permit vehicle of our own (a six-axle transformer hauler, special single trip
+    with traffic)."""
+    from ilkit import design, rating
+
+    beam = corroded_girder()
+    dead = [design.DistributedLoad("steel, slab and haunch", "DC", 1.05),
+            design.DistributedLoad("parapets (share)", "DC", 0.10),
+            design.DistributedLoad("asphalt overlay", "DW", 0.22)]
+    permanent = design.permanent_effects(beam, dead, quantities=("moment", "shear"))
+    section = design.CrossSection(girders=5, spacing=7.5, overhang=2.5, barrier=1.25, units="kip-ft")
+    resistances = rating.Resistances(
+        positive_moment=[(0, 70, 1800), (70, 230, 2900)], negative_moment=2700,
+        shear=[(0, 8, 300), (8, 230, 420)], name="G2, 1964 plans with the section loss of the last inspection")
+    service = rating.Resistances(positive_moment=[(0, 70, 1450), (70, 230, 2300)], negative_moment=2150,
+                                 name="0.80 Fy in the flanges (non-composite)")
+    hauler = rating.permit_vehicle([14, 36, 36, 34, 34, 34], [13, 4.5, 26, 4.5, 4.5], name="transformer hauler")
+    return rating.rate_girder(
+        beam, permanent=permanent, resistances=resistances, distribution=design.lever_rule(section, 2),
+        loads=["design", "legal", "emergency", rating.permit_load(hauler, "special single trip", adtt=1200)],
+        adtt=1200, condition="fair", service=service)
+
+
+def write_rating_demo_sheet(directory: str | Path) -> object:
+    """Write the rating sheet of :func:`corroded_girder_rating` into ``directory`` (``load_rating.html``,
+    ``.md`` and, where WeasyPrint is installed, ``.pdf``)."""
+    from ilkit.views.rating_records import write_rating_sheet
+
+    return write_rating_sheet(
+        corroded_girder_rating(),  # type: ignore[arg-type]
+        Path(directory) / "load_rating",
+        title="Load rating of a three-span steel girder with a corroded span",
+        title_block={"project": "ilkit demo study (invented data)",
+                     "bridge": "Three-span continuous steel girder bridge (1960s style)",
+                     "girder": "G2 of five, spans 70 + 90 + 70 ft", "engineer": "ilkit demo", "checker": "",
+                     "date": "2025-01-15", "revision": "A"},
+        info={"scenario": "demo data (invented numbers), as in notebooks/load_rating.ipynb",
+              "condition": "fair (section loss in span 1 and in the web at the left bearing)",
+              "traffic": "ADTT 1200 trucks a day in one direction"},
     )

@@ -160,12 +160,13 @@ def test_verification_manual_lists_every_reference_test_with_a_source(site, offl
 
 def test_every_public_name_has_its_api_page(site):
     html = "".join(p.read_text(encoding="utf-8") for p in (site / "generated" / "api").glob("*.html"))
-    for package in ("ilkit", "ilkit.loads", "ilkit.design", "ilkit.views"):
+    for package in ("ilkit", "ilkit.loads", "ilkit.design", "ilkit.rating", "ilkit.views"):
         module = importlib.import_module(package)
         for name in module.__all__:
             obj = getattr(module, name)
             anchors = {f'id="{package}.{name}"', f'id="{getattr(obj, "__name__", "")}"',
-                       f'id="ilkit.loads.{name}"', f'id="ilkit.design.{name}"', f'id="ilkit.views.{name}"',
+                       f'id="ilkit.loads.{name}"', f'id="ilkit.design.{name}"', f'id="ilkit.rating.{name}"',
+                       f'id="ilkit.views.{name}"',
                        f'id="module-{package}.{name}"'}
             assert any(a in html for a in anchors), f"{package}.{name} has no API entry"
 
