@@ -25,8 +25,7 @@ from ilkit.errors import MissingDependencyError, RatingInputError
 from ilkit.rating.lrfr import GirderRating
 from ilkit.rating.rail import RailRating
 from ilkit.rating.resistance import RESISTANCE_KINDS
-from ilkit.views import _doc
-from ilkit.views._doc import Block, Callout, Figure, Heading, Para, Table
+from ilkit.views._doc import Block, Callout, Heading, Para, Table
 from ilkit.views.caution import CAUTION
 from ilkit.views.design_records import load_words
 from ilkit.views.display import mimebundle
@@ -35,7 +34,7 @@ from ilkit.views.moving import plot_placement
 from ilkit.views.moving_records import _html, _slug, figure_block
 from ilkit.views.numbers import short
 from ilkit.views.rating_plots import plot_rail_rating, plot_rating
-from ilkit.views.report import TitleBlock, _inputs, _page, report_section
+from ilkit.views.report import TitleBlock, _inputs, report_section, sheet_files
 from ilkit.views.tables import table
 
 if TYPE_CHECKING:  # pragma: no cover
@@ -342,17 +341,7 @@ def write_rating_sheet(
     stem = _stem(path)
     block = _title_block(title_block)
     blocks = sheet_blocks(rating, title=title, title_block=block, info=info, rail=rails)
-    figures = stem.parent / f"{stem.name}_figures"
-    svgs: dict[Path, str] = {}
-
-    def link(fig: Figure) -> str:
-        target = figures / f"{fig.name}.svg"
-        svgs[target] = fig.svg
-        return f"{figures.name}/{target.name}"
-
-    page = _page(title, _doc.to_html(blocks), block.footer(title))
-    files: dict[Path, str | bytes] = {stem.with_suffix(".html"): page,
-                                      stem.with_suffix(".md"): _doc.to_markdown(blocks, link), **svgs}
+    page, files, figures = sheet_files(stem, title, blocks, block)
     pdf_path = None
     if pdf is not False:
         data = pdf_bytes(page, required=pdf is True)

@@ -552,19 +552,28 @@ def write_calculation_sheet(
     block = TitleBlock.of(title_block)
     blocks = sheet_blocks(beam, lines, results, load=load, divisions=divisions, title=title, info=info,
                           title_block=block)
+    _, files, figures = sheet_files(stem, title, blocks, block)
+    # all files or none: a failure never leaves new HTML beside old Markdown
+    write_files(files, what="write_calculation_sheet")
+    return CalculationSheet(stem.with_suffix(".html"), stem.with_suffix(".md"), figures)
+
+
+def sheet_files(
+    stem: Path, title: str, blocks: list[Block], block: TitleBlock
+) -> tuple[str, dict[Path, str | bytes], Path]:
+    """The files of a sheet at ``stem``: its HTML page, the page's Markdown twin and the Markdown's SVG
+    figures in ``<stem>_figures/``; returns the page, the files by path (for :func:`write_files`) and the
+    figures' folder."""
     figures = stem.parent / f"{stem.name}_figures"
-    svgs: dict[Path, str] = {}
+    svgs: dict[Path, str | bytes] = {}
 
     def link(fig: Figure) -> str:
         target = figures / f"{fig.name}.svg"
         svgs[target] = fig.svg
         return f"{figures.name}/{target.name}"
 
-    html_path = stem.with_suffix(".html")
-    md_path = stem.with_suffix(".md")
-    markdown = _doc.to_markdown(blocks, link)
     page = _page(title, _doc.to_html(blocks), block.footer(title))
-    # all files or none: a failure never leaves new HTML beside old Markdown
-    write_files({html_path: page, md_path: markdown, **svgs}, what="write_calculation_sheet")
-    return CalculationSheet(html_path, md_path, figures)
+    files: dict[Path, str | bytes] = {stem.with_suffix(".html"): page,
+                                      stem.with_suffix(".md"): _doc.to_markdown(blocks, link), **svgs}
+    return page, files, figures
 
