@@ -36,6 +36,7 @@ if TYPE_CHECKING:  # pragma: no cover
     import pandas as pd
     from matplotlib.axes import Axes
 
+    from ilkit.views.rating_records import RatingSheet
     from ilkit.views.report import CalculationSheet
 
 __all__ = ["plot_inventory", "write_girder_sheet", "write_inventory_demo"]
@@ -55,24 +56,54 @@ def _unit(system: str, quantity: str) -> str:
 
 def plot_inventory(
     result: BatchResult,
-    quantity: Literal["moment", "shear", "reaction"] = "moment",
-    extreme: Literal["max", "min"] = "max",
+    quantity: Literal["moment", "shear", "reaction", "RF"] = "moment",
+    extreme: Literal["max", "min"] | None = None,
     ax: Axes | None = None,
     *,
     bins: int = 30,
+    vehicle: str | None = None,
 ) -> Axes:
-    """Histogram of the governing ``extreme`` of ``quantity`` of each girder done (the summary's
-    ``{quantity}_{extreme}``, over every load and section of the run), one set of bars per unit system
-    (values are not converted); returns the axes.  Sagging moment positive, shear and reactions as in
-    :mod:`ilkit.model`."""
+    """Histogram of one governing value of each girder done, across the inventory; returns the axes.
+
+    An envelope run: the ``extreme`` (``"max"``, the default, or ``"min"``) of ``quantity`` (the summary's
+    ``{quantity}_{extreme}``, over every load and section of the run), one set of bars per unit system (values
+    are not converted); sagging moment positive, shear and reactions as in :mod:`ilkit.model`.  A rating run
+    (:class:`ilkit.batch.RatingTask`): ``quantity="RF"``, the controlling rating factor of each girder
+    (dimensionless), or that of ``vehicle`` (``"Type 3"``), with a line at RF = 1."""
     expect(result, BatchResult, what="plot_inventory", hint="give the result of ilkit.batch.run(...)")
-    choice(quantity, QUANTITIES, what="plot_inventory: quantity", field="quantity", error=BatchInputError)
-    choice(extreme, ("max", "min"), what="plot_inventory: extreme", field="extreme", error=BatchInputError)
+    choice(quantity, (*QUANTITIES, "RF"), what="plot_inventory: quantity", field="quantity", error=BatchInputError)
+    rf = quantity == "RF"
+    choice(extreme, ("min",) if rf else ("max", "min"), what="plot_inventory: extreme", field="extreme",
+           error=BatchInputError, optional=True)
+    if vehicle is not None and not rf:
+        raise BatchInputError("plot_inventory: vehicle goes with quantity='RF' (a rating run).", field="vehicle",
+                              value=vehicle)
     n = whole(bins, what="plot_inventory: bins", field="bins", minimum=1, error=BatchInputError)
     axes_or_none(ax, what="plot_inventory")
     summary = result.summary()
     done = summary[summary["status"] == "done"]
-    column = f"{quantity}_{extreme}"
+    if rf:
+        column = "RF" if vehicle is None else f"RF: {vehicle}"
+        if column not in summary:
+            vehicles = [c.removeprefix("RF: ") for c in summary.columns if str(c).startswith("RF: ")]
+            raise BatchInputError(
+                f"plot_inventory: no rating factors of {vehicle if vehicle is not None else 'any vehicle'!r} in this "
+                f"run; " + (f"its vehicles: {', '.join(vehicles)}." if vehicles else "rate it with "
+                            "batch.run(..., task=batch.RatingTask(...))."), field="vehicle", value=vehicle)
+        words = "controlling rating factor" + (f" for {vehicle}" if vehicle is not None else "")
+        with style.context():
+            ax = style.axes(ax, 3.2)
+            values = done[column].to_numpy(dtype=float)
+            ax.hist(values, bins=n, label=f"{len(values)} girders")
+            ax.axvline(1.0, color="0.25", linestyle="--", linewidth=1.0, label="RF = 1")
+            ax.set_xlabel(f"{words} of each girder")
+            ax.set_ylabel("girders")
+            ax.set_title(f"{words.capitalize()} across the inventory: {len(done)} girders done, "
+                         f"{len(summary) - len(done)} not done", fontsize="medium")
+            ax.legend(fontsize="small")
+        return ax
+    which = extreme or "max"
+    column = f"{quantity}_{which}"
     with style.context():
         ax = style.axes(ax, 3.2)
         groups = list(done.groupby("units", sort=True)) if not done.empty else []
@@ -82,30 +113,37 @@ def plot_inventory(
             ax.hist(values, bins=n, alpha=0.75 if len(groups) > 1 else 1.0,
                     label=f"{system}: {len(values)} girders ({unit})")
         units = sorted({_unit(str(s), quantity) for s, _ in groups})
-        ax.set_xlabel(f"{_WORDS[(quantity, extreme)]} of each girder" + (f" ({units[0]})" if len(units) == 1 else ""))
+        ax.set_xlabel(f"{_WORDS[(quantity, which)]} of each girder" + (f" ({units[0]})" if len(units) == 1 else ""))
         ax.set_ylabel("girders")
-        ax.set_title(f"{_WORDS[(quantity, extreme)].capitalize()} across the inventory: {len(done)} girders done, "
+        ax.set_title(f"{_WORDS[(quantity, which)].capitalize()} across the inventory: {len(done)} girders done, "
                      f"{len(summary) - len(done)} not done", fontsize="medium")
         if groups:
             ax.legend(fontsize="small")
     return ax
 
 
-def write_girder_sheet(result: BatchResult, girder: str, folder: str | os.PathLike[str]) -> CalculationSheet:
+def write_girder_sheet(result: BatchResult, girder: str,
+                       folder: str | os.PathLike[str]) -> CalculationSheet | RatingSheet:
     """Write the calculation sheet of one girder of a run into ``folder``: its beam and the run's results for
     it computed again from its record (for each load model the girder's live load and one lane's envelope
-    with its placements; the permanent effects and the factored envelopes of the limit states); the files
-    are named after the girder's id, escaped so that they stay in ``folder`` (:func:`ilkit.batch.file_name`).
-    Returns the :class:`~ilkit.views.CalculationSheet`."""
+    with its placements; the permanent effects and the factored envelopes of the limit states; for a rating
+    run the rating sheet, :func:`ilkit.views.write_rating_sheet`, HTML and Markdown); the files are named
+    after the girder's id, escaped so that they stay in ``folder`` (:func:`ilkit.batch.file_name`).
+    Returns the :class:`~ilkit.views.CalculationSheet` (or the rating sheet's paths)."""
     from ilkit.views.report import write_calculation_sheet
 
     expect(result, BatchResult, what="write_girder_sheet", hint="give the result of ilkit.batch.run(...)")
     record = result.record(girder)
     computed = result.compute(girder)
+    source = (result.inventory.source if result.inventory else "") or "records given in Python"
+    if computed and computed[0][1] == "rating":
+        from ilkit.views.rating_records import write_rating_sheet
+
+        return write_rating_sheet(computed[0][2], file_name(folder, girder, ".html"), title=f"Load rating of girder "
+                                  f"{girder}", info={"girder": girder, "inventory": source}, pdf=False)
     beam = record.beam()
     loads = ", ".join(load for load, kind, _ in computed if kind == "load model")
     states = ", ".join(str(s) for s in result.settings.get("limit_states", []))
-    source = (result.inventory.source if result.inventory else "") or "records given in Python"
     info = {"girder": girder, "inventory": source,
             "load models": loads or "-", "limit states": states or "-"}
     results: list[Any] = []
