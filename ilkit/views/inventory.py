@@ -184,15 +184,21 @@ def write_inventory_demo(out: str | os.PathLike[str], girders: int = 300, *, wor
     5 spans of 20 to 150 ft, kip-ft) under HL-93, Strength I and Service II at tenth points into
     ``out/inventory_run/`` (the Parquet tables) and write ``out/inventory_run.html`` (the counts, histograms
     of the governing values and the summary table; it renders offline) and ``out/inventory_run_summary.csv``;
-    returns the page.  A second call resumes the run (nothing is computed twice)."""
+    rate the girders that carry resistances (every fourth) for the design and legal loads into
+    ``out/inventory_rating/`` and write ``out/inventory_rating.html`` (:func:`write_rating_demo`), linked
+    from the first page; returns the first page.  A second call resumes the runs (nothing is computed
+    twice)."""
     from ilkit._files import write_files
     from ilkit.batch import run, sample_inventory
     from ilkit.views import _doc
 
     folder = Path(out)
     n = whole(girders, what="write_inventory_demo: girders", field="girders", minimum=1, error=BatchInputError)
-    result = run(sample_inventory(n), folder / "inventory_run", models=["HL-93"],
+    records = sample_inventory(n)
+    result = run(records, folder / "inventory_run", models=["HL-93"],
                  limit_states=["Strength I", "Service II"], workers=workers, progress=progress)
+    rated = [r for r in records if "resistance" in r]
+    rating_page = write_rating_demo(folder, rated, workers=workers, progress=progress)
     summary = result.summary()
     figures = []
     for quantity, extreme in _DEMO_PLOTS:
@@ -215,10 +221,75 @@ def write_inventory_demo(out: str | os.PathLike[str], girders: int = 300, *, wor
         "states; sagging moment positive, shear positive when the part left of the section is pushed up, "
         "reactions upward. Tables: inventory_run/results.parquet, inventory_run/summary.parquet, "
         "inventory_run_summary.csv.</p>"
+        f"<p>The load rating of the {len(rated)} girders that carry resistances: "
+        f"<a href='{rating_page.name}'>{rating_page.name}</a>.</p>"
         + "".join(figures)
         + summary[columns].to_html(index=False, float_format=lambda v: f"{v:.1f}")
         + "</body></html>")
     target = folder / "inventory_run.html"
     write_files({target: page, folder / "inventory_run_summary.csv": summary.to_csv(index=False)},
                 what="write_inventory_demo")
+    return target
+
+
+_RATING_DEMO = {"loads": ("design", "legal"), "adtt": 1500, "condition": "good"}
+
+
+def write_rating_demo(out: str | os.PathLike[str], records: list[dict[str, Any]], *, workers: int | None = None,
+                      progress: bool = True) -> Path:
+    """Rate ``records`` (inventory records with resistances) for the design load and the legal loads (ADTT
+    1500, good condition; :class:`ilkit.batch.RatingTask`) into ``out/inventory_rating/`` and write
+    ``out/inventory_rating.html`` (the controlling rating factor of each vehicle across the inventory, a
+    histogram of each girder's controlling RF and the summary table; it renders offline) and
+    ``out/inventory_rating_summary.csv``; returns the page."""
+    import pandas as pd
+
+    from ilkit._files import write_files
+    from ilkit.batch import RatingTask, run
+    from ilkit.views import _doc
+
+    folder = Path(out)
+    result = run(records, folder / "inventory_rating", task=RatingTask(**_RATING_DEMO), workers=workers,
+                 progress=progress)
+    summary = result.summary()
+    done = summary[summary["status"] == "done"]
+    vehicles = [str(c).removeprefix("RF: ") for c in summary.columns if str(c).startswith("RF: ")]
+    per_vehicle = pd.DataFrame([{
+        "vehicle": v, "girders rated": int(done[f"RF: {v}"].notna().sum()),
+        "smallest RF": done[f"RF: {v}"].min(),
+        "girder": done.loc[done[f"RF: {v}"].idxmin(), "girder"] if not done.empty else "",
+        "where": done.loc[done[f"RF: {v}"].idxmin(), f"where: {v}"] if not done.empty else "",
+        "median RF": done[f"RF: {v}"].median(), "girders with RF < 1": int((done[f"RF: {v}"] < 1).sum()),
+        "girders with a posting load": int(done[f"posting: {v}"].notna().sum()),
+    } for v in vehicles])
+    with style.context():
+        fig = style.new_figure(3.2)
+        plot_inventory(result, "RF", ax=fig.add_subplot(), bins=30)
+        figure = (f'<p><img src="{_doc.svg_data_uri(style.figure_svg(fig))}" '
+                  'alt="controlling rating factor of each girder"></p>')
+    columns = ["girder", "status", "field", "spans", "RF", "RF_vehicle", "RF_where",
+               *[f"RF: {v}" for v in vehicles[:5]], "rating tons: Type 3", "posting: Type 3"]
+    columns = [c for c in columns if c in summary]
+    page = (
+        "<!doctype html><html><head><meta charset='utf-8'><title>Inventory rating: design and legal loads"
+        "</title></head><body style='font-family: sans-serif; max-width: 60em; margin: 2em auto'>"
+        "<h1>Inventory rating: HL-93 and the AASHTO legal loads over a generated inventory</h1>"
+        f"<p><strong>Caution.</strong> {html.escape(CAUTION)} A load rating must be checked and sealed by a "
+        "licensed engineer under the bridge owner's rules; the rating factors recalled from the Manual for Bridge "
+        "Evaluation are marked from memory in ilkit.rating.</p>"
+        f"<p>{len(summary)} girders of our own with invented nominal resistances (demo data: no cross-section "
+        f"stands behind them), {len(done)} rated, {result.failed} failed, {result.invalid} invalid; LRFR at "
+        "tenth points (ilkit.batch.RatingTask: the design load at inventory and operating levels, the legal "
+        "loads with γLL for an ADTT of 1500, φc = 1.0 for good condition, φs = 1.0). Rating in tons and the "
+        "posting load for the legal vehicles. Tables: inventory_rating/results.parquet, "
+        "inventory_rating/summary.parquet, inventory_rating_summary.csv.</p>"
+        "<h2>Controlling rating factor of each vehicle across the inventory</h2>"
+        + per_vehicle.to_html(index=False, float_format=lambda v: f"{v:.2f}")
+        + figure
+        + "<h2>Each girder</h2>"
+        + summary[columns].to_html(index=False, float_format=lambda v: f"{v:.2f}")
+        + "</body></html>")
+    target = folder / "inventory_rating.html"
+    write_files({target: page, folder / "inventory_rating_summary.csv": summary.to_csv(index=False)},
+                what="write_rating_demo")
     return target
