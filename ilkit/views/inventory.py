@@ -284,10 +284,10 @@ def write_rating_demo(out: str | os.PathLike[str], records: list[dict[str, Any]]
         "posting load for the legal vehicles. Tables: inventory_rating/results.parquet, "
         "inventory_rating/summary.parquet, inventory_rating_summary.csv.</p>"
         "<h2>Controlling rating factor of each vehicle across the inventory</h2>"
-        + per_vehicle.to_html(index=False, float_format=lambda v: f"{v:.2f}")
+        + per_vehicle.to_html(index=False, float_format=lambda v: f"{v:.2f}", na_rep="")
         + figure
         + "<h2>Each girder</h2>"
-        + summary[columns].to_html(index=False, float_format=lambda v: f"{v:.2f}")
+        + summary[columns].to_html(index=False, float_format=lambda v: f"{v:.2f}", na_rep="")
         + "</body></html>")
     target = folder / "inventory_rating.html"
     write_files({target: page, folder / "inventory_rating_summary.csv": summary.to_csv(index=False)},
