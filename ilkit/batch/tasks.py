@@ -286,7 +286,6 @@ def _fmt(value: Fraction) -> str:
     return f"{float(value):g}"
 
 
-
 RATING_COLUMNS = ("girder", "section", "x", "side", "quantity", "sense", "vehicle", "level", "limit_state", "RF",
                   "Rn", "capacity", "dead", "live", "gamma_LL", "case", "placement")
 """The columns of the rating task's rows (:meth:`ilkit.rating.GirderRating.frame`, one row per section, face,
@@ -394,21 +393,16 @@ class RatingTask:
         rows = pd.DataFrame({"girder": record.id, "section": _labels(beam, f), **{c: f[c] for c in RATING_COLUMNS[2:]}})
         supports = [float(s.at) for s in beam.supports]
         out = _summary_head(record, beam, rows)
-        best = rows.loc[rows["RF"].idxmin()]
-        out.update({"RF": float(best["RF"]), "RF_vehicle": str(best["vehicle"]), "RF_where": _where(best),
-                    "RF_x": float(best["x"])})
         controlling = rated.controlling()
-        for c in controlling.itertuples(index=False):
-            label = _section_label(supports, float(beam.length), float(c.x), str(c.side))
-            out.update({f"RF: {c.vehicle}": float(c.RF),
-                        f"where: {c.vehicle}": _where({"section": label, "sense": c.sense, "quantity": c.quantity}),
-                        f"x: {c.vehicle}": float(c.x), f"rating tons: {c.vehicle}": float(c.rating_tons),
-                        f"posting: {c.vehicle}": float(c.posting)})
+        where = [f"{_section_label(supports, float(beam.length), float(c.x), str(c.side))}, {c.sense} {c.quantity}"
+                 for c in controlling.itertuples(index=False)]
+        worst = int(controlling["RF"].to_numpy().argmin())  # the first vehicle rated of the smallest RF
+        out.update({"RF": float(controlling["RF"].iat[worst]), "RF_vehicle": str(controlling["vehicle"].iat[worst]),
+                    "RF_where": where[worst], "RF_x": float(controlling["x"].iat[worst])})
+        for c, words in zip(controlling.itertuples(index=False), where):
+            out.update({f"RF: {c.vehicle}": float(c.RF), f"where: {c.vehicle}": words, f"x: {c.vehicle}": float(c.x),
+                        f"rating tons: {c.vehicle}": float(c.rating_tons), f"posting: {c.vehicle}": float(c.posting)})
         return GirderResult(rows.reset_index(drop=True), out)
-
-
-def _where(row: Any) -> str:
-    return f"{row['section']}, {row['sense']} {row['quantity']}"
 
 
 def _rating_shares(record: Record) -> tuple[Any, Any]:
