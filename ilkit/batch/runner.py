@@ -90,14 +90,16 @@ class BatchResult(RichDisplay):
         return self.folder / _SUMMARY
 
     def results(self) -> pd.DataFrame:
-        """The tidy table of every girder's rows (:data:`ilkit.batch.ROW_COLUMNS`), in inventory order; values
+        """The tidy table of every girder's rows (:data:`ilkit.batch.ROW_COLUMNS`; a rating run's:
+        :data:`ilkit.batch.RATING_COLUMNS`), in inventory order; values
         in each girder's units (its summary's ``units``), signs of :mod:`ilkit.model`."""
         return read_table(self.results_path)
 
     def summary(self) -> pd.DataFrame:
         """One row per girder of the inventory: :data:`STATUS_COLUMNS`, then the task's summary (for the
         envelope task the governing ``moment_max``, ``moment_min``, ``shear_max`` ... with their ``x``, load
-        and case), in inventory order."""
+        and case; for the rating task the controlling ``RF`` and per vehicle ``"RF: Type 3"`` ..., see
+        :class:`~ilkit.batch.RatingTask`), in inventory order."""
         return read_table(self.summary_path)
 
     def errors(self) -> pd.DataFrame:
