@@ -258,3 +258,13 @@ def test_one_girders_rating_sheet_from_a_rating_run(rated_run, tmp_path):
     text = sheet.html.read_text(encoding="utf-8")
     assert sheet.html.parent == tmp_path / "sheets" and f"Load rating of girder {RATED[0]['id']}" in text
     assert "licensed professional engineer" in text and sheet.pdf is None
+
+
+def test_sheets_of_ids_with_a_dot_keep_the_whole_id(tmp_path):
+    from ilkit import views
+
+    records = [{**RATED[0], "id": "Creek Rd G2.1"}, {**RATED[0], "id": "Creek Rd G2.2"}]
+    result = batch.run(records, tmp_path / "dots", task=batch.RatingTask(loads="HL-93 inventory", divisions=2),
+                       workers=1, progress=False)
+    names = {views.write_girder_sheet(result, r["id"], tmp_path / "sheets").html.name for r in records}
+    assert names == {"Creek%20Rd%20G2.1.html", "Creek%20Rd%20G2.2.html"}

@@ -351,16 +351,16 @@ def write_rating_sheet(
         return f"{figures.name}/{target.name}"
 
     page = _page(title, _doc.to_html(blocks), block.footer(title))
-    files: dict[Path, str | bytes] = {stem.with_suffix(".html"): page,
-                                      stem.with_suffix(".md"): _doc.to_markdown(blocks, link), **svgs}
+    files: dict[Path, str | bytes] = {stem.with_name(stem.name + ".html"): page,
+                                      stem.with_name(stem.name + ".md"): _doc.to_markdown(blocks, link), **svgs}
     pdf_path = None
     if pdf is not False:
         data = pdf_bytes(page, required=pdf is True)
         if data is not None:
-            pdf_path = stem.with_suffix(".pdf")
+            pdf_path = stem.with_name(stem.name + ".pdf")
             files[pdf_path] = data
     write_files(files, what="write_rating_sheet")
-    return RatingSheet(stem.with_suffix(".html"), stem.with_suffix(".md"), figures, pdf_path)
+    return RatingSheet(stem.with_name(stem.name + ".html"), stem.with_name(stem.name + ".md"), figures, pdf_path)
 
 
 def pdf_bytes(page: str, *, required: bool = True) -> bytes | None:

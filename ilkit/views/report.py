@@ -560,8 +560,8 @@ def write_calculation_sheet(
         svgs[target] = fig.svg
         return f"{figures.name}/{target.name}"
 
-    html_path = stem.with_suffix(".html")
-    md_path = stem.with_suffix(".md")
+    html_path = stem.with_name(stem.name + ".html")
+    md_path = stem.with_name(stem.name + ".md")
     markdown = _doc.to_markdown(blocks, link)
     page = _page(title, _doc.to_html(blocks), block.footer(title))
     # all files or none: a failure never leaves new HTML beside old Markdown
