@@ -288,7 +288,7 @@ def _fmt(value: Fraction) -> str:
 
 RATING_COLUMNS = ("girder", "section", "x", "side", "quantity", "sense", "vehicle", "level", "limit_state", "RF",
                   "Rn", "capacity", "dead", "live", "gamma_LL", "case", "placement")
-"""The columns of the rating task's rows (:meth:`ilkit.rating.GirderRating.frame`, one row per section, face,
+"""The columns of the rating task's rows (``frame`` of :class:`ilkit.rating.GirderRating`, one row per section, face,
 action, sense and vehicle): the girder's id, the ``section`` (``"span 2 at 0.30"``), ``x`` (record units) and
 ``side``; ``quantity`` (``"moment"``, ``"shear"``) and ``sense`` (``"positive"``: sagging moment, positive
 shear; ``"negative"``); the ``vehicle``, its ``level`` (``"design inventory"``, ``"legal"``, ``"permit"`` ...)
