@@ -58,21 +58,20 @@ def _batch(argv: list[str]) -> int:
     try:
         what: dict[str, object] = {"models": args.model or None, "limit_states": args.limit_state or None,
                                    "divisions": args.divisions}
-        rating_options = {"--adtt": args.adtt, "--condition": args.condition, "--system": args.system,
-                          "--wearing-surface-measured": args.wearing_surface_measured or None}
-        stray = [k for k, v in rating_options.items() if v is not None]
-        if args.rate is None and stray:
-            raise batch_error(f"{', '.join(stray)} belong to a rating run; give --rate too (e.g. --rate design,legal).",
+        given = {"adtt": args.adtt, "condition": _number_or_words(args.condition),
+                 "system": _number_or_words(args.system),
+                 "wearing_surface_measured": args.wearing_surface_measured or None}
+        given = {k: v for k, v in given.items() if v is not None}  # the others keep RatingTask's defaults
+        if args.rate is None and given:
+            options = ", ".join(f"--{k.replace('_', '-')}" for k in given)
+            raise batch_error(f"{options} belong to a rating run; give --rate too (e.g. --rate design,legal).",
                               field="rate")
         if args.rate is not None:
             if args.model or args.limit_state:
                 raise batch_error("give --rate (a rating run) or --model and --limit-state (an envelope run), not "
                                   "both; run them into two folders.", field="rate")
-            what = {"task": batch.RatingTask(
-                loads=[x.strip() for x in args.rate.split(",") if x.strip()], adtt=args.adtt,
-                condition=_number_or_words(args.condition or "good"),
-                system=_number_or_words(args.system or "all other girder bridges and slab bridges"),
-                divisions=args.divisions, wearing_surface_measured=args.wearing_surface_measured)}
+            what = {"task": batch.RatingTask(loads=[x.strip() for x in args.rate.split(",") if x.strip()],
+                                             divisions=args.divisions, **given)}
         result = batch.run(args.inventory, args.out, workers=args.workers, scheduler=args.scheduler,
                            chunk_size=args.chunk_size, progress=not args.no_progress,
                            retry_failed=args.retry_failed, fresh=args.fresh, **what)  # type: ignore[arg-type]
@@ -90,8 +89,10 @@ def _batch(argv: list[str]) -> int:
     return 0
 
 
-def _number_or_words(text: str) -> str | float:
-    """A factor given on the command line: a number (``0.95``) or its words (``fair``)."""
+def _number_or_words(text: str | None) -> str | float | None:
+    """A factor given on the command line: a number (``0.95``) or its words (``fair``); ``None`` when not given."""
+    if text is None:
+        return None
     try:
         return float(text)
     except ValueError:

@@ -7,12 +7,7 @@ must equal them exactly, with one or two worker processes.
 
 from __future__ import annotations
 
-import json
 import math
-import os
-import subprocess
-import sys
-from pathlib import Path
 
 import pandas as pd
 import pytest
@@ -22,7 +17,6 @@ from ilkit import batch, design, loads, rating
 
 pytest.importorskip("pyarrow")
 
-ROOT = Path(__file__).resolve().parents[1]
 SAMPLE = batch.sample_inventory(6, seed=11, spans=(1, 3), lengths=(30.0, 90.0), rated=2)
 RATED = [r for r in SAMPLE if "resistance" in r]
 TASK = {"loads": ("design", "legal"), "adtt": 1500, "condition": "fair"}
@@ -208,33 +202,7 @@ def test_fatigue_limit_states_take_the_fatigue_truck_as_a_direct_factored_envelo
         "failed", "DesignInputError", "live")
 
 
-# ------------------------------------------------------------------------------------------- command, view
-def cli(*args: str) -> subprocess.CompletedProcess:
-    env = {**os.environ, "PYTHONPATH": str(ROOT)}
-    return subprocess.run([sys.executable, "-m", "ilkit", *args], capture_output=True, text=True, env=env,
-                          timeout=600)
-
-
-def test_the_rating_command_writes_the_tables_of_the_python_call(tmp_path):
-    path = tmp_path / "girders.json"
-    path.write_text(json.dumps({"girders": SAMPLE[:2]}), encoding="utf-8")
-    done = cli("batch", str(path), "--out", str(tmp_path / "cli"), "--rate", "design, Type 3", "--adtt", "1500",
-               "--condition", "fair", "--divisions", "4", "--workers", "1", "--no-progress")
-    assert done.returncode == 0, done.stderr
-    assert "2 girders computed, 0 already done, 1 failed" in done.stdout
-    assert f"{SAMPLE[1]['id']}: failed (resistance)" in done.stdout
-    same = batch.run(path, tmp_path / "py", workers=1, progress=False, task=batch.RatingTask(
-        loads=["design", "Type 3"], adtt=1500.0, condition="fair", divisions=4))
-    pd.testing.assert_frame_equal(pd.read_parquet(tmp_path / "cli" / "results.parquet"), same.results())
-    pd.testing.assert_frame_equal(pd.read_parquet(tmp_path / "cli" / "summary.parquet"), same.summary())
-    bad = cli("batch", str(path), "--out", str(tmp_path / "x"), "--rate", "design,Type 9", "--no-progress")
-    assert bad.returncode == 2 and "unknown rating load 'Type 9'" in bad.stderr and "Traceback" not in bad.stderr
-    stray = cli("batch", str(path), "--out", str(tmp_path / "y"), "--adtt", "500", "--no-progress")
-    assert stray.returncode == 2 and "--adtt belong to a rating run" in stray.stderr
-    both = cli("batch", str(path), "--out", str(tmp_path / "z"), "--rate", "design", "--model", "HL-93")
-    assert both.returncode == 2 and "not both" in both.stderr
-
-
+# ---------------------------------------------------------------------------------------------------- views
 def test_a_histogram_of_the_controlling_rating_factors(rated_run):
     from ilkit import views
 
