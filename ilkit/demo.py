@@ -8,7 +8,8 @@
 * ``figures/<name>-<k>.png``: every figure;
 * ``_static/mathjax/``: the MathJax that typesets the pages' formulas;
 * ``inventory_run.html``, ``inventory_run_summary.csv``, ``inventory_run/``: a generated inventory of a few hundred
-  girders of our own run under HL-93 and two limit states (:mod:`ilkit.batch`);
+  girders of our own run under HL-93 and two limit states (:mod:`ilkit.batch`); ``inventory_rating.html``,
+  ``inventory_rating_summary.csv``, ``inventory_rating/``: the load rating of its girders with resistances;
 * ``index.html``: a page linking all of the above, with the engineering caution.
 
 Every page renders offline (a calculation package is archived and read on
@@ -89,7 +90,8 @@ def run(out: Path, notebooks: Path | None = None, girders: int = 0) -> Path:
         print(f"running an inventory of {girders} girders ...", flush=True)
         page = write_inventory_demo(out, girders)
         entries.append((page.name, f"Inventory run: {girders} generated girders under HL-93, Strength I and "
-                                   "Service II (summary table and histograms)", 0))
+                                   "Service II (summary table and histograms), and the load rating of its girders "
+                                   "with resistances", 0))
     index = out / "index.html"
     items = "\n".join(
         f'<li><a href="{html.escape(href)}">{html.escape(title)}</a>'

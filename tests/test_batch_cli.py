@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import json
 import os
 import subprocess
 import sys
@@ -36,6 +37,10 @@ hinges = [10]
 """
 
 
+RATING_SAMPLE = batch.sample_inventory(2, seed=11, spans=(1, 3), lengths=(30.0, 90.0), rated=2)
+"""Two generated girders of our own, the first with resistances, the second without."""
+
+
 def cli(*args: str) -> subprocess.CompletedProcess:
     env = {**os.environ, "PYTHONPATH": str(ROOT)}
     return subprocess.run([sys.executable, "-m", "ilkit", *args], capture_output=True, text=True, env=env,
@@ -67,3 +72,23 @@ def test_bad_arguments_are_a_message_and_status_2(tmp_path):
     assert "Traceback" not in done.stderr
     assert cli("frobnicate").returncode == 2
     assert cli("--help").returncode == 0
+
+
+def test_the_rating_command_writes_the_tables_of_the_python_call(tmp_path):
+    path = tmp_path / "girders.json"
+    path.write_text(json.dumps({"girders": RATING_SAMPLE}), encoding="utf-8")
+    done = cli("batch", str(path), "--out", str(tmp_path / "cli"), "--rate", "design, Type 3", "--adtt", "1500",
+               "--condition", "fair", "--divisions", "4", "--workers", "1", "--no-progress")
+    assert done.returncode == 0, done.stderr
+    assert "2 girders computed, 0 already done, 1 failed" in done.stdout
+    assert f"{RATING_SAMPLE[1]['id']}: failed (resistance)" in done.stdout
+    same = batch.run(path, tmp_path / "py", workers=1, progress=False, task=batch.RatingTask(
+        loads=["design", "Type 3"], adtt=1500.0, condition="fair", divisions=4))
+    pd.testing.assert_frame_equal(pd.read_parquet(tmp_path / "cli" / "results.parquet"), same.results())
+    pd.testing.assert_frame_equal(pd.read_parquet(tmp_path / "cli" / "summary.parquet"), same.summary())
+    bad = cli("batch", str(path), "--out", str(tmp_path / "x"), "--rate", "design,Type 9", "--no-progress")
+    assert bad.returncode == 2 and "unknown rating load 'Type 9'" in bad.stderr and "Traceback" not in bad.stderr
+    stray = cli("batch", str(path), "--out", str(tmp_path / "y"), "--adtt", "500", "--no-progress")
+    assert stray.returncode == 2 and "--adtt belong to a rating run" in stray.stderr
+    both = cli("batch", str(path), "--out", str(tmp_path / "z"), "--rate", "design", "--model", "HL-93")
+    assert both.returncode == 2 and "not both" in both.stderr

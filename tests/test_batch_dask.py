@@ -49,3 +49,14 @@ def test_a_failing_girder_on_the_cluster_is_an_error_row(cluster, tmp_path):
     with distributed.Client(cluster) as client:
         result = batch.run(bad, tmp_path / "out", client=client, **ARGS)
     assert result.summary()["status"].tolist() == ["done", "done", "failed"]
+
+
+def test_a_rating_run_on_the_cluster_gives_the_tables_of_one_local_process(cluster, tmp_path):
+    rated = [r for r in RECORDS if "resistance" in r] + [RECORDS[1]]  # the last one has none: an error row
+    task = batch.RatingTask(loads=["design", "Type 3S2"], adtt=2500, divisions=5)
+    local = batch.run(rated, tmp_path / "local", task=task, workers=1, progress=False)
+    with distributed.Client(cluster) as client:
+        remote = batch.run(rated, tmp_path / "dask", task=task, client=client, progress=False)
+    assert remote.summary()["status"].tolist() == ["done", "done", "failed"]
+    pd.testing.assert_frame_equal(remote.results(), local.results())
+    pd.testing.assert_frame_equal(remote.summary(), local.summary())

@@ -71,3 +71,11 @@ def test_the_demo_page_of_an_inventory_run(tmp_path):
     assert (tmp_path / "inventory_run_summary.csv").read_text(encoding="utf-8").count("\nG000") == 4
     again = batch.open_run(tmp_path / "inventory_run")
     assert len(again.summary()) == 4
+    # the rating of the girders with resistances (G0001 of four), linked from the page
+    assert "<a href='inventory_rating.html'>" in text
+    rating_page = (tmp_path / "inventory_rating.html").read_text(encoding="utf-8")
+    assert "<td>G0001</td>" in rating_page and "<td>G0002</td>" not in rating_page
+    assert "licensed engineer" in rating_page and rating_page.count("data:image/svg+xml;base64,") == 1
+    assert "<td>Type 3S2</td>" in rating_page and "girders with RF &lt; 1" in rating_page
+    rated = batch.open_run(tmp_path / "inventory_rating").summary()
+    assert rated["girder"].tolist() == ["G0001"] and rated["status"].tolist() == ["done"]

@@ -6,7 +6,7 @@ from make_notebook import build
 
 CELLS = [
     ("md", """
-# An inventory of girders: HL-93 and Strength I over every girder at once
+# An inventory of girders: HL-93, Strength I and load ratings over every girder at once
 
 A study of our own: an owner's engineer checks the design effects of a corridor's
 girder lines (invented: one to three continuous spans of 30 to 120 ft) under
@@ -141,6 +141,36 @@ axes = views.plot_factored_envelope(computed["limit states"], "moment")
     ("code", """
 sheet = views.write_girder_sheet(result, "Creek Rd G2", work / "sheets")
 print(sheet.html.name)
+"""),
+    ("md", """
+## Load rating of the girders with resistances
+
+A record may carry the girder's nominal resistances (`resistance`: sagging and hogging
+moment and shear, numbers or ranges along the girder, in the record's units; here every
+fourth generated girder has invented ones). `batch.RatingTask` rates each girder for the
+design load and the AASHTO legal loads (LRFR, `ilkit.rating.rate_girder`); a girder
+without resistances is an error row naming the field, and the others go on. The factors
+recalled from the Manual for Bridge Evaluation are marked from memory in `ilkit.rating`;
+a rating must be checked and sealed by a licensed engineer under the owner's rules.
+"""),
+    ("code", """
+rated = batch.run(work / "corridor.parquet", work / "rating", workers=1, progress=False,
+                  task=batch.RatingTask(loads=["design", "legal"], adtt=1500, condition="fair"))
+rated.errors()["field"].value_counts()
+"""),
+    ("md", """
+The summary holds each girder's controlling rating factor, its vehicle and where it
+occurs, and per vehicle the rating factor, the rating in tons and the posting load where
+the Manual's posting relation gives one:
+"""),
+    ("code", """
+ratings = rated.summary()
+ratings = ratings[ratings["status"] == "done"].reset_index(drop=True)
+with pd.option_context("display.precision", 2):  # rating factors to two decimals
+    display(ratings[["girder", "spans", "RF", "RF_vehicle", "RF_where", "RF: Type 3S2", "rating tons: Type 3S2"]])
+"""),
+    ("code", """
+ax = views.plot_inventory(rated, "RF", bins=8)
 """),
 ]
 

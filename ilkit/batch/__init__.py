@@ -20,7 +20,15 @@ from ilkit.batch.inventory import FIELDS, LIVE_MODELS, Inventory, Record, Record
 from ilkit.batch.names import file_name
 from ilkit.batch.runner import STATUS_COLUMNS, BatchResult, open_run, run
 from ilkit.batch.sample import sample_inventory
-from ilkit.batch.tasks import ROW_COLUMNS, EnvelopeTask, GirderResult, GirderTask, girder_results
+from ilkit.batch.tasks import (
+    RATING_COLUMNS,
+    ROW_COLUMNS,
+    EnvelopeTask,
+    GirderResult,
+    GirderTask,
+    RatingTask,
+    girder_results,
+)
 
 __all__ = [
     "read_inventory",
@@ -34,10 +42,12 @@ __all__ = [
     "open_run",
     "BatchResult",
     "EnvelopeTask",
+    "RatingTask",
     "GirderResult",
     "GirderTask",
     "girder_results",
     "ROW_COLUMNS",
+    "RATING_COLUMNS",
     "STATUS_COLUMNS",
     "sample_inventory",
     "file_name",

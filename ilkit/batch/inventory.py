@@ -46,8 +46,13 @@ README):
     ``start``/``end`` or ``span``), ``load`` + ``at`` (a point load), or
     ``settlement`` + ``at`` (a support settles, length, downward).
 ``resistance``
-    Optional: a table of factored resistances by name (``{moment = 5200,
-    shear = 610}``), kept for rating runs.
+    Optional, for rating runs (:class:`ilkit.batch.RatingTask`): the nominal
+    resistances Rn (:class:`ilkit.rating.Resistances`), magnitudes in the
+    record's units: ``{positive_moment = [[0, 90, 5200], [90, 205, 6100]],
+    negative_moment = 6000, shear = 520, phi_moment = 1.0, phi_shear =
+    1.0}``: each action a number or ``[[start, end, value], ...]`` ranges,
+    ``moment`` for both senses at once, the resistance factors φ optional
+    (1.0).
 
 Validation builds the record's beam, loads and live load exactly as a
 single-girder study would, so a bad record raises the same typed errors as
@@ -77,6 +82,7 @@ if TYPE_CHECKING:  # pragma: no cover
     from ilkit.design import Distribution, GirderLiveLoad, PermanentLoad
     from ilkit.loads import LoadModel
     from ilkit.model import Beam
+    from ilkit.rating import Resistances
 
 __all__ = [
     "FIELDS",
@@ -100,11 +106,12 @@ FIELDS: Mapping[str, str] = {
     "EI": "flexural stiffness (force x length²): one number, or [[start, end, EI], ...]",
     "panel_points": "positions of the floor beams of a floor system",
     "live": "the live load: a name of LIVE_MODELS, or {model = name, argument = value, ...}",
-    "distribution": "{moment, shear, deflection, includes_multiple_presence}: the girder's share in lanes",
+    "distribution": "{moment, shear, deflection, includes_multiple_presence, one_lane}: the girder's share in lanes",
     "lanes": "number of lanes on the girder line (without a distribution)",
     "multiple_presence": "multiple presence factor (with lanes)",
     "permanent": "permanent loads: [{name, category, intensity [start, end | span] | load, at | settlement, at}]",
-    "resistance": "factored resistances by name ({moment = ..., shear = ...}), for rating",
+    "resistance": "nominal resistances for rating: {positive_moment, negative_moment, shear (a number or [[start, "
+                  "end, value], ...]), moment (both senses), phi_moment, phi_shear}",
 }
 """Every field of a record and what it holds (units: the record's ``units``)."""
 
@@ -259,19 +266,36 @@ class Record:
         if not isinstance(given, Mapping) or "moment" not in given:
             raise InventoryError(f"distribution: give a table with at least moment (lanes), e.g. {{moment = 0.62, "
                                  f"shear = 0.78}}, got {given!r}.", record=self.id, field="distribution", value=given)
-        allowed = ("moment", "shear", "deflection", "includes_multiple_presence", "source")
+        allowed = ("moment", "shear", "deflection", "includes_multiple_presence", "source", "one_lane")
         extra = sorted(set(given) - set(allowed))
         if extra:
             raise InventoryError(f"distribution: unknown field(s) {extra}; allowed: {list(allowed)}.",
                                  record=self.id, field=f"distribution.{extra[0]}", value=extra)
         try:
-            return design.given_distribution(
+            found = design.given_distribution(
                 given["moment"], given.get("shear"), given.get("deflection"),
                 includes_multiple_presence=given.get("includes_multiple_presence", False), girder=self.id,
                 source=given.get("source", "inventory"))
         except IlkitError as err:
             _prefix(err, "distribution")
             raise
+        if "one_lane" not in given:
+            return found
+        one = given["one_lane"]
+        if not isinstance(one, Mapping) or "moment" not in one or set(one) - {"moment", "shear"}:
+            raise InventoryError(f"distribution.one_lane: give the one-lane factors, multiple presence m = 1.20 in "
+                                 f"them, as {{moment = 0.45, shear = 0.6}}, got {one!r}.", record=self.id,
+                                 field="distribution.one_lane", value=one)
+        try:
+            single = design.given_distribution(one["moment"], one.get("shear"), includes_multiple_presence=True,
+                                               girder=self.id, source=given.get("source", "inventory"),
+                                               note="one lane loaded, m = 1.20 in it")
+        except IlkitError as err:
+            _set_field(err, "distribution.one_lane")
+            raise
+        from dataclasses import replace
+
+        return replace(found, one_lane=(single.moment, single.shear))
 
     def live_load(self, model: LoadModel | None = None) -> GirderLiveLoad:
         """The girder's live load: ``model`` (by default the record's ``live``) times its share
@@ -298,15 +322,71 @@ class Record:
             _set_field(err, named[0] if named else ("multiple_presence" if given == "factors" else "live"))
             raise
 
-    def resistance(self) -> dict[str, float]:
-        """The factored resistances given (name -> value in the record's units), for rating."""
-        from ilkit._exact import to_exact
+    def fatigue_live_load(self) -> GirderLiveLoad:
+        """The girder's fatigue live load for the AASHTO fatigue limit states: the fatigue truck
+        (:func:`ilkit.loads.fatigue_truck`, IM 15 %) in one lane, without multiple presence (AASHTO LRFD
+        3.6.1.4, 3.6.1.1.2, from memory).  With a ``distribution``, its one-lane factors (``one_lane``) divided
+        by 1.20 (:meth:`ilkit.design.Distribution.fatigue`); with ``lanes`` or neither, one lane on the girder
+        line.  A distribution without ``one_lane`` raises :class:`ilkit.InventoryError` naming that field."""
+        from ilkit.design import GirderLiveLoad
+        from ilkit.loads import fatigue_truck
 
-        given = self.data.get("resistance", {})
-        if not isinstance(given, Mapping):
-            raise InventoryError(f"resistance: give a table of names and values, e.g. {{moment = 5200}}, got "
-                                 f"{given!r}.", record=self.id, field="resistance", value=given)
-        return {str(k): float(to_exact(v, field=f"resistance.{k}", error=InventoryError)) for k, v in given.items()}
+        distribution = self.distribution()
+        if distribution is None:
+            return GirderLiveLoad(fatigue_truck(), name="fatigue truck, one lane")
+        if distribution.one_lane is None:
+            raise InventoryError(
+                "distribution.one_lane: the fatigue limit states take the fatigue truck with the one-lane factors "
+                "and multiple presence removed; give them: distribution = {moment = ..., one_lane = {moment = 0.45, "
+                "shear = 0.6}} (one lane loaded, m = 1.20 in them).", record=self.id, field="distribution.one_lane")
+        return GirderLiveLoad(fatigue_truck(), distribution=distribution.fatigue(), name="fatigue truck")
+
+    def resistance(self) -> Resistances | None:
+        """The nominal resistances for rating (:class:`ilkit.rating.Resistances`, the record's units), or
+        ``None`` when the record gives none.  A bad value raises :class:`ilkit.RatingInputError` (a negative
+        resistance ...) or :class:`ilkit.InventoryError` (an unknown name), with ``field`` naming it
+        (``"resistance.shear"``)."""
+        from ilkit.rating import Resistances
+
+        given = self.data.get("resistance")
+        if given is None:
+            return None
+        if not isinstance(given, Mapping) or not given:
+            raise InventoryError(f"resistance: give a table of nominal resistances, e.g. {{positive_moment = 5200, "
+                                 f"negative_moment = 4800, shear = 610}}, got {given!r}.", record=self.id,
+                                 field="resistance", value=given)
+        unknown = sorted(set(map(str, given)) - set(RESISTANCE_FIELDS))
+        if unknown:
+            raise InventoryError(f"resistance: unknown name {unknown[0]!r}; the names are "
+                                 f"{', '.join(RESISTANCE_FIELDS)}.", record=self.id,
+                                 field=f"resistance.{unknown[0]}", value=unknown)
+        values = {str(k): (_ranges(v) if isinstance(v, list) else v) for k, v in given.items()}
+        both = values.pop("moment", None)
+        if both is not None:
+            for sense in ("positive_moment", "negative_moment"):
+                if sense in values:
+                    raise InventoryError(f"resistance: give moment (both senses) or {sense}, not both.",
+                                         record=self.id, field=f"resistance.{sense}", value=values[sense])
+                values[sense] = both
+        try:
+            return Resistances(**values, name=f"{self.id}, from the inventory")
+        except IlkitError as err:  # named by the record's own name of the value
+            said = str(getattr(err, "field", "") or "").replace(" ", "_")
+            name = next((n for n in sorted(RESISTANCE_FIELDS, key=len, reverse=True) if n in said), None)
+            if name in ("positive_moment", "negative_moment") and both is not None:
+                name = "moment"
+            _set_field(err, f"resistance.{name}" if name else "resistance")
+            raise
+
+
+RESISTANCE_FIELDS = ("positive_moment", "negative_moment", "moment", "shear", "phi_moment", "phi_shear")
+"""The names a record's ``resistance`` table may hold (:class:`ilkit.rating.Resistances`; ``moment`` gives
+both senses)."""
+
+def _ranges(value: list[Any]) -> Any:
+    """``[[start, end, value], ...]`` as a list of tuples (a range of another length is left for
+    :class:`ilkit.rating.Resistances` to refuse)."""
+    return [tuple(r) if isinstance(r, list) else r for r in value]
 
 
 @dataclass(frozen=True)

@@ -37,7 +37,7 @@ from ilkit._display import RichDisplay
 from ilkit._files import make_folder, write_file
 from ilkit.batch._parquet import need_pyarrow, read_table, write_tables
 from ilkit.batch.inventory import Inventory, Record, read_inventory
-from ilkit.batch.tasks import EnvelopeTask, GirderTask
+from ilkit.batch.tasks import EnvelopeTask, GirderTask, RatingTask
 from ilkit.errors import BatchInputError, IlkitError, MissingDependencyError
 
 if TYPE_CHECKING:  # pragma: no cover
@@ -90,14 +90,16 @@ class BatchResult(RichDisplay):
         return self.folder / _SUMMARY
 
     def results(self) -> pd.DataFrame:
-        """The tidy table of every girder's rows (:data:`ilkit.batch.ROW_COLUMNS`), in inventory order; values
+        """The tidy table of every girder's rows (:data:`ilkit.batch.ROW_COLUMNS`; a rating run's:
+        :data:`ilkit.batch.RATING_COLUMNS`), in inventory order; values
         in each girder's units (its summary's ``units``), signs of :mod:`ilkit.model`."""
         return read_table(self.results_path)
 
     def summary(self) -> pd.DataFrame:
         """One row per girder of the inventory: :data:`STATUS_COLUMNS`, then the task's summary (for the
         envelope task the governing ``moment_max``, ``moment_min``, ``shear_max`` ... with their ``x``, load
-        and case), in inventory order."""
+        and case; for the rating task the controlling ``RF`` and per vehicle ``"RF: Type 3"`` ..., see
+        :class:`~ilkit.batch.RatingTask`), in inventory order."""
         return read_table(self.summary_path)
 
     def errors(self) -> pd.DataFrame:
@@ -119,7 +121,8 @@ class BatchResult(RichDisplay):
 
     def compute(self, girder: str) -> list[tuple[str, str, Any]]:
         """One girder's design results again (``(load, kind, result)``: :class:`~ilkit.design.LiveEnvelope`
-        and :class:`~ilkit.design.FactoredEnvelope` objects for the envelope task), computed from its record:
+        and :class:`~ilkit.design.FactoredEnvelope` objects for the envelope task, a
+        :class:`~ilkit.rating.GirderRating` for the rating task), computed from its record:
         the objects behind its rows, with their placements, for drawings and sheets."""
         compute = getattr(self.task, "compute", None)
         if compute is None:
@@ -159,7 +162,8 @@ def run(
         What to compute (:class:`~ilkit.batch.EnvelopeTask`): load models (``"HL-93"`` ...), limit
         states (``"Strength I"`` ...), parts per span (tenth points by default).
     task:
-        Another per-girder task instead (see ``ilkit.batch.tasks``).
+        Another per-girder task instead: :class:`~ilkit.batch.RatingTask` (the load rating of each girder from
+        its ``resistance``), or one of your own (see ``ilkit.batch.tasks``).
     workers:
         Local worker processes; all cores by default; ``1`` runs in this process.
     client, scheduler:
@@ -237,13 +241,15 @@ def open_run(out: str | os.PathLike[str]) -> BatchResult:
                               value=str(folder)) from None
     inv = read_inventory(records)
     summary = read_table(folder / _SUMMARY)
-    task = None
-    if described.get("task") == "envelope":
-        try:
+    task: GirderTask | None = None
+    try:
+        if described.get("task") == "envelope":
             task = EnvelopeTask(models=described["models"], limit_states=described["limit_states"],
                                 divisions=described["divisions"])
-        except (IlkitError, KeyError):  # a load model given as an object is not rebuilt from its description
-            task = None
+        elif described.get("task") == "rating":
+            task = RatingTask(**{k: v for k, v in described.items() if k != "task"})
+    except (IlkitError, KeyError, TypeError):  # a load given as an object is not rebuilt from its description
+        task = None
     return BatchResult(folder, task, described, failed=int((summary["status"] == "failed").sum()),
                        invalid=int((summary["status"] == "invalid").sum()), inventory=inv)
 

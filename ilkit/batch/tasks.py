@@ -30,7 +30,8 @@ if TYPE_CHECKING:  # pragma: no cover
     from ilkit.design import FactoredEnvelope, LiveEnvelope
     from ilkit.model import Beam
 
-__all__ = ["GirderResult", "GirderTask", "EnvelopeTask", "girder_results", "ROW_COLUMNS", "QUANTITIES"]
+__all__ = ["GirderResult", "GirderTask", "EnvelopeTask", "RatingTask", "girder_results", "ROW_COLUMNS",
+           "RATING_COLUMNS", "QUANTITIES"]
 
 ROW_COLUMNS = ("girder", "section", "x", "side", "quantity", "load", "kind", "max", "min", "max_case", "min_case")
 """The columns of the envelope task's rows: the girder's id; the section (``"span 2 at 0.30"``, ``"support
@@ -81,7 +82,11 @@ class EnvelopeTask:
     envelope times the girder's share: :func:`ilkit.design.live_envelope`).  ``limit_states``: names
     (``"Strength I"``) or :class:`ilkit.design.LimitState` objects; they combine the record's permanent
     loads with its live load (the record's ``live``, else the first of ``models``) in a factored envelope
-    (:func:`ilkit.design.factored_envelope`).  With neither, each girder's own ``live`` is enveloped.
+    (:func:`ilkit.design.factored_envelope`); where that live load is HL-93, the AASHTO fatigue limit states
+    (``"Fatigue I"``, ``"Fatigue II"``) take the fatigue truck in one lane without multiple presence instead
+    (:meth:`ilkit.batch.Record.fatigue_live_load`; a record with a ``distribution`` gives its ``one_lane``
+    factors).  A limit state that does not suit the live load (a fatigue limit state with LM1) fails the
+    girder with a typed error.  With neither, each girder's own ``live`` is enveloped.
     """
 
     models: tuple[Any, ...] = ()
@@ -148,11 +153,19 @@ class EnvelopeTask:
             if own is None and not specs:
                 raise InventoryError("live: the limit states need the girder's live load; give the record a live "
                                      "load (live = 'HL-93') or the run a model.", record=record.id, field="live")
-            key = repr(own) if own is not None else repr(specs[0])
-            env = envelopes.get(key)
-            if env is None:
-                model = live_model(own, record=record.id) if own is not None else live_model(specs[0])
-                env = live_envelope(beam, record.live_load(model), divisions=n, parts=parts)
+            spec = own if own is not None else specs[0]
+            live: dict[str, LiveEnvelope] = {}
+            fatigue = [s for s in states if _is_fatigue(s)] if _is_hl93(spec) else []
+            if fatigue:  # AASHTO fatigue: the fatigue truck, one lane, no multiple presence
+                truck = live_envelope(beam, record.fatigue_live_load(), divisions=n,
+                                      parts=any(s.live_parts for s in fatigue))
+                live.update({s.name: truck for s in fatigue})
+            if len(live) < len(states):
+                env = envelopes.get(repr(spec))
+                if env is None:
+                    model = live_model(own, record=record.id) if own is not None else live_model(specs[0])
+                    env = live_envelope(beam, record.live_load(model), divisions=n, parts=parts)
+                live["*"] = env
             loads = record.permanent_loads()
             if not loads:  # no permanent load given: a zero one, so that every section has its (zero) row
                 from ilkit.design import DistributedLoad
@@ -160,7 +173,7 @@ class EnvelopeTask:
                 loads = [DistributedLoad("no permanent load", "DC", 0)]
             permanent = permanent_effects(beam, loads, divisions=n, quantities=list(QUANTITIES))
             out.append(("limit states", "limit state",
-                        factored_envelope(beam, permanent=permanent, live=env, limit_states=states, divisions=n)))
+                        factored_envelope(beam, permanent=permanent, live=live, limit_states=states, divisions=n)))
         return out
 
     def __call__(self, record: Record) -> GirderResult:
@@ -180,6 +193,24 @@ class EnvelopeTask:
             }))
         rows = pd.concat(frames, ignore_index=True)[list(ROW_COLUMNS)]
         return GirderResult(rows, _summary(record, beam, rows))
+
+
+def _is_fatigue(state: Any) -> bool:
+    """An AASHTO fatigue limit state: the fatigue truck's dynamic allowance (15 %), no multiple presence."""
+    return (not state.multiple_presence and state.dynamic_allowance is not None
+            and abs(state.dynamic_allowance - 0.15) < 1e-9)
+
+
+def _is_hl93(spec: object) -> bool:
+    """True when a live-load spec (a name, a table or a LoadModel) is AASHTO's HL-93."""
+    from ilkit.loads import LoadModel
+
+    if isinstance(spec, LoadModel):
+        from ilkit.loads import hl93
+
+        return spec.name == hl93().name
+    name = spec.get("model") if isinstance(spec, dict) else spec
+    return name == "HL-93"
 
 
 def _sequence(value: object, name: str) -> list[Any]:
@@ -226,14 +257,17 @@ def _section_label(supports: list[float], length: float, x: float, side: str) ->
     return f"x = {x:g}"  # pragma: no cover - every section is on the beam
 
 
-def _summary(record: Record, beam: Beam, rows: pd.DataFrame) -> dict[str, Any]:
-    """The governing extremes of each quantity over every section and load: value, ``x``, load and case."""
+def _summary_head(record: Record, beam: Beam, rows: pd.DataFrame) -> dict[str, Any]:
+    """The first fields of a girder's summary: id, units, length, spans and the number of rows."""
     supports = [s.at for s in beam.supports]
     spans = [supports[i + 1] - supports[i] for i in range(len(supports) - 1)]
-    out: dict[str, Any] = {
-        "girder": record.id, "units": beam.units.name if beam.units else "", "length": float(beam.length),
-        "spans": ", ".join(_fmt(s) for s in spans), "rows": len(rows),
-    }
+    return {"girder": record.id, "units": beam.units.name if beam.units else "", "length": float(beam.length),
+            "spans": ", ".join(_fmt(s) for s in spans), "rows": len(rows)}
+
+
+def _summary(record: Record, beam: Beam, rows: pd.DataFrame) -> dict[str, Any]:
+    """The governing extremes of each quantity over every section and load: value, ``x``, load and case."""
+    out = _summary_head(record, beam, rows)
     for q in QUANTITIES:
         part = rows[rows["quantity"] == q]
         for which in ("max", "min"):
@@ -251,3 +285,141 @@ def _summary(record: Record, beam: Beam, rows: pd.DataFrame) -> dict[str, Any]:
 def _fmt(value: Fraction) -> str:
     return f"{float(value):g}"
 
+
+RATING_COLUMNS = ("girder", "section", "x", "side", "quantity", "sense", "vehicle", "level", "limit_state", "RF",
+                  "Rn", "capacity", "dead", "live", "gamma_LL", "case", "placement")
+"""The columns of the rating task's rows (``frame`` of :class:`ilkit.rating.GirderRating`, one row per section, face,
+action, sense and vehicle): the girder's id, the ``section`` (``"span 2 at 0.30"``), ``x`` (record units) and
+``side``; ``quantity`` (``"moment"``, ``"shear"``) and ``sense`` (``"positive"``: sagging moment, positive
+shear; ``"negative"``); the ``vehicle``, its ``level`` (``"design inventory"``, ``"legal"``, ``"permit"`` ...)
+and ``limit_state``; the rating factor ``RF`` (dimensionless); ``Rn`` and ``capacity`` (C = φc φs φ Rn,
+magnitudes), ``dead`` (Σ γp P of the sense, signed) and ``live`` (LL + IM, the girder's share, unfactored,
+signed), in the record's units; ``gamma_LL``; the governing ``case`` of the vehicle's model and its
+``placement`` in words."""
+
+
+@dataclass(frozen=True)
+class RatingTask:
+    """The load rating of each girder (LRFR, :func:`ilkit.rating.rate_girder`) from its record: its beam,
+    permanent loads (``permanent``), share of a lane (``distribution``, or ``lanes`` and
+    ``multiple_presence``, or one lane) and nominal resistances (``resistance``, required: a record without
+    one fails with an error naming the field ``resistance``).
+
+    ``loads``: rating loads, names of :func:`ilkit.rating.rating_loads` (``"design"``, ``"legal"``,
+    ``"emergency"``, ``"Type 3"`` ...) or :class:`ilkit.rating.RatingLoad` objects (a permit:
+    :func:`ilkit.rating.permit_load`).  ``adtt`` (trucks a day in one direction) sets γLL of the legal loads;
+    ``condition`` and ``system``: φc and φs (:func:`ilkit.rating.condition_factor`,
+    :func:`ilkit.rating.system_factor`), the same for every girder; ``divisions``: parts per span (tenth points);
+    ``wearing_surface_measured``: γDW 1.25 instead of 1.50.  A special permit takes the one-lane distribution
+    with multiple presence taken out: a record's ``distribution.one_lane``, or one lane.
+
+    The rows (:data:`RATING_COLUMNS`) hold every rating factor; the summary the controlling one of the girder
+    (``RF``, with ``RF_vehicle``, ``RF_where``, ``RF_x``) and of each vehicle (``"RF: Type 3"``,
+    ``"where: Type 3"``, ``"x: Type 3"``, ``"rating tons: Type 3"`` and ``"posting: Type 3"``, the posting load
+    in tons where the Manual's relation gives one; NaN where it does not apply).  Values recalled from the
+    Manual are marked from memory in :mod:`ilkit.rating.factors`; a rating must be checked and sealed by a
+    licensed engineer under the owner's rules.
+    """
+
+    loads: tuple[Any, ...] = ("design", "legal")
+    adtt: float | None = None
+    condition: Any = "good"
+    system: Any = "all other girder bridges and slab bridges"
+    divisions: int = 10
+    wearing_surface_measured: bool = False
+
+    def __post_init__(self) -> None:
+        from ilkit._check import flag
+        from ilkit.rating import condition_factor, rating_loads, system_factor
+
+        loads = tuple(_sequence(self.loads, "loads"))
+        rating_loads(list(loads), adtt=self.adtt)  # an unknown vehicle or a bad ADTT is refused before any girder
+        condition_factor(self.condition)
+        system_factor(self.system)
+        n = whole(self.divisions, what="RatingTask: divisions", field="divisions", minimum=1, error=BatchInputError)
+        measured = flag(self.wearing_surface_measured, what="RatingTask: wearing_surface_measured",
+                        field="wearing_surface_measured", error=BatchInputError)
+        object.__setattr__(self, "loads", loads)
+        object.__setattr__(self, "divisions", n)
+        object.__setattr__(self, "wearing_surface_measured", measured)
+
+    def describe(self) -> dict[str, Any]:
+        """The settings as plain data: ``{"task": "rating", "loads": [...], "adtt": ..., "condition": ...,
+        "system": ..., "divisions": n, "wearing_surface_measured": ...}``."""
+        def plain(value: Any) -> Any:
+            return value if value is None or isinstance(value, (str, int, float)) else repr(value)
+
+        return {"task": "rating", "loads": [plain(x) for x in self.loads], "adtt": plain(self.adtt),
+                "condition": plain(self.condition), "system": plain(self.system), "divisions": self.divisions,
+                "wearing_surface_measured": self.wearing_surface_measured}
+
+    def compute(self, record: Record) -> list[tuple[str, str, Any]]:
+        """The rating of one girder: ``[("rating", "rating", GirderRating)]`` (the object a rating sheet shows,
+        :class:`ilkit.rating.GirderRating`)."""
+        from ilkit.design import DistributedLoad, permanent_effects
+        from ilkit.errors import RatingInputError
+        from ilkit.rating import rate_girder
+
+        resistances = record.resistance()
+        if resistances is None:
+            raise InventoryError("resistance: a rating run needs the girder's nominal resistances; give resistance = "
+                                 "{positive_moment = ..., negative_moment = ..., shear = ...} (record units).",
+                                 record=record.id, field="resistance")
+        beam = record.beam()
+        loads = record.permanent_loads() or [DistributedLoad("no permanent load", "DC", 0)]
+        permanent = permanent_effects(beam, loads, divisions=self.divisions, quantities=["moment", "shear"])
+        distribution, single_lane = _rating_shares(record)
+        try:
+            rated = rate_girder(beam, permanent=permanent, resistances=resistances, distribution=distribution,
+                                loads=list(self.loads), adtt=self.adtt, condition=self.condition, system=self.system,
+                                single_lane=single_lane, divisions=self.divisions,
+                                wearing_surface_measured=self.wearing_surface_measured)
+        except RatingInputError as err:  # named by the record's field where one is at fault
+            if err.field == "single_lane":
+                err.field = "distribution.one_lane"
+            elif err.field == "dead_factors":
+                err.field = "permanent"
+            raise
+        return [("rating", "rating", rated)]
+
+    def __call__(self, record: Record) -> GirderResult:
+        """The girder's rows (:data:`RATING_COLUMNS`) and summary (the controlling rating, overall and per
+        vehicle)."""
+        import pandas as pd
+
+        rated = self.compute(record)[0][2]
+        beam = rated.beam
+        f = rated.frame
+        rows = pd.DataFrame({"girder": record.id, "section": _labels(beam, f), **{c: f[c] for c in RATING_COLUMNS[2:]}})
+        supports = [float(s.at) for s in beam.supports]
+        out = _summary_head(record, beam, rows)
+        controlling = rated.controlling()
+        where = [f"{_section_label(supports, float(beam.length), float(c.x), str(c.side))}, {c.sense} {c.quantity}"
+                 for c in controlling.itertuples(index=False)]
+        worst = int(controlling["RF"].to_numpy().argmin())  # the first vehicle rated of the smallest RF
+        out.update({"RF": float(controlling["RF"].iat[worst]), "RF_vehicle": str(controlling["vehicle"].iat[worst]),
+                    "RF_where": where[worst], "RF_x": float(controlling["x"].iat[worst])})
+        for c, words in zip(controlling.itertuples(index=False), where):
+            out.update({f"RF: {c.vehicle}": float(c.RF), f"where: {c.vehicle}": words, f"x: {c.vehicle}": float(c.x),
+                        f"rating tons: {c.vehicle}": float(c.rating_tons), f"posting: {c.vehicle}": float(c.posting)})
+        return GirderResult(rows.reset_index(drop=True), out)
+
+
+def _rating_shares(record: Record) -> tuple[Any, Any]:
+    """The distribution a rating takes from a record, and the one-lane one for special permits (``None``: from
+    the distribution's ``one_lane``): a ``distribution`` as given; ``lanes`` × ``multiple_presence`` (one lane
+    without multiple presence for special permits); one lane where neither is given."""
+    from ilkit._exact import to_exact
+    from ilkit.batch.inventory import _whole_text
+    from ilkit.design import given_distribution
+
+    given = record.distribution()
+    if given is not None:
+        return given, None
+    lanes = int(_whole_text(record.data.get("lanes", 1)))  # type: ignore[call-overload]
+    m = record.data.get("multiple_presence")
+    share = lanes * (1.0 if m is None else float(to_exact(m, field="multiple_presence", error=InventoryError)))
+    words = f"{lanes} lane{'s' if lanes > 1 else ''} on the girder line" + ("" if m is None else f" × m {m}")
+    return (given_distribution(share, includes_multiple_presence=m is not None, girder=record.id,
+                               source="inventory", note=words),
+            given_distribution(1, girder=record.id, source="inventory", note="one lane, no multiple presence"))

@@ -346,10 +346,10 @@ def write_rating_sheet(
     if pdf is not False:
         data = pdf_bytes(page, required=pdf is True)
         if data is not None:
-            pdf_path = stem.with_suffix(".pdf")
+            pdf_path = stem.with_name(stem.name + ".pdf")
             files[pdf_path] = data
     write_files(files, what="write_rating_sheet")
-    return RatingSheet(stem.with_suffix(".html"), stem.with_suffix(".md"), figures, pdf_path)
+    return RatingSheet(stem.with_name(stem.name + ".html"), stem.with_name(stem.name + ".md"), figures, pdf_path)
 
 
 def pdf_bytes(page: str, *, required: bool = True) -> bytes | None:

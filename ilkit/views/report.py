@@ -555,7 +555,7 @@ def write_calculation_sheet(
     _, files, figures = sheet_files(stem, title, blocks, block)
     # all files or none: a failure never leaves new HTML beside old Markdown
     write_files(files, what="write_calculation_sheet")
-    return CalculationSheet(stem.with_suffix(".html"), stem.with_suffix(".md"), figures)
+    return CalculationSheet(stem.with_name(stem.name + ".html"), stem.with_name(stem.name + ".md"), figures)
 
 
 def sheet_files(
@@ -573,7 +573,7 @@ def sheet_files(
         return f"{figures.name}/{target.name}"
 
     page = _page(title, _doc.to_html(blocks), block.footer(title))
-    files: dict[Path, str | bytes] = {stem.with_suffix(".html"): page,
-                                      stem.with_suffix(".md"): _doc.to_markdown(blocks, link), **svgs}
+    files: dict[Path, str | bytes] = {stem.with_name(stem.name + ".html"): page,
+                                      stem.with_name(stem.name + ".md"): _doc.to_markdown(blocks, link), **svgs}
     return page, files, figures
 
