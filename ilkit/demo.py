@@ -10,6 +10,9 @@
 * ``inventory_run.html``, ``inventory_run_summary.csv``, ``inventory_run/``: a generated inventory of a few hundred
   girders of our own run under HL-93 and two limit states (:mod:`ilkit.batch`); ``inventory_rating.html``,
   ``inventory_rating_summary.csv``, ``inventory_rating/``: the load rating of its girders with resistances;
+* calculation sheets (``girder``, ``highway_girder``, ``through_truss``, ``composite_girder``) and the rating
+  sheet (``rating_sheet``) as ``.html`` and ``.md`` (the rating sheet also ``.pdf`` where WeasyPrint is
+  installed);
 * ``index.html``: a page linking all of the above, with the engineering caution.
 
 Every page renders offline (a calculation package is archived and read on

@@ -202,13 +202,13 @@ def corroded_girder_rating() -> object:
 
 
 def write_rating_demo_sheet(directory: str | Path) -> object:
-    """Write the rating sheet of :func:`corroded_girder_rating` into ``directory`` (``load_rating.html``,
+    """Write the rating sheet of :func:`corroded_girder_rating` into ``directory`` (``rating_sheet.html``,
     ``.md`` and, where WeasyPrint is installed, ``.pdf``)."""
     from ilkit.views.rating_records import write_rating_sheet
 
     return write_rating_sheet(
         corroded_girder_rating(),  # type: ignore[arg-type]
-        Path(directory) / "load_rating",
+        Path(directory) / "rating_sheet",  # load_rating.html is the notebook's page
         title="Load rating of a three-span steel girder with a corroded span",
         title_block={"project": "ilkit demo study (invented data)",
                      "bridge": "Three-span continuous steel girder bridge (1960s style)",

@@ -59,7 +59,10 @@ def test_every_demo_page_renders_offline(offline_page, installed_demo, artifacts
     pages = sorted(out.glob("*.html"))
     names = {p.name for p in pages}
     notebooks = {f"{p.stem}.html" for p in (Path(__file__).resolve().parents[2] / "notebooks").glob("*.ipynb")}
-    assert notebooks | {"index.html", "girder.html", "highway_girder.html", "composite_girder.html"} <= names
+    assert notebooks | {"index.html", "girder.html", "highway_girder.html", "composite_girder.html",
+                        "rating_sheet.html"} <= names
+    for name in notebooks:  # each notebook's page is the notebook, not a sheet written over it
+        assert "jp-Notebook" in (out / name).read_text(encoding="utf-8"), name
     assert MATH_PAGES <= names
     for path in pages:
         page.goto(path.as_uri())
