@@ -412,13 +412,12 @@ class Explorer:
         except IlkitError as err:
             self._show_message(str(err), error=True)
             return False
-        step = _nice_step(length / 400)
-        first, last = math.floor(-extent / step), math.ceil((length + extent) / step)
-        self._x0, self._step = first * step, step
+        self._x0, step, count = _slider_range(length, extent)
+        self._step = step
         self._set_quietly(self.slider, 0)
         self._quiet = True
         try:
-            self.slider.max = last - first
+            self.slider.max = count
         finally:
             self._quiet = False
         self.direction.disabled = load is None
@@ -797,6 +796,15 @@ def _one_sided(line: InfluenceLine, x: float, side: Literal["left", "right"] | N
     if side == "right":
         return float(line.right(x))
     return float(line(x))
+
+
+def _slider_range(length: float, extent: float) -> tuple[float, float, int]:
+    """The slider of a load ``extent`` long moving over a structure ``length`` long, from wholly off its left
+    end to wholly off its right end: the position of step 0, the step (a 1-2-5 number near length/400) and
+    the number of steps."""
+    step = _nice_step(length / 400)
+    first, last = math.floor(-extent / step), math.ceil((length + extent) / step)
+    return first * step, step, last - first
 
 
 def _nice_step(raw: float) -> float:

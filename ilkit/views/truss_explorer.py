@@ -35,7 +35,7 @@ from typing import TYPE_CHECKING, Any, Literal
 from ilkit.errors import IlkitError
 from ilkit.views import style
 from ilkit.views.caution import CAUTION_SHORT
-from ilkit.views.explorer import UNIT_LOAD, _choice_error, _nice_step, _number, _read_loads, _train_length
+from ilkit.views.explorer import UNIT_LOAD, _choice_error, _number, _read_loads, _slider_range, _train_length
 from ilkit.views.livefigure import Backend, Coalescer, LiveFigure, _require
 from ilkit.views.loaddraw import Axle, LoadArtists, Loading
 
@@ -193,13 +193,12 @@ class TrussExplorer:
         except IlkitError as err:
             self._show(str(err), error=True)
             extent = 0.0
-        step = _nice_step(length / 400)
-        first, last = math.floor(-extent / step), math.ceil((length + extent) / step)
-        self._x0, self._step = first * step, step
+        self._x0, step, count = _slider_range(length, extent)
+        self._step = step
         self._quietly(self.slider, 0)
         self._quiet = True
         try:
-            self.slider.max = last - first
+            self.slider.max = count
         finally:
             self._quiet = False
         self.direction.disabled = load is None
